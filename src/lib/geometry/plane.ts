@@ -1,0 +1,55 @@
+/**
+ * Points and straight lines in board coordinates (+x from the nut toward the bridge along the
+ * centre line, +y toward the bass side). Units are whatever the caller's design uses.
+ */
+
+export interface Point {
+  x: number;
+  y: number;
+}
+
+/** A straight piece of line from `start` to `end`. */
+export interface Segment {
+  start: Point;
+  end: Point;
+}
+
+/** The point at fraction `t` from `a` (t = 0) to `b` (t = 1). */
+export function lerpPoint(a: Point, b: Point, t: number): Point {
+  return { x: a.x + (b.x - a.x) * t, y: a.y + (b.y - a.y) * t };
+}
+
+export function distance(a: Point, b: Point): number {
+  return Math.hypot(b.x - a.x, b.y - a.y);
+}
+
+/** `point` moved by `length` in the direction from `from` to `to`. */
+export function moveToward(point: Point, from: Point, to: Point, length: number): Point {
+  const span = distance(from, to);
+  return {
+    x: point.x + ((to.x - from.x) / span) * length,
+    y: point.y + ((to.y - from.y) / span) * length,
+  };
+}
+
+/**
+ * Where the infinite line through a1, a2 meets the infinite line through b1, b2.
+ * @throws RangeError for parallel lines (never the case for the board's edges and fret lines).
+ */
+export function intersectLines(a1: Point, a2: Point, b1: Point, b2: Point): Point {
+  const ax = a2.x - a1.x;
+  const ay = a2.y - a1.y;
+  const bx = b2.x - b1.x;
+  const by = b2.y - b1.y;
+  const determinant = ax * by - ay * bx;
+  if (determinant === 0) throw new RangeError('lines are parallel');
+  const s = ((b1.x - a1.x) * by - (b1.y - a1.y) * bx) / determinant;
+  return { x: a1.x + ax * s, y: a1.y + ay * s };
+}
+
+/** The segment shortened by `length` at both ends (collapses to its midpoint if too short). */
+export function shortenBothEnds(segment: Segment, length: number): Segment {
+  const span = distance(segment.start, segment.end);
+  const t = span > 2 * length ? length / span : 0.5;
+  return { start: lerpPoint(segment.start, segment.end, t), end: lerpPoint(segment.end, segment.start, t) };
+}
