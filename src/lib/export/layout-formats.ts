@@ -1,0 +1,32 @@
+import type { Layout } from '~/lib/geometry/layout';
+import { fretTableCsv } from './csv';
+
+/**
+ * The ways a computed layout can be written out, shared by the HTTP API and the command line.
+ * A new export (PDF, DXF, SVG) adds one entry here.
+ */
+export interface LayoutFormat {
+  contentType: string;
+  /** File name extension, without the dot. */
+  extension: string;
+  render(layout: Layout): string;
+}
+
+export const LAYOUT_FORMATS = {
+  json: {
+    contentType: 'application/json; charset=utf-8',
+    extension: 'json',
+    render: (layout) => JSON.stringify(layout),
+  },
+  csv: {
+    contentType: 'text/csv; charset=utf-8',
+    extension: 'csv',
+    render: fretTableCsv,
+  },
+} satisfies Record<string, LayoutFormat>;
+
+export type LayoutFormatName = keyof typeof LAYOUT_FORMATS;
+
+export function isLayoutFormatName(name: string): name is LayoutFormatName {
+  return Object.hasOwn(LAYOUT_FORMATS, name);
+}

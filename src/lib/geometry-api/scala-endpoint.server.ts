@@ -1,0 +1,26 @@
+import { parseScl } from '~/lib/geometry/scala';
+import { readText } from '~/lib/http/body.server';
+import { json, problem } from '~/lib/http/problem';
+
+/** Largest .scl body accepted by POST /api/scala. */
+export const SCALA_BODY_MAX_BYTES = 64 * 1024;
+
+const SCALA_BODY_TYPES = ['text/plain', 'application/octet-stream'] as const;
+
+/**
+ * POST /api/scala: the text of a .scl file in, the parsed scale out
+ * (`{ description, pitches: [{ text, cents, ratio, line }], period }`), or 400 with the line.
+ */
+export async function handleScalaRequest(request: Request): Promise<Response> {
+  if (request.method !== 'POST') {
+    return problem(405, 'Use POST with the .scl text as the body', {}, { allow: 'POST' });
+  }
+  const body = await readText(request, { maxBytes: SCALA_BODY_MAX_BYTES, types: SCALA_BODY_TYPES });
+  if (!body.ok) return body.response;
+  const parsed = parseScl(body.value);
+  if (!parsed.ok) {
+    const { line, message } = parsed.error;
+    return problem(400, `line ${line}: ${message}`, { field: 'scl', line });
+  }
+  return json(parsed.scale);
+}

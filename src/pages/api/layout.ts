@@ -1,0 +1,6 @@
+import type { APIRoute } from 'astro';
+import { handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server';
+
+export const prerender = false;
+
+export const POST: APIRoute = ({ request }) => handleLayoutRequest(request);

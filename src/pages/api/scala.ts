@@ -1,0 +1,6 @@
+import type { APIRoute } from 'astro';
+import { handleScalaRequest } from '~/lib/geometry-api/scala-endpoint.server';
+
+export const prerender = false;
+
+export const POST: APIRoute = ({ request }) => handleScalaRequest(request);
