@@ -1,0 +1,31 @@
+import { defineConfig } from 'astro/config';
+import node from '@astrojs/node';
+import react from '@astrojs/react';
+import tailwind from '@astrojs/tailwind';
+
+export default defineConfig({
+  output: 'server',
+  adapter: node({ mode: 'standalone' }),
+  integrations: [react(), tailwind()],
+  server: { host: '127.0.0.1', port: 4321 },
+  // Form posts are covered by Astro; JSON and every other non-GET request are checked in
+  // src/middleware/origin.ts so one rule covers them all.
+  security: { checkOrigin: true },
+  devToolbar: { enabled: false },
+  // Astro hashes every script and style it emits into a CSP <meta>; only our own origin is
+  // allowed. frame-ancestors cannot live in a <meta>, so middleware sends it as a header too.
+  experimental: {
+    csp: {
+      directives: [
+        "default-src 'self'",
+        "img-src 'self' data: blob:",
+        "font-src 'self'",
+        "connect-src 'self'",
+        "object-src 'none'",
+        "base-uri 'self'",
+        "form-action 'self'",
+      ],
+    },
+  },
+  telemetry: false,
+});

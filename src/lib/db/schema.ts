@@ -1,0 +1,216 @@
+/**
+ * The whole database schema, one table per concern. Migrations in ./drizzle are generated from
+ * this file with `npm run db:generate` and committed; never edit a committed migration.
+ *
+ * Ids: shops and shop data use auto-increment bigint unsigned ids; users use random string ids because
+ * the session library expects them. Lengths stored here are in the design's own units.
+ */
+import { sql } from 'drizzle-orm';
+import {
+  bigint,
+  boolean,
+  char,
+  date,
+  datetime,
+  double,
+  index,
+  int,
+  json,
+  mysqlEnum,
+  mysqlTable,
+  text,
+  uniqueIndex,
+  varchar,
+} from 'drizzle-orm/mysql-core';
+
+// MariaDB rejects drizzle's `serial AUTO_INCREMENT`, so ids are spelled out.
+const idColumn = () => bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey();
+const now = () => datetime('created_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
+const shopRef = () =>
+  bigint('shop_id', { mode: 'number', unsigned: true })
+    .notNull()
+    .references(() => shops.id, { onDelete: 'cascade' });
+const userRef = (name: string) => varchar(name, { length: 40 });
+
+export const ROLES = ['owner', 'builder', 'client'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const shops = mysqlTable('shops', {
+  id: idColumn(),
+  name: varchar('name', { length: 120 }).notNull(),
+  createdAt: now(),
+});
+
+/** One user belongs to one shop with one role. E-mail is stored lower-cased and unique. */
+export const users = mysqlTable(
+  'users',
+  {
+    id: varchar('id', { length: 40 }).primaryKey(),
+    shopId: shopRef(),
+    email: varchar('email', { length: 254 }).notNull(),
+    displayName: varchar('display_name', { length: 120 }).notNull(),
+    passwordHash: varchar('password_hash', { length: 255 }).notNull(),
+    role: mysqlEnum('role', ROLES).notNull(),
+    preferredUnits: mysqlEnum('preferred_units', ['mm', 'in']).notNull().default('mm'),
+    createdAt: now(),
+  },
+  (t) => [uniqueIndex('users_email_uq').on(t.email), index('users_shop_idx').on(t.shopId)],
+);
+
+/** Sign-in sessions (the shape the session library's adapter expects). */
+export const sessions = mysqlTable(
+  'sessions',
+  {
+    id: varchar('id', { length: 255 }).primaryKey(),
+    userId: userRef('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    expiresAt: datetime('expires_at', { mode: 'date' }).notNull(),
+  },
+  (t) => [index('sessions_user_idx').on(t.userId)],
+);
+
+/** Single-use links (invitations, password resets). Only the SHA-256 of the token is stored. */
+export const oneTimeTokens = mysqlTable(
+  'one_time_tokens',
+  {
+    id: idColumn(),
+    kind: mysqlEnum('kind', ['invite', 'reset']).notNull(),
+    tokenHash: char('token_hash', { length: 64 }).notNull(),
+    shopId: shopRef(),
+    userId: userRef('user_id'),
+    email: varchar('email', { length: 254 }).notNull(),
+    role: mysqlEnum('role', ROLES),
+    createdBy: userRef('created_by'),
+    expiresAt: datetime('expires_at', { mode: 'date' }).notNull(),
+    usedAt: datetime('used_at', { mode: 'date' }),
+    revokedAt: datetime('revoked_at', { mode: 'date' }),
+    createdAt: now(),
+  },
+  (t) => [uniqueIndex('tokens_hash_uq').on(t.tokenHash), index('tokens_shop_idx').on(t.shopId, t.kind)],
+);
+
+export const DESIGN_STATUSES = ['draft', 'shared', 'approved', 'changes_requested'] as const;
+export type DesignStatus = (typeof DESIGN_STATUSES)[number];
+
+/** A saved design's head row; its geometry lives in design_revisions. */
+export const designs = mysqlTable(
+  'designs',
+  {
+    id: idColumn(),
+    shopId: shopRef(),
+    name: varchar('name', { length: 120 }).notNull(),
+    instrumentType: varchar('instrument_type', { length: 40 }).notNull().default('guitar'),
+    clientName: varchar('client_name', { length: 120 }).notNull().default(''),
+    units: mysqlEnum('units', ['mm', 'in']).notNull(),
+    /** Scale lengths copied from the current revision, in mm, so lists can sort by scale. */
+    trebleScaleMm: double('treble_scale_mm').notNull(),
+    bassScaleMm: double('bass_scale_mm').notNull(),
+    status: mysqlEnum('status', DESIGN_STATUSES).notNull().default('draft'),
+    archivedAt: datetime('archived_at', { mode: 'date', fsp: 3 }),
+    currentRevision: int('current_revision').notNull().default(1),
+    /** Optimistic concurrency: every write bumps it; a write naming an older one gets 409. */
+    version: int('version').notNull().default(1),
+    createdBy: userRef('created_by').notNull(),
+    updatedBy: userRef('updated_by').notNull(),
+    createdAt: now(),
+    updatedAt: datetime('updated_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [
+    index('designs_shop_updated_idx').on(t.shopId, t.updatedAt),
+    index('designs_shop_name_idx').on(t.shopId, t.name),
+    index('designs_shop_status_idx').on(t.shopId, t.status, t.updatedAt),
+    index('designs_shop_scale_idx').on(t.shopId, t.trebleScaleMm),
+  ],
+);
+
+/** Every geometry change is a new row; rows are never updated. */
+export const designRevisions = mysqlTable(
+  'design_revisions',
+  {
+    id: idColumn(),
+    designId: bigint('design_id', { mode: 'number', unsigned: true })
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    revision: int('revision').notNull(),
+    data: json('data').notNull(),
+    note: varchar('note', { length: 500 }).notNull().default(''),
+    authorId: userRef('author_id').notNull(),
+    createdAt: now(),
+  },
+  (t) => [uniqueIndex('revisions_design_rev_uq').on(t.designId, t.revision)],
+);
+
+/** A proof pins one revision for a client; the link token is stored only as its SHA-256. */
+export const proofs = mysqlTable(
+  'proofs',
+  {
+    id: idColumn(),
+    shopId: shopRef(),
+    designId: bigint('design_id', { mode: 'number', unsigned: true })
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    revision: int('revision').notNull(),
+    tokenHash: char('token_hash', { length: 64 }).notNull(),
+    clientName: varchar('client_name', { length: 120 }).notNull(),
+    clientEmail: varchar('client_email', { length: 254 }).notNull(),
+    message: text('message').notNull(),
+    expiresAt: datetime('expires_at', { mode: 'date' }).notNull(),
+    revokedAt: datetime('revoked_at', { mode: 'date' }),
+    createdBy: userRef('created_by').notNull(),
+    createdAt: now(),
+    decision: mysqlEnum('decision', ['approved', 'changes_requested']),
+    decidedAt: datetime('decided_at', { mode: 'date' }),
+    decidedName: varchar('decided_name', { length: 120 }),
+    decisionComment: text('decision_comment'),
+  },
+  (t) => [uniqueIndex('proofs_token_uq').on(t.tokenHash), index('proofs_design_idx').on(t.shopId, t.designId)],
+);
+
+export const TEMPLATE_CONDITIONS = ['in_use', 'worn', 'retired'] as const;
+
+/** A physical index template on the shop's shelf. */
+export const templates = mysqlTable(
+  'templates',
+  {
+    id: idColumn(),
+    shopId: shopRef(),
+    name: varchar('name', { length: 120 }).notNull(),
+    designId: bigint('design_id', { mode: 'number', unsigned: true }),
+    revision: int('revision'),
+    units: mysqlEnum('units', ['mm', 'in']).notNull(),
+    trebleScale: double('treble_scale').notNull(),
+    bassScale: double('bass_scale').notNull(),
+    frets: int('frets').notNull(),
+    slotWidth: double('slot_width').notNull(),
+    keyWidth: double('key_width').notNull(),
+    material: varchar('material', { length: 80 }).notNull().default(''),
+    storagePlace: varchar('storage_place', { length: 80 }).notNull().default(''),
+    condition: mysqlEnum('condition', TEMPLATE_CONDITIONS).notNull().default('in_use'),
+    madeOn: date('made_on', { mode: 'string' }),
+    lastCheckedOn: datetime('last_checked_on', { mode: 'date' }),
+    lastCheckPassed: boolean('last_check_passed'),
+    notes: text('notes').notNull(),
+    createdAt: now(),
+    updatedAt: datetime('updated_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [index('templates_shop_idx').on(t.shopId, t.updatedAt)],
+);
+
+/** One saved Template check: the measurements, the comparison and the verdict. */
+export const templateChecks = mysqlTable(
+  'template_checks',
+  {
+    id: idColumn(),
+    shopId: shopRef(),
+    templateId: bigint('template_id', { mode: 'number', unsigned: true })
+      .notNull()
+      .references(() => templates.id, { onDelete: 'cascade' }),
+    checkedBy: userRef('checked_by').notNull(),
+    tolerance: double('tolerance').notNull(),
+    passed: boolean('passed').notNull(),
+    result: json('result').notNull(),
+    createdAt: now(),
+  },
+  (t) => [index('checks_template_idx').on(t.shopId, t.templateId)],
+);

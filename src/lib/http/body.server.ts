@@ -1,0 +1,80 @@
+/**
+ * Reads a request body with the size limit enforced before parsing: Content-Length is checked
+ * first, then the stream is cut off as soon as it passes the limit.
+ */
+import { problem } from './problem.ts';
+
+export type BodyResult<T> = { ok: true; value: T } | { ok: false; response: Response };
+
+export interface ReadBodyOptions {
+  maxBytes: number;
+  /** Accepted media types (without parameters), e.g. ['application/json']. */
+  types: readonly string[];
+}
+
+function mediaType(request: Request): string {
+  return (request.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
+}
+
+function tooLarge(maxBytes: number): Response {
+  return problem(413, `Request body is larger than ${Math.round(maxBytes / 1024)} KiB`, { field: '(body)' });
+}
+
+/** The raw body as bytes, or a 413/415 response. */
+export async function readBytes(request: Request, options: ReadBodyOptions): Promise<BodyResult<Uint8Array>> {
+  const type = mediaType(request);
+  if (!options.types.includes(type)) {
+    return {
+      ok: false,
+      response: problem(415, `Content-Type must be ${options.types.join(' or ')}`, { field: 'content-type' }),
+    };
+  }
+  const declared = Number(request.headers.get('content-length') ?? '0');
+  if (declared > options.maxBytes) return { ok: false, response: tooLarge(options.maxBytes) };
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  if (request.body) {
+    const reader = request.body.getReader();
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      total += value.byteLength;
+      if (total > options.maxBytes) {
+        await reader.cancel();
+        return { ok: false, response: tooLarge(options.maxBytes) };
+      }
+      chunks.push(value);
+    }
+  }
+  const bytes = new Uint8Array(total);
+  let offset = 0;
+  for (const c of chunks) {
+    bytes.set(c, offset);
+    offset += c.byteLength;
+  }
+  return { ok: true, value: bytes };
+}
+
+/** The body as UTF-8 text (invalid UTF-8 is a 400). */
+export async function readText(request: Request, options: ReadBodyOptions): Promise<BodyResult<string>> {
+  const bytes = await readBytes(request, options);
+  if (!bytes.ok) return bytes;
+  try {
+    return { ok: true, value: new TextDecoder('utf-8', { fatal: true }).decode(bytes.value) };
+  } catch {
+    return { ok: false, response: problem(400, 'Body is not valid UTF-8 text', { field: '(body)' }) };
+  }
+}
+
+/** The body parsed as JSON (unknown: validate it with a zod schema next). */
+export async function readJson(request: Request, maxBytes: number): Promise<BodyResult<unknown>> {
+  const text = await readText(request, { maxBytes, types: ['application/json'] });
+  if (!text.ok) return text;
+  try {
+    return { ok: true, value: JSON.parse(text.value) as unknown };
+  } catch (e) {
+    const why = e instanceof Error ? e.message : 'parse error';
+    return { ok: false, response: problem(400, `Body is not valid JSON (${why})`, { field: '(body)' }) };
+  }
+}
+
