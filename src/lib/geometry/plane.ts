@@ -14,9 +14,13 @@ export interface Segment {
   end: Point;
 }
 
-/** The point at fraction `t` from `a` (t = 0) to `b` (t = 1). */
+/**
+ * The point at fraction `t` from `a` (t = 0) to `b` (t = 1). Weighted form: exact at both ends and
+ * symmetric, so strings placed symmetrically about the centre line get mirrored coordinates.
+ */
 export function lerpPoint(a: Point, b: Point, t: number): Point {
-  return { x: a.x + (b.x - a.x) * t, y: a.y + (b.y - a.y) * t };
+  const s = 1 - t;
+  return { x: a.x * s + b.x * t, y: a.y * s + b.y * t };
 }
 
 export function distance(a: Point, b: Point): number {

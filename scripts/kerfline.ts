@@ -1,0 +1,7 @@
+/** Command-line entry: `npm run --silent kerfline -- layout <design.json> --format csv|json`. */
+import { runKerfline } from '~/lib/cli/run-kerfline.server';
+
+process.exitCode = await runKerfline(process.argv.slice(2), {
+  stdout: (text) => process.stdout.write(text),
+  stderr: (text) => process.stderr.write(text),
+});
