@@ -1,0 +1,24 @@
+/**
+ * The role-by-route matrix: every page and API route with the status each kind of visitor gets.
+ * Each feature lists its routes in its own file here and adds it to index.ts; the matrix test
+ * (tests/integration/route-matrix.test.ts) fails when a file in src/pages has no entry.
+ */
+export type Actor = 'anonymous' | 'client' | 'builder' | 'owner' | 'otherOwner';
+
+/** Ids of the demo shop's rows, so routes with parameters can be called for real. */
+export interface MatrixIds {
+  designId: number;
+  templateId: number;
+  proofToken: string;
+}
+
+export interface RouteCase {
+  /** The file under src/pages that serves it, e.g. 'pages/api/designs/[id].ts'. */
+  file: string;
+  method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+  path: string | ((ids: MatrixIds) => string);
+  /** JSON body for non-GET requests (a valid one, so the status shows authorisation, not validation). */
+  body?: unknown | ((ids: MatrixIds) => unknown);
+  /** Expected status per actor; an array allows any of those statuses. */
+  expect: Record<Actor, number | readonly number[]>;
+}
