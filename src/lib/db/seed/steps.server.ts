@@ -1,4 +1,5 @@
 /** The ordered list of demo seed steps; each feature appends its own (idempotent) step here. */
+import { seedDemoBoards } from './demo-boards.server.ts';
 import type { SeedStep } from './demo-shop.server.ts';
 
-export const DEMO_SEED_STEPS: readonly SeedStep[] = [];
+export const DEMO_SEED_STEPS: readonly SeedStep[] = [seedDemoBoards];
