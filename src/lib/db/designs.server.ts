@@ -191,10 +191,25 @@ export async function createDesign(writer: Writer, board: NewBoard): Promise<Boa
   });
 }
 
-/** Locks the shop's head row for the rest of the transaction. */
-async function lockHead(tx: Tx, shopId: number, id: number): Promise<Head | undefined> {
-  const [head] = await tx.select().from(designs).where(and(eq(designs.id, id), eq(designs.shopId, shopId))).for('update');
-  return head;
+/** The locked head row with its current revision's design. */
+interface Locked {
+  head: Head;
+  design: unknown;
+}
+
+/** Locks the shop's head row for the rest of the transaction and reads its current design. */
+async function lockHead(tx: Tx, shopId: number, id: number): Promise<Locked | undefined> {
+  const [row] = await tx
+    .select({ head: designs, data: designRevisions.data })
+    .from(designs)
+    .innerJoin(designRevisions, and(eq(designRevisions.designId, designs.id), eq(designRevisions.revision, designs.currentRevision)))
+    .where(and(eq(designs.id, id), eq(designs.shopId, shopId)))
+    .for('update');
+  return row ? { head: row.head, design: storedJson(row.data) } : undefined;
+}
+
+function detailOf(head: Head, design: unknown): BoardDetail {
+  return { ...toSummary(head), revision: head.currentRevision, design };
 }
 
 async function appendRevision(tx: Tx, writer: Writer, head: Head, design: Design, note: string): Promise<number> {
@@ -211,23 +226,26 @@ async function writeLocked<T>(
   writer: Writer,
   id: number,
   expectedVersion: number | undefined,
-  change: (tx: Tx, head: Head) => Promise<WriteResult<T>>,
+  change: (tx: Tx, locked: Locked) => Promise<WriteResult<T>>,
 ): Promise<WriteResult<T>> {
   return db().transaction(async (tx) => {
-    const head = await lockHead(tx, writer.shopId, id);
-    if (!head) return { ok: false, reason: 'not_found' };
-    if (expectedVersion !== undefined && expectedVersion !== head.version) {
-      return { ok: false, reason: 'conflict', current: (await readDetail(tx, writer.shopId, id))! };
+    const locked = await lockHead(tx, writer.shopId, id);
+    if (!locked) return { ok: false, reason: 'not_found' };
+    if (expectedVersion !== undefined && expectedVersion !== locked.head.version) {
+      return { ok: false, reason: 'conflict', current: detailOf(locked.head, locked.design) };
     }
-    return change(tx, head);
+    return change(tx, locked);
   });
 }
 
-async function touchHead(tx: Tx, writer: Writer, head: Head, fields: Partial<typeof designs.$inferInsert>): Promise<void> {
+/** Writes `fields` to the head row with the next version; returns the row as it now is. */
+async function touchHead(tx: Tx, writer: Writer, head: Head, fields: Partial<Head>): Promise<Head> {
+  const next: Head = { ...head, ...fields, version: head.version + 1, updatedBy: writer.id, updatedAt: new Date() };
   await tx
     .update(designs)
-    .set({ ...fields, version: head.version + 1, updatedBy: writer.id, updatedAt: new Date() })
+    .set({ ...fields, version: next.version, updatedBy: next.updatedBy, updatedAt: next.updatedAt })
     .where(eq(designs.id, head.id));
+  return next;
 }
 
 export interface BoardChange {
@@ -243,41 +261,39 @@ export interface BoardChange {
  * revision becomes a new revision; an update that changes nothing writes nothing.
  */
 export function updateDesign(writer: Writer, id: number, change: BoardChange): Promise<WriteResult<BoardDetail>> {
-  return writeLocked(writer, id, change.version, async (tx, head) => {
-    const current = await readDetail(tx, writer.shopId, id);
-    const designChanged = change.design !== undefined && JSON.stringify(change.design) !== JSON.stringify(current!.design);
-    const fields: Partial<typeof designs.$inferInsert> = {};
+  return writeLocked(writer, id, change.version, async (tx, { head, design: current }) => {
+    const designChanged = change.design !== undefined && JSON.stringify(change.design) !== JSON.stringify(current);
+    const fields: Partial<Head> = {};
     if (change.instrumentType !== undefined && change.instrumentType !== head.instrumentType) fields.instrumentType = change.instrumentType;
     if (change.clientName !== undefined && change.clientName !== head.clientName) fields.clientName = change.clientName;
     if (designChanged && change.design) {
       fields.currentRevision = await appendRevision(tx, writer, head, change.design, change.note);
       Object.assign(fields, mirroredFields(change.design));
     }
-    if (Object.keys(fields).length === 0) return { ok: true, value: current! };
-    await touchHead(tx, writer, head, fields);
-    return { ok: true, value: (await readDetail(tx, writer.shopId, id))! };
+    if (Object.keys(fields).length === 0) return { ok: true, value: detailOf(head, current) };
+    const next = await touchHead(tx, writer, head, fields);
+    return { ok: true, value: detailOf(next, designChanged ? change.design : current) };
   });
 }
 
 /** Makes revision `revision` current again by copying it into a new revision. */
 export function restoreRevision(writer: Writer, id: number, revision: number, version: number): Promise<WriteResult<BoardDetail>> {
-  return writeLocked(writer, id, version, async (tx, head) => {
+  return writeLocked(writer, id, version, async (tx, { head }) => {
     const old = await readDetail(tx, writer.shopId, id, revision);
     if (!old) return { ok: false, reason: 'no_such_revision' };
     const design = old.design as Design;
     const currentRevision = await appendRevision(tx, writer, head, design, `Restored revision ${revision}`);
-    await touchHead(tx, writer, head, { currentRevision, ...mirroredFields(design) });
-    return { ok: true, value: (await readDetail(tx, writer.shopId, id))! };
+    const next = await touchHead(tx, writer, head, { currentRevision, ...mirroredFields(design) });
+    return { ok: true, value: detailOf(next, design) };
   });
 }
 
 /** Archives or unarchives a board (it keeps its status and revisions). */
 export function setArchived(writer: Writer, id: number, archived: boolean, version?: number): Promise<WriteResult<BoardDetail>> {
-  return writeLocked(writer, id, version, async (tx, head) => {
-    if (archived !== (head.archivedAt !== null)) {
-      await touchHead(tx, writer, head, { archivedAt: archived ? new Date() : null });
-    }
-    return { ok: true, value: (await readDetail(tx, writer.shopId, id))! };
+  return writeLocked(writer, id, version, async (tx, { head, design }) => {
+    if (archived === (head.archivedAt !== null)) return { ok: true, value: detailOf(head, design) };
+    const next = await touchHead(tx, writer, head, { archivedAt: archived ? new Date() : null });
+    return { ok: true, value: detailOf(next, design) };
   });
 }
 
