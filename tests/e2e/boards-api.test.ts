@@ -62,13 +62,14 @@ describe('Boards API through the built server', () => {
   });
 
   it('answers 503 when MariaDB stops during a save, and the previous revision is still current afterwards', async () => {
-    const created = (await (await api(builder, '/api/designs', { method: 'POST', body: { design: fan() } })).json()) as BoardDetail;
+    const design = { ...fan(), name: `Half-way save ${Date.now()}` };
+    const created = (await (await api(builder, '/api/designs', { method: 'POST', body: { design } })).json()) as BoardDetail;
     const blocker = await mysql.createConnection({ ...config().database });
     blocker.on('error', () => undefined);
     let status = 0;
     try {
       await holdNextRevision(blocker, created.id, 2, builder.id);
-      const save = api(builder, `/api/designs/${created.id}`, { method: 'PATCH', body: { version: 1, design: { ...fan(), perpendicularFret: 2 } } });
+      const save = api(builder, `/api/designs/${created.id}`, { method: 'PATCH', body: { version: 1, design: { ...design, perpendicularFret: 2 } } });
       await waitForLockWait();
       stopDatabase();
       status = (await save).status;
@@ -78,7 +79,7 @@ describe('Boards API through the built server', () => {
     }
     expect(status).toBe(503);
     const after = (await (await api(builder, `/api/designs/${created.id}`)).json()) as BoardDetail;
-    expect(after).toMatchObject({ version: 1, currentRevision: 1, design: fan() });
+    expect(after).toMatchObject({ version: 1, currentRevision: 1, design });
     const revisions = (await (await api(builder, `/api/designs/${created.id}/revisions`)).json()) as { items: BoardRevision[] };
     expect(revisions.items.map((r) => r.revision)).toEqual([1]);
   });

@@ -4,6 +4,7 @@ import { getDesign, updateDesign } from '~/lib/db/designs.server.ts';
 import { readJson } from '~/lib/http/body.server.ts';
 import { invalid, json, problem, zodIssues } from '~/lib/http/problem.ts';
 import { BOARD_FILE_MAX_BYTES, boardUpdateSchema } from '~/lib/schemas/board.ts';
+import type { Design } from '~/lib/schemas/design.ts';
 
 export const prerender = false;
 
@@ -33,7 +34,7 @@ export const PATCH: APIRoute = async ({ locals, params, request }) => {
   if (!body.ok) return body.response;
   const input = boardUpdateSchema.safeParse(body.value);
   if (!input.success) return invalid(zodIssues(input.error));
-  let design;
+  let design: Design | undefined;
   if (input.data.design !== undefined) {
     const checked = checkDesign(input.data.design, 'design');
     if (!checked.ok) return invalid(checked.issues);
