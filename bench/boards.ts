@@ -8,13 +8,13 @@
  * Usage: BENCH_BASE_URL=http://127.0.0.1:4321 DATABASE_URL=mysql://… tsx bench/boards.ts
  */
 import { eq } from 'drizzle-orm';
-import { newToken, sha256Hex, SESSION_COOKIE } from '../src/lib/auth/index.server.ts';
-import { closeDb, db } from '../src/lib/db/client.server.ts';
-import { newUserId } from '../src/lib/db/ids.ts';
-import { designRevisions, designs, sessions, shops, users } from '../src/lib/db/schema.ts';
-import { toMm } from '../src/lib/format/units.ts';
-import { DEMO_DESIGNS } from '../src/lib/presets/demo-designs.ts';
-import { INSTRUMENT_TYPES } from '../src/lib/schemas/board.ts';
+import { newToken, sha256Hex, SESSION_COOKIE } from '~/lib/auth/index.server.ts';
+import { closeDb, db } from '~/lib/db/client.server.ts';
+import { newUserId } from '~/lib/db/ids.ts';
+import { designRevisions, designs, sessions, shops, users } from '~/lib/db/schema.ts';
+import { toMm } from '~/lib/format/units.ts';
+import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { INSTRUMENT_TYPES } from '~/lib/schemas/board.ts';
 
 const BASE_URL = (process.env.BENCH_BASE_URL ?? process.env.APP_ORIGIN ?? 'http://127.0.0.1:4321').replace(/\/$/, '');
 const BOARDS = 1000;
