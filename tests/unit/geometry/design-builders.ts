@@ -42,3 +42,18 @@ export function fretPoint(layout: Layout, fret: number, string: number) {
   if (!point) expect.fail(`no fret ${fret} on string ${string}`);
   return point;
 }
+
+/** A valid design with one field replaced (or removed with `undefined`) at a dotted path. */
+export function withField(path: string, value: unknown): Record<string, unknown> {
+  const design = structuredClone(designInput()) as Record<string, unknown>;
+  const keys = path.split('.');
+  let target = design;
+  for (const key of keys.slice(0, -1)) {
+    target[key] ??= {};
+    target = target[key] as Record<string, unknown>;
+  }
+  const last = keys[keys.length - 1]!;
+  if (value === undefined) delete target[last];
+  else target[last] = value;
+  return design;
+}

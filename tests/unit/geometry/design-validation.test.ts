@@ -1,21 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { validateDesign } from '~/lib/schemas/design';
-import { designInput, validDesign } from './design-builders';
-
-/** A valid design with one field replaced (or removed with `undefined`) at a dotted path. */
-function withField(path: string, value: unknown): Record<string, unknown> {
-  const design = structuredClone(designInput()) as Record<string, unknown>;
-  const keys = path.split('.');
-  let target = design;
-  for (const key of keys.slice(0, -1)) {
-    target[key] ??= {};
-    target = target[key] as Record<string, unknown>;
-  }
-  const last = keys[keys.length - 1]!;
-  if (value === undefined) delete target[last];
-  else target[last] = value;
-  return design;
-}
+import { designInput, validDesign, withField } from './design-builders';
 
 function issuePaths(input: unknown): string[] {
   const validation = validateDesign(input);
