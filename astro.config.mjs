@@ -8,9 +8,9 @@ export default defineConfig({
   adapter: node({ mode: 'standalone' }),
   integrations: [react(), tailwind()],
   server: { host: '127.0.0.1', port: 4321 },
-  // Form posts are covered by Astro; JSON and every other non-GET request are checked in
-  // src/middleware/origin.ts so one rule covers them all.
-  security: { checkOrigin: true },
+  // One CSRF rule for forms, JSON and uploads alike lives in src/lib/http/same-origin.ts (used by
+  // src/middleware.ts); Astro's own check would refuse cookie-less scripts posting text/plain.
+  security: { checkOrigin: false },
   devToolbar: { enabled: false },
   // Astro hashes every script and style it emits into a CSP <meta>; only our own origin is
   // allowed. frame-ancestors cannot live in a <meta>, so middleware sends it as a header too.
