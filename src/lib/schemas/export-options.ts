@@ -39,6 +39,8 @@ function choice<T extends readonly [string, ...string[]]>(values: T) {
 
 export const exportOptionsSchema = z
   .object({
+    /** pdf = paper template, dxf/svg = slot paths, csv = fret table, json = the computed layout. */
+    format: choice(EXPORT_FORMATS).default('pdf'),
     /** Paper template sheet; `fit` is one sheet sized to the board. */
     paper: choice(PAPER_NAMES).default('letter'),
     /** `auto` picks the orientation that needs the fewest pages. */
