@@ -48,28 +48,29 @@ export default function ExportDesignPage() {
     <div className="space-y-6">
       <section className="grid gap-3 rounded border border-paper-line bg-white p-4 md:grid-cols-2">
         <div className="space-y-3">
-          <label className="flex flex-col gap-1 text-sm">
-            Demo preset
-            <select className="rounded border border-paper-line px-2 py-1" value={presetId} onChange={(e) => choosePreset(e.target.value)}>
+          <div className="flex flex-col gap-1 text-sm">
+            <label htmlFor="design-preset">Demo preset</label>
+            <select id="design-preset" className="rounded border border-paper-line px-2 py-1" value={presetId} onChange={(e) => choosePreset(e.target.value)}>
               {DEMO_DESIGNS.map((d) => (
                 <option key={d.id} value={d.id}>
                   {d.design.name}
                 </option>
               ))}
             </select>
-          </label>
-          <label className="flex flex-col gap-1 text-sm">
-            Design file (.json)
-            <input type="file" accept="application/json,.json" onChange={(e) => void loadFile(e.target.files?.[0])} />
-          </label>
+          </div>
+          <div className="flex flex-col gap-1 text-sm">
+            <label htmlFor="design-file">Design file (.json)</label>
+            <input id="design-file" type="file" accept="application/json,.json" onChange={(e) => void loadFile(e.target.files?.[0])} />
+          </div>
           <p className="text-sm text-ink-soft">
             Exporting: <span className="font-medium text-ink">{design.name}</span> ({design.strings} strings,{' '}
             {design.frets} frets, {design.units})
           </p>
         </div>
-        <label className="flex flex-col gap-1 text-sm">
-          Design as JSON
+        <div className="flex flex-col gap-1 text-sm">
+          <label htmlFor="design-json">Design as JSON</label>
           <textarea
+            id="design-json"
             className="h-48 rounded border border-paper-line p-2 font-mono text-xs"
             value={text}
             spellCheck={false}
@@ -86,7 +87,7 @@ export default function ExportDesignPage() {
               ))}
             </ul>
           )}
-        </label>
+        </div>
       </section>
       {issues.length > 0 && <p className="text-sm text-rosewood">Exports below use the last valid design until the JSON is fixed.</p>}
       <ExportPanel design={design} />

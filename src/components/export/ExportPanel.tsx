@@ -135,9 +135,9 @@ export default function ExportPanel({ design }: Props) {
       </h2>
       <fieldset className="grid gap-3 sm:grid-cols-3">
         <legend className="mb-2 font-medium">Paper template</legend>
-        <label className={field}>
-          Paper
-          <select className={input} value={form.paper} onChange={(e) => set('paper', e.target.value)} aria-invalid={errors.has('paper')}>
+        <div className={field}>
+          <label htmlFor="export-paper">Paper</label>
+          <select id="export-paper" className={input} value={form.paper} onChange={(e) => set('paper', e.target.value)} aria-invalid={errors.has('paper')}>
             {PAPER_NAMES.map((name) => (
               <option key={name} value={name}>
                 {PAPER_LABELS[name]}
@@ -145,20 +145,21 @@ export default function ExportPanel({ design }: Props) {
             ))}
           </select>
           {error('paper')}
-        </label>
-        <label className={field}>
-          Orientation
-          <select className={input} value={form.orientation} onChange={(e) => set('orientation', e.target.value)} disabled={form.paper === 'fit'}>
+        </div>
+        <div className={field}>
+          <label htmlFor="export-orientation">Orientation</label>
+          <select id="export-orientation" className={input} value={form.orientation} onChange={(e) => set('orientation', e.target.value)} disabled={form.paper === 'fit'}>
             {ORIENTATIONS.map((name) => (
               <option key={name} value={name}>
                 {ORIENTATION_LABELS[name]}
               </option>
             ))}
           </select>
-        </label>
-        <label className={field}>
-          Overlap between pages (mm)
+        </div>
+        <div className={field}>
+          <label htmlFor="export-overlap">Overlap between pages (mm)</label>
           <input
+            id="export-overlap"
             className={`${input} font-mono`}
             type="number"
             min={0}
@@ -170,7 +171,7 @@ export default function ExportPanel({ design }: Props) {
             aria-describedby={errors.has('overlap') ? 'export-overlap-error' : undefined}
           />
           {error('overlap')}
-        </label>
+        </div>
         <label className="flex items-center gap-2 text-sm">
           <input type="checkbox" checked={form.strings} onChange={(e) => set('strings', e.target.checked)} />
           Draw the strings
@@ -204,26 +205,26 @@ export default function ExportPanel({ design }: Props) {
 
       <fieldset className="grid gap-3 sm:grid-cols-2">
         <legend className="mb-2 font-medium">Slot paths (DXF, SVG)</legend>
-        <label className={field}>
-          Slots
-          <select className={input} value={form.slots} onChange={(e) => set('slots', e.target.value)}>
+        <div className={field}>
+          <label htmlFor="export-slots">Slots</label>
+          <select id="export-slots" className={input} value={form.slots} onChange={(e) => set('slots', e.target.value)}>
             {SLOT_STYLES.map((name) => (
               <option key={name} value={name}>
                 {SLOT_LABELS[name]}
               </option>
             ))}
           </select>
-        </label>
-        <label className={field}>
-          Origin
-          <select className={input} value={form.origin} onChange={(e) => set('origin', e.target.value)}>
+        </div>
+        <div className={field}>
+          <label htmlFor="export-origin">Origin</label>
+          <select id="export-origin" className={input} value={form.origin} onChange={(e) => set('origin', e.target.value)}>
             {ORIGINS.map((name) => (
               <option key={name} value={name}>
                 {ORIGIN_LABELS[name]}
               </option>
             ))}
           </select>
-        </label>
+        </div>
       </fieldset>
 
       <div className="grid gap-4 md:grid-cols-2">
