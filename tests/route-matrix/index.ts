@@ -1,4 +1,5 @@
+import { EXPORT_ROUTES } from './exports.ts';
 import type { RouteCase } from './types.ts';
 
 /** Every feature's route list; add yours here. */
-export const ROUTE_CASES: readonly RouteCase[] = [];
+export const ROUTE_CASES: readonly RouteCase[] = [...EXPORT_ROUTES];
