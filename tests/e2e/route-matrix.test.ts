@@ -7,9 +7,8 @@ import { join, relative } from 'node:path';
 import { asc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { newToken } from '~/lib/auth/index.server.ts';
-import { designs, templates, users } from '~/lib/db/schema.ts';
+import { designs, shops, templates, users } from '~/lib/db/schema.ts';
 import { DEMO_SHOP_NAME } from '~/lib/db/seed/demo-shop.server.ts';
-import { shops } from '~/lib/db/schema.ts';
 import { ROUTE_CASES } from '../route-matrix/index.ts';
 import type { Actor, MatrixIds, RouteCase } from '../route-matrix/types.ts';
 import { BASE_URL } from '../support/browser.ts';
@@ -49,7 +48,7 @@ async function send(route: RouteCase, actor: Actor): Promise<number> {
   const headers: Record<string, string> = { origin: BASE_URL };
   const cookie = await cookieFor(actor);
   if (cookie) headers.cookie = cookie;
-  let body: string | undefined;
+  let body: string | null = null;
   if (route.method !== 'GET') {
     const value: unknown = typeof route.body === 'function' ? (route.body as (i: MatrixIds) => unknown)(ids) : route.body;
     if (route.contentType) {

@@ -1,5 +1,5 @@
 /** Accounts, shops and members. POST bodies are valid, so statuses show authorisation. */
-import type { RouteCase } from './types.ts';
+import type { MatrixIds, RouteCase } from './types.ts';
 
 const everyone = (status: number) => ({ anonymous: status, client: status, builder: status, owner: status, otherOwner: status });
 const signedIn = (status: number) => ({ ...everyone(status), anonymous: 302 });
@@ -28,7 +28,7 @@ export const ACCOUNT_ROUTES: readonly RouteCase[] = [
     file: 'pages/members.astro',
     method: 'POST',
     path: '/members?action=role',
-    body: (ids) => ({ userId: ids.demoBuilderId, role: 'builder' }),
+    body: (ids: MatrixIds) => ({ userId: ids.demoBuilderId, role: 'builder' }),
     expect: { anonymous: 302, client: 403, builder: 403, owner: 303, otherOwner: 404 },
   },
   {
