@@ -8,8 +8,9 @@ export default defineConfig({
   adapter: node({ mode: 'standalone' }),
   integrations: [react(), tailwind()],
   server: { host: '127.0.0.1', port: 4321 },
-  // One CSRF rule for forms, JSON and uploads alike lives in src/lib/http/same-origin.ts (used by
-  // src/middleware.ts); Astro's own check would refuse cookie-less scripts posting text/plain.
+  // src/middleware.ts checks the Origin of every non-GET request (forms and JSON alike) against
+  // APP_ORIGIN (src/lib/http/same-origin.ts). Astro's own check is off: behind an untrusted Host
+  // header it compares against "http://localhost", and it would refuse cookie-less scripts too.
   security: { checkOrigin: false },
   devToolbar: { enabled: false },
   // Astro hashes every script and style it emits into a CSP <meta>; only our own origin is

@@ -15,9 +15,9 @@ const DB_DOWN_MESSAGE = 'The database is not answering right now; nothing was ch
 const headers = defineMiddleware(async (_context, next) => withSecurityHeaders(await next()));
 
 const sameOrigin = defineMiddleware((context, next) => {
-  const allowed = [config().appOrigin, context.url.origin];
+  // Only APP_ORIGIN: the request URL's own origin is built from an untrusted Host header.
   const hasSessionCookie = context.cookies.has(SESSION_COOKIE);
-  if (!isSameOriginRequest({ request: context.request, allowedOrigins: allowed, hasSessionCookie })) {
+  if (!isSameOriginRequest({ request: context.request, allowedOrigins: [config().appOrigin], hasSessionCookie })) {
     return problem(403, 'Cross-site request refused: the Origin header must be this site');
   }
   return next();
