@@ -1,4 +1,4 @@
-/** Boards: the page and every /api/designs route, for each kind of visitor. */
+/** Boards: every /api/designs route, for each kind of visitor (the page is in site.ts). */
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
 import type { Actor, RouteCase } from './types.ts';
 
@@ -10,7 +10,6 @@ function writers(ok: number | readonly number[], other: number | readonly number
 }
 
 export const BOARDS_ROUTES: readonly RouteCase[] = [
-  { file: 'pages/boards.astro', method: 'GET', path: '/boards', expect: { anonymous: 302, client: 403, builder: 200, owner: 200, otherOwner: 200 } },
   { file: 'pages/api/designs/index.ts', method: 'GET', path: '/api/designs?sort=scale&pageSize=10', expect: writers(200) },
   { file: 'pages/api/designs/index.ts', method: 'POST', path: '/api/designs', body: { design }, expect: writers(201) },
   { file: 'pages/api/designs/import.ts', method: 'POST', path: '/api/designs/import', body: design, expect: writers(201) },
