@@ -323,11 +323,31 @@ describe('import and export', () => {
     expect(first).toHaveLength(1 + 24 * 7);
   });
 
-  it('refuses an unknown export format with 400 naming "format"', async () => {
+  it('exports the paper template (PDF) and slot paths (DXF, SVG) of a saved revision through the export engine', async () => {
     const board = await create(builder, { design: fan() });
-    const response = await callRoute(exportRoute.GET, { path: `/api/designs/${board.id}/export?format=doc`, user: builder, params: { id: String(board.id) } });
-    expect(response.status).toBe(400);
-    expect(await response.json()).toMatchObject({ field: 'format' });
+    const download = async (query: string) => {
+      const response = await callRoute(exportRoute.GET, { path: `/api/designs/${board.id}/export?${query}`, user: builder, params: { id: String(board.id) } });
+      expect(response.status).toBe(200);
+      return { type: response.headers.get('content-type'), disposition: response.headers.get('content-disposition'), bytes: new Uint8Array(await response.arrayBuffer()) };
+    };
+    const pdf = await download('format=pdf&paper=a4&revision=1');
+    expect(pdf.type).toBe('application/pdf');
+    expect(new TextDecoder().decode(pdf.bytes.slice(0, 5))).toBe('%PDF-');
+    expect(pdf.disposition).toMatch(/paper-template\.pdf"$/);
+    const dxf = await download('format=dxf');
+    // $INSUNITS 4 = millimetres (AutoCAD DXF reference, header variables).
+    expect(new TextDecoder().decode(dxf.bytes)).toMatch(/\$INSUNITS\s+70\s+4\b/);
+    const svg = await download('format=svg&slots=outlines');
+    expect(new TextDecoder().decode(svg.bytes)).toMatch(/<svg[^>]*width="[0-9.]+mm"/);
+  });
+
+  it('refuses an unknown export format or option with 400 naming it', async () => {
+    const board = await create(builder, { design: fan() });
+    for (const [query, field] of [['format=doc', 'format'], ['format=pdf&paper=napkin', 'paper'], ['format=pdf&revision=zero', 'revision']]) {
+      const response = await callRoute(exportRoute.GET, { path: `/api/designs/${board.id}/export?${query}`, user: builder, params: { id: String(board.id) } });
+      expect(response.status).toBe(400);
+      expect(await response.json()).toMatchObject({ field });
+    }
   });
 });
 
