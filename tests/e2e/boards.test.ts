@@ -46,6 +46,7 @@ describe('Boards page in Chromium (built server)', () => {
     await page.waitForFunction(() => document.querySelectorAll('tbody tr').length === 1 && !document.querySelector('table[aria-busy="true"]'));
     await row.waitFor();
     await expect(row.getByRole('link', { name: `Open ${design.name}` }).getAttribute('href')).resolves.toBe(`/layout?design=${board.id}`);
+    await expect(row.getByRole('link', { name: `Export ${design.name} as a JSON file` }).getAttribute('href')).resolves.toBe(`/api/designs/${board.id}/export?format=json`);
     const drawing = row.getByRole('img', { name: `Drawing of ${design.name}` });
     await drawing.waitFor();
     await page.waitForFunction((img) => (img as HTMLImageElement).complete && (img as HTMLImageElement).naturalWidth > 0, await drawing.elementHandle());
@@ -85,6 +86,12 @@ describe('Boards page in Chromium (built server)', () => {
     expect(names.slice(0, 2)).toEqual(['Demo: mandolin, 13.875 in', 'Demo: tenor ukulele, 17 in, zero fret']);
     await expect(page.getByRole('row').filter({ hasText: 'Demo: mandolin' }).getByText('Ines Calloway').count()).resolves.toBe(1);
     await saveScreenshot(page, 'boards');
+
+    const uke = { ...DEMO_DESIGNS.find((d) => d.id === 'tenor-ukulele')!.design, name: `Imported uke ${Date.now()}` };
+    await page.getByLabel('Import a design (JSON file, up to 256 KiB)').setInputFiles({ name: 'uke.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(uke)) });
+    await page.getByText(`Imported as “${uke.name}”.`).waitFor();
+    await page.getByLabel('Import a design (JSON file, up to 256 KiB)').setInputFiles({ name: 'bad.json', mimeType: 'application/json', buffer: Buffer.from('{"name": "x"}') });
+    await page.getByRole('alert').filter({ hasText: 'Not imported: units' }).waitFor();
     await context.close();
   });
 });
