@@ -10,7 +10,7 @@ export default defineConfig({
   server: { host: '127.0.0.1', port: 4321 },
   // src/middleware.ts checks the Origin of every non-GET request (forms and JSON alike) against
   // APP_ORIGIN (src/lib/http/same-origin.ts). Astro's own check is off: behind an untrusted Host
-  // header it compares against "http://localhost", and it would refuse cookie-less scripts too.
+  // header it compares against "http://localhost".
   security: { checkOrigin: false },
   devToolbar: { enabled: false },
   // Astro hashes every script and style it emits into a CSP <meta>; only our own origin is
