@@ -47,7 +47,7 @@ node_modules/.bin/tsx scripts/db/setup.ts --seed
 build_if_changed
 
 node_modules/.bin/tsx scripts/mail/fake-smtp.ts & pids+=($!)
-node dist/server/entry.mjs >/dev/null & server=$!; pids+=("$server")
+start_app_server >/dev/null & server=$!; pids+=("$server")
 wait_http "http://127.0.0.1:$PORT/api/version" 30 || fail "the web server did not answer on 127.0.0.1:$PORT within 30 s"
 
 node_modules/.bin/tsx scripts/print-welcome.ts

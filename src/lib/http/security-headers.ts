@@ -1,12 +1,11 @@
-/** Headers every response carries (the CSP itself comes from Astro's hashed <meta>). */
-export const SECURITY_HEADERS: Readonly<Record<string, string>> = {
-  'x-content-type-options': 'nosniff',
-  'referrer-policy': 'same-origin',
-  'x-frame-options': 'DENY',
-  'content-security-policy': "frame-ancestors 'none'; object-src 'none'; base-uri 'self'",
-  'cross-origin-opener-policy': 'same-origin',
-  'permissions-policy': 'camera=(), microphone=(), geolocation=()',
-};
+/**
+ * Headers every response carries (the page CSP itself comes from Astro's hashed <meta>). The
+ * values live in JSON so scripts/serve-built-app.mjs can put them on the static files the
+ * adapter serves before this middleware runs.
+ */
+import headers from './security-headers.json';
+
+export const SECURITY_HEADERS: Readonly<Record<string, string>> = headers;
 
 export function withSecurityHeaders(response: Response): Response {
   for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
