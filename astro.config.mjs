@@ -9,11 +9,15 @@ export default defineConfig({
   integrations: [react(), tailwind()],
   server: { host: '127.0.0.1', port: 4321 },
   // Form posts are covered by Astro; JSON and every other non-GET request are checked in
-  // src/middleware/origin.ts so one rule covers them all.
+  // src/middleware.ts (src/lib/http/same-origin.ts) so one rule covers them all.
   security: { checkOrigin: true },
   devToolbar: { enabled: false },
-  // Astro hashes every script and style it emits into a CSP <meta>; only our own origin is
-  // allowed. frame-ancestors cannot live in a <meta>, so middleware sends it as a header too.
+  // Vite inlines small assets (some font subsets) as data: URLs, which font-src 'self' blocks;
+  // emitting every asset as a file keeps the policy strict.
+  vite: { build: { assetsInlineLimit: 0 } },
+  // Astro hashes every script and style it emits into the page's CSP (a response header for
+  // on-demand pages); only our own origin is allowed. Astro does not emit frame-ancestors, so
+  // middleware merges it into that header (src/lib/http/security-headers.ts).
   experimental: {
     csp: {
       directives: [
