@@ -10,6 +10,7 @@ source scripts/lib/build.sh
 
 ensure_node_modules
 ensure_mariadb
+ensure_mariadb_dump
 ensure_chromium
 ensure_poppler
 
