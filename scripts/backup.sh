@@ -11,8 +11,8 @@ source scripts/lib/local-db-env.sh
 
 ensure_mariadb
 ensure_mariadb_dump
-node_modules/.bin/tsx scripts/db/database-url.ts || exit 1
-eval "$(node_modules/.bin/tsx scripts/db/database-url.ts --shell)"
+db_vars=$(node_modules/.bin/tsx scripts/db/database-url.ts --shell) || exit 1
+eval "$db_vars"
 dir=${BACKUP_DIR:-backups}
 mkdir -p "$dir"
 

@@ -23,8 +23,8 @@ head -c 4096 "$file" | grep -Eq '^-- (MariaDB|MySQL) dump' || fail "$file does n
 tail -n 1 "$file" | grep -q '^-- Dump completed' || fail "$file is incomplete (it does not end with mariadb-dump's completion line)"
 
 ensure_mariadb
-node_modules/.bin/tsx scripts/db/database-url.ts || exit 1
-eval "$(node_modules/.bin/tsx scripts/db/database-url.ts --shell)"
+db_vars=$(node_modules/.bin/tsx scripts/db/database-url.ts --shell) || exit 1
+eval "$db_vars"
 
 if bash scripts/db/mariadb.sh status >/dev/null 2>&1; then
   fail "MariaDB is running on $DB_DATA_DIR; stop the app (npm start) first, then restore into an empty data directory"

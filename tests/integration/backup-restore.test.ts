@@ -13,6 +13,9 @@ import { parseDatabaseUrl } from '~/lib/config/database-url.ts';
 import { freePort } from '../support/free-port.ts';
 import { closeDb, getPool } from '../support/test-db.ts';
 
+/** Each case starts or initialises a MariaDB; a busy machine needs more than the default 30 s. */
+const SLOW_MS = 90_000;
+
 const work = mkdtempSync(join(tmpdir(), 'kerfline-restore-'));
 const source = parseDatabaseUrl(process.env.DATABASE_URL);
 if (!source.ok) throw new Error(source.message);
@@ -57,14 +60,14 @@ beforeAll(async () => {
   const backup = run('scripts/backup.sh', [], { ...process.env, BACKUP_DIR: join(work, 'backups') });
   expect(backup.code, backup.stderr).toBe(0);
   backupFile = backup.stdout.trim().split('\n').at(-1) ?? '';
-});
+}, SLOW_MS);
 
 afterAll(async () => {
   await restored?.end();
   if (restoredEnv) run('scripts/db/mariadb.sh', ['stop'], restoredEnv);
   await closeDb();
   rmSync(work, { recursive: true, force: true });
-});
+}, SLOW_MS);
 
 describe('npm run backup, then npm run restore into an empty data directory', () => {
   it('writes a timestamped dump file and prints its path', () => {
@@ -92,7 +95,7 @@ describe('npm run backup, then npm run restore into an empty data directory', ()
     expect(nonEmpty).toEqual(expect.arrayContaining(['users', 'shops']));
     const [owners] = await restored.query<mysql.RowDataPacket[]>('SELECT role FROM users WHERE email = ?', ['owner@wrenfield.example']);
     expect(owners.map((r) => r.role)).toEqual(['owner']);
-  });
+  }, SLOW_MS);
 
   it('refuses a data directory that is not empty, and leaves it as it was', async () => {
     await restored?.end();
@@ -103,7 +106,7 @@ describe('npm run backup, then npm run restore into an empty data directory', ()
     expect(again.stderr).toMatch(/is not empty.*--force/);
     expect(existsSync(join(work, 'restored', 'mysql'))).toBe(true);
     expect(readdirSync(work).filter((f) => f.includes('before-restore'))).toEqual([]);
-  });
+  }, SLOW_MS);
 
   it('with --force moves the old data directory aside (kept) and restores into a new one', () => {
     const forced = run('scripts/restore.sh', [backupFile, '--force'], restoredEnv);
@@ -112,7 +115,7 @@ describe('npm run backup, then npm run restore into an empty data directory', ()
     expect(aside).toHaveLength(1);
     expect(existsSync(join(work, aside[0]!, 'mysql'))).toBe(true);
     expect(existsSync(join(work, 'restored', 'mysql'))).toBe(true);
-  });
+  }, SLOW_MS);
 
   it('refuses a file that is not a dump, naming the problem', () => {
     const bad = run('scripts/restore.sh', ['package.json'], { ...restoredEnv, DB_DATA_DIR: join(work, 'never-made') });
