@@ -4,6 +4,7 @@
  * recorded answer.
  */
 import { useState, type SubmitEvent } from 'react';
+import { useHydrated } from '~/components/ui/use-hydrated';
 import { PROOF_LIMITS } from '~/lib/schemas/proof';
 
 interface Props {
@@ -39,6 +40,7 @@ const inputClass = 'mt-1 block w-full rounded border border-paper-line bg-white 
 const buttonClass = 'rounded px-3 py-1.5 font-semibold text-white disabled:opacity-50';
 
 export default function ProofDecision({ action }: Props) {
+  const hydrated = useHydrated();
   const [busy, setBusy] = useState(false);
   const [approveFailure, setApproveFailure] = useState<Failure | null>(null);
   const [changesFailure, setChangesFailure] = useState<Failure | null>(null);
@@ -69,45 +71,49 @@ export default function ProofDecision({ action }: Props) {
           className="space-y-3 rounded border border-paper-line bg-white p-3"
           onSubmit={(e) => submit(e, { decision: 'approved', name: approveName, confirmed }, setApproveFailure)}
         >
-          <h3 className="font-semibold">Approve</h3>
-          <label className="block">
-            Your name
-            <input className={inputClass} required maxLength={PROOF_LIMITS.nameMaxChars} value={approveName}
-              onChange={(e) => setApproveName(e.target.value)} autoComplete="name" />
-          </label>
-          <FieldError failure={approveFailure} field="name" />
-          <label className="flex items-start gap-2">
-            <input type="checkbox" required className="mt-1" checked={confirmed} onChange={(e) => setConfirmed(e.target.checked)} />
-            <span>I have checked this layout and approve it; the shop may cut the fret slots to it.</span>
-          </label>
-          <FieldError failure={approveFailure} field="confirmed" />
-          {approveFailure && !['name', 'confirmed'].includes(approveFailure.field ?? '') && (
-            <p className="text-sm text-rosewood" role="alert">{approveFailure.message}</p>
-          )}
-          <button className={`${buttonClass} bg-spruce`} disabled={busy}>Approve</button>
+          <fieldset className="space-y-3" disabled={!hydrated || busy}>
+            <legend className="font-semibold">Approve</legend>
+            <label className="block">
+              Your name
+              <input className={inputClass} required maxLength={PROOF_LIMITS.nameMaxChars} value={approveName}
+                onChange={(e) => setApproveName(e.target.value)} autoComplete="name" />
+            </label>
+            <FieldError failure={approveFailure} field="name" />
+            <label className="flex items-start gap-2">
+              <input type="checkbox" required className="mt-1" checked={confirmed} onChange={(e) => setConfirmed(e.target.checked)} />
+              <span>I have checked this layout and approve it; the shop may cut the fret slots to it.</span>
+            </label>
+            <FieldError failure={approveFailure} field="confirmed" />
+            {approveFailure && !['name', 'confirmed'].includes(approveFailure.field ?? '') && (
+              <p className="text-sm text-rosewood" role="alert">{approveFailure.message}</p>
+            )}
+            <button className={`${buttonClass} bg-spruce`}>Approve</button>
+          </fieldset>
         </form>
         <form
           aria-label="Request changes"
           className="space-y-3 rounded border border-paper-line bg-white p-3"
           onSubmit={(e) => submit(e, { decision: 'changes_requested', name: changesName, comment }, setChangesFailure)}
         >
-          <h3 className="font-semibold">Request changes</h3>
-          <label className="block">
-            Your name
-            <input className={inputClass} required maxLength={PROOF_LIMITS.nameMaxChars} value={changesName}
-              onChange={(e) => setChangesName(e.target.value)} autoComplete="name" />
-          </label>
-          <FieldError failure={changesFailure} field="name" />
-          <label className="block">
-            What should change? (up to {PROOF_LIMITS.commentMaxChars} characters)
-            <textarea className={inputClass} rows={4} required maxLength={PROOF_LIMITS.commentMaxChars} value={comment}
-              onChange={(e) => setComment(e.target.value)} />
-          </label>
-          <FieldError failure={changesFailure} field="comment" />
-          {changesFailure && !['name', 'comment'].includes(changesFailure.field ?? '') && (
-            <p className="text-sm text-rosewood" role="alert">{changesFailure.message}</p>
-          )}
-          <button className={`${buttonClass} bg-rosewood`} disabled={busy}>Request changes</button>
+          <fieldset className="space-y-3" disabled={!hydrated || busy}>
+            <legend className="font-semibold">Request changes</legend>
+            <label className="block">
+              Your name
+              <input className={inputClass} required maxLength={PROOF_LIMITS.nameMaxChars} value={changesName}
+                onChange={(e) => setChangesName(e.target.value)} autoComplete="name" />
+            </label>
+            <FieldError failure={changesFailure} field="name" />
+            <label className="block">
+              What should change? (up to {PROOF_LIMITS.commentMaxChars} characters)
+              <textarea className={inputClass} rows={4} required maxLength={PROOF_LIMITS.commentMaxChars} value={comment}
+                onChange={(e) => setComment(e.target.value)} />
+            </label>
+            <FieldError failure={changesFailure} field="comment" />
+            {changesFailure && !['name', 'comment'].includes(changesFailure.field ?? '') && (
+              <p className="text-sm text-rosewood" role="alert">{changesFailure.message}</p>
+            )}
+            <button className={`${buttonClass} bg-rosewood`}>Request changes</button>
+          </fieldset>
         </form>
       </div>
     </section>

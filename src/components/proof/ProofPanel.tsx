@@ -3,6 +3,7 @@
  * (the link is shown once, to copy), see every proof with its state and answer, revoke a link.
  */
 import { useCallback, useEffect, useState, type SubmitEvent } from 'react';
+import { useHydrated } from '~/components/ui/use-hydrated';
 import { PROOF_LIMITS, PROOF_STATE_LABELS, type CreatedProof, type ProofSummary } from '~/lib/schemas/proof';
 
 interface Props {
@@ -57,8 +58,8 @@ function ProofRow({ proof, onRevoke }: { proof: ProofSummary; onRevoke: (id: num
     <tr className="border-t border-paper-line align-top" data-proof-id={proof.id}>
       <td className="px-2 py-1">{proof.clientName}<br /><span className="text-xs text-ink-soft">{proof.clientEmail}</span></td>
       <td className="px-2 py-1 font-mono">{proof.revision}</td>
-      <td className="px-2 py-1 font-mono">{day(proof.createdAt)}</td>
-      <td className="px-2 py-1 font-mono">{day(proof.expiresAt)}</td>
+      <td className="whitespace-nowrap px-2 py-1 font-mono">{day(proof.createdAt)}</td>
+      <td className="whitespace-nowrap px-2 py-1 font-mono">{day(proof.expiresAt)}</td>
       <td className="px-2 py-1" data-label="state">{PROOF_STATE_LABELS[proof.state]}</td>
       <td className="px-2 py-1">
         {proof.decision ? (
@@ -84,6 +85,7 @@ function ProofRow({ proof, onRevoke }: { proof: ProofSummary; onRevoke: (id: num
 }
 
 export default function ProofPanel({ designId }: Props) {
+  const hydrated = useHydrated();
   const [proofs, setProofs] = useState<ProofSummary[] | null>(null);
   const [listFailure, setListFailure] = useState<Failure | null>(null);
   const [formFailure, setFormFailure] = useState<Failure | null>(null);
@@ -140,36 +142,38 @@ export default function ProofPanel({ designId }: Props) {
   return (
     <section aria-labelledby="proofs-heading" className="space-y-4">
       <h2 id="proofs-heading" className="text-lg font-semibold">Proofs</h2>
-      <form onSubmit={create} aria-label="Send a proof" className="grid gap-3 rounded border border-paper-line bg-white p-3 md:grid-cols-2">
-        <label className="block">
-          Client name
-          <input className={inputClass} required maxLength={PROOF_LIMITS.nameMaxChars} value={clientName} onChange={(e) => setClientName(e.target.value)} />
-          <FieldError failure={formFailure} field="clientName" />
-        </label>
-        <label className="block">
-          Client e-mail
-          <input type="email" className={inputClass} required maxLength={PROOF_LIMITS.emailMaxChars} value={clientEmail} onChange={(e) => setClientEmail(e.target.value)} />
-          <FieldError failure={formFailure} field="clientEmail" />
-        </label>
-        <label className="block md:col-span-2">
-          Message to the client (optional)
-          <textarea className={inputClass} rows={3} maxLength={PROOF_LIMITS.messageMaxChars} value={message} onChange={(e) => setMessage(e.target.value)} />
-          <FieldError failure={formFailure} field="message" />
-        </label>
-        <label className="block">
-          Link expires after (days)
-          <input type="number" className={`${inputClass} font-mono`} required min={PROOF_LIMITS.minExpiryDays} max={PROOF_LIMITS.maxExpiryDays} step={1}
-            value={expiresInDays} onChange={(e) => setExpiresInDays(e.target.value)} />
-          <FieldError failure={formFailure} field="expiresInDays" />
-        </label>
-        <div className="flex items-end">
-          <button className="rounded bg-spruce px-3 py-1.5 font-semibold text-white disabled:opacity-50" disabled={busy}>
-            Send proof of the current revision
-          </button>
-        </div>
-        {formFailure && !knownFields.includes(formFailure.field ?? '') && (
-          <p className="text-sm text-rosewood md:col-span-2" role="alert">{formFailure.message}</p>
-        )}
+      <form onSubmit={create} aria-label="Send a proof" className="rounded border border-paper-line bg-white p-3">
+        <fieldset className="grid gap-3 md:grid-cols-2" disabled={!hydrated || busy}>
+          <label className="block">
+            Client name
+            <input className={inputClass} required maxLength={PROOF_LIMITS.nameMaxChars} value={clientName} onChange={(e) => setClientName(e.target.value)} />
+            <FieldError failure={formFailure} field="clientName" />
+          </label>
+          <label className="block">
+            Client e-mail
+            <input type="email" className={inputClass} required maxLength={PROOF_LIMITS.emailMaxChars} value={clientEmail} onChange={(e) => setClientEmail(e.target.value)} />
+            <FieldError failure={formFailure} field="clientEmail" />
+          </label>
+          <label className="block md:col-span-2">
+            Message to the client (optional)
+            <textarea className={inputClass} rows={3} maxLength={PROOF_LIMITS.messageMaxChars} value={message} onChange={(e) => setMessage(e.target.value)} />
+            <FieldError failure={formFailure} field="message" />
+          </label>
+          <label className="block">
+            Link expires after (days)
+            <input type="number" className={`${inputClass} font-mono`} required min={PROOF_LIMITS.minExpiryDays} max={PROOF_LIMITS.maxExpiryDays} step={1}
+              value={expiresInDays} onChange={(e) => setExpiresInDays(e.target.value)} />
+            <FieldError failure={formFailure} field="expiresInDays" />
+          </label>
+          <div className="flex items-end">
+            <button className="rounded bg-spruce px-3 py-1.5 font-semibold text-white disabled:opacity-50">
+              Send proof of the current revision
+            </button>
+          </div>
+          {formFailure && !knownFields.includes(formFailure.field ?? '') && (
+            <p className="text-sm text-rosewood md:col-span-2" role="alert">{formFailure.message}</p>
+          )}
+        </fieldset>
       </form>
       {created && <CreatedLink created={created} />}
       {listFailure && <p className="text-sm text-rosewood" role="alert">{listFailure.message}</p>}
