@@ -1,5 +1,10 @@
 /** The ordered list of demo seed steps; each feature appends its own (idempotent) step here. */
 import { seedDemoBoards } from './demo-boards.server.ts';
+import { seedDemoProof } from './demo-proof.server.ts';
 import type { SeedStep } from './demo-shop.server.ts';
 
-export const DEMO_SEED_STEPS: readonly SeedStep[] = [seedDemoBoards];
+export const DEMO_SEED_STEPS: readonly SeedStep[] = [
+  seedDemoBoards,
+  // Shares the demo seven-string design: keep it after the step that seeds the designs.
+  seedDemoProof,
+];
