@@ -37,8 +37,6 @@ describe('Boards page in Chromium (built server)', () => {
     await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/boards`);
-    // Astro drops the island's `ssr` attribute once React has hydrated it.
-    await page.locator('astro-island:not([ssr])').waitFor({ state: 'attached' });
     await page.getByLabel('Search name or client').fill(design.name);
     const row = page.getByRole('row').filter({ has: page.getByRole('link', { name: design.name, exact: true }) });
     // The search goes into the URL after a short pause in typing, then the list is fetched again.

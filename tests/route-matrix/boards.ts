@@ -2,7 +2,8 @@
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
 import type { Actor, RouteCase } from './types.ts';
 
-const design = DEMO_DESIGNS[0]!.design;
+/** A name of its own, so boards the matrix saves are not mistaken for the seeded ones. */
+const design = { ...DEMO_DESIGNS[0]!.design, name: 'Route matrix board' };
 
 /** Owners and builders of the board's shop get `ok`; another shop's owner gets `other`. */
 function writers(ok: number | readonly number[], other: number | readonly number[] = ok): Record<Actor, number | readonly number[]> {

@@ -1,4 +1,5 @@
 import { useEffect, useState } from 'react';
+import { useHydrated } from '~/components/ui/use-hydrated';
 import { BOARD_SORTS, BOARD_STATUS_FILTERS, INSTRUMENT_TYPES, type BoardListQuery } from '~/lib/schemas/board.ts';
 import { INSTRUMENT_LABELS, SORT_LABELS, STATUS_LABELS } from './board-labels.ts';
 
@@ -12,6 +13,7 @@ const control = 'rounded border border-paper-line bg-white px-2 py-1 text-sm';
 
 /** Search box and filter selects above the Boards table; every change goes back to page 1. */
 export function BoardFilters({ query, onChange }: Props) {
+  const hydrated = useHydrated();
   const [search, setSearch] = useState(query.q);
   useEffect(() => setSearch(query.q), [query.q]);
   useEffect(() => {
@@ -21,7 +23,9 @@ export function BoardFilters({ query, onChange }: Props) {
   }, [search, query.q, onChange]);
 
   return (
-    <form className="flex flex-wrap items-end gap-3" role="search" onSubmit={(e) => { e.preventDefault(); onChange({ q: search, page: 1 }); }}>
+    <form role="search" onSubmit={(e) => { e.preventDefault(); onChange({ q: search, page: 1 }); }}>
+      {/* Disabled until hydrated, so nothing typed before React listens is lost. */}
+      <fieldset className="flex flex-wrap items-end gap-3" disabled={!hydrated}>
       <label className="flex flex-col text-sm">
         Search name or client
         <input type="search" className={`${control} w-64`} value={search} onChange={(e) => setSearch(e.target.value)} />
@@ -53,6 +57,7 @@ export function BoardFilters({ query, onChange }: Props) {
           {BOARD_SORTS.map((s) => <option key={s} value={s}>{SORT_LABELS[s]}</option>)}
         </select>
       </label>
+      </fieldset>
     </form>
   );
 }

@@ -1,10 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRef } from 'react';
+import { useHydrated } from '~/components/ui/use-hydrated';
 import { BOARD_FILE_MAX_BYTES } from '~/lib/schemas/board.ts';
 import { importBoardFile } from './board-requests.ts';
 
 /** "Import a design (JSON file)": uploads the chosen file as a new board; errors show beside it. */
 export function ImportBoardButton() {
+  const hydrated = useHydrated();
   const input = useRef<HTMLInputElement>(null);
   const client = useQueryClient();
   const upload = useMutation({
@@ -25,7 +27,7 @@ export function ImportBoardButton() {
           ref={input}
           type="file"
           accept="application/json,.json"
-          disabled={upload.isPending}
+          disabled={!hydrated || upload.isPending}
           onChange={(e) => {
             const file = e.target.files?.[0];
             if (file) upload.mutate(file);
