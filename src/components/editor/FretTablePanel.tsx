@@ -1,6 +1,8 @@
 /**
  * The Fret table: the same rows and numbers as the CSV (src/lib/export/csv.ts), shown rounded to
- * 0.01 mm / 0.001 in, sortable by any column, with copy and download of the unrounded CSV.
+ * 0.01 mm / 0.001 in, sortable by any column. Copy and download carry the unrounded CSV from
+ * the server (POST /api/layout?format=csv), the authority for exported numbers: the browser's
+ * Math functions may differ from the server's in the last bit.
  */
 import {
   createColumnHelper,
@@ -12,13 +14,14 @@ import {
 } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import { formatLength } from '~/lib/format/units';
-import { fretTableCsv, fretTableRows, type FretTableRow } from '~/lib/export/csv';
+import { fretTableRows, type FretTableRow } from '~/lib/export/csv';
 import type { Layout } from '~/lib/geometry/layout';
+import type { Design } from '~/lib/schemas/design';
 import { BUTTON } from './control-styles';
 
 const column = createColumnHelper<FretTableRow>();
 
-export function FretTablePanel({ layout }: { layout: Layout }) {
+export function FretTablePanel({ layout, design }: { layout: Layout; design: Design }) {
   const units = layout.units;
   const [sorting, setSorting] = useState<SortingState>([]);
   const [notice, setNotice] = useState('');
@@ -44,30 +47,39 @@ export function FretTablePanel({ layout }: { layout: Layout }) {
     getSortedRowModel: getSortedRowModel(),
   });
 
-  const csv = () => fretTableCsv(layout);
-  const copy = async () => {
+  const [busy, setBusy] = useState(false);
+  const withServerCsv = async (use: (csv: string) => Promise<string>) => {
+    setBusy(true);
+    setNotice('Preparing the CSV…');
     try {
-      await navigator.clipboard.writeText(csv());
-      setNotice('Fret table copied as CSV.');
-    } catch {
-      setNotice('This browser did not allow copying; use Download CSV instead.');
+      setNotice(await use(await serverCsv(design)));
+    } catch (error) {
+      setNotice(`No CSV: ${error instanceof Error ? error.message : String(error)}`);
+    } finally {
+      setBusy(false);
     }
   };
-  const download = () => {
-    const url = URL.createObjectURL(new Blob([csv()], { type: 'text/csv;charset=utf-8' }));
-    const link = document.createElement('a');
-    link.href = url;
-    link.download = `${fileNameOf(layout.name)}-fret-table.csv`;
-    link.click();
-    setTimeout(() => URL.revokeObjectURL(url), 0);
-    setNotice('Fret table downloaded as CSV.');
-  };
+  const copy = () =>
+    withServerCsv(async (csv) => {
+      await navigator.clipboard.writeText(csv);
+      return 'Fret table copied as CSV.';
+    });
+  const download = () =>
+    withServerCsv(async (csv) => {
+      const url = URL.createObjectURL(new Blob([csv], { type: 'text/csv;charset=utf-8' }));
+      const link = document.createElement('a');
+      link.href = url;
+      link.download = `${fileNameOf(design.name)}-fret-table.csv`;
+      link.click();
+      setTimeout(() => URL.revokeObjectURL(url), 0);
+      return 'Fret table downloaded as CSV.';
+    });
 
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap items-center gap-2">
-        <button type="button" className={BUTTON} onClick={copy}>Copy CSV</button>
-        <button type="button" className={BUTTON} onClick={download}>Download CSV</button>
+        <button type="button" className={BUTTON} onClick={copy} disabled={busy}>Copy CSV</button>
+        <button type="button" className={BUTTON} onClick={download} disabled={busy}>Download CSV</button>
         <span className="text-xs text-ink-soft" role="status">{notice}</span>
       </div>
       <p className="text-xs text-ink-soft">
@@ -113,6 +125,16 @@ export function FretTablePanel({ layout }: { layout: Layout }) {
       </div>
     </div>
   );
+}
+
+async function serverCsv(design: Design): Promise<string> {
+  const response = await fetch('/api/layout?format=csv', {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', accept: 'text/csv' },
+    body: JSON.stringify(design),
+  });
+  if (!response.ok) throw new Error(`the server answered ${response.status}`);
+  return response.text();
 }
 
 /** A safe file name from the design's name. */

@@ -28,7 +28,7 @@ export interface LayoutEditorProps {
   /** 'edit' (default) shows the form; 'view' is read-only: drawing, readouts and fret table. */
   mode?: 'edit' | 'view';
   /** The design to open; without it the editor opens the kept design, or the blank preset. */
-  initialDesign?: Design;
+  initialDesign?: Design | undefined;
   /** Where the design is kept in edit mode; the scratch design in this browser by default. */
   storage?: DesignStorage;
 }
@@ -171,7 +171,7 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
             </div>
             <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`}>
               {tab === 'table' || !editing ? (
-                <FretTablePanel layout={settledLayout} />
+                <FretTablePanel layout={settledLayout} design={design} />
               ) : (
                 // Mount point for the exports work: src/components/export/ExportPanel.tsx,
                 // rendered here as <ExportPanel design={design} />.
