@@ -168,6 +168,24 @@ describe('Layout editor in Chromium (built server)', () => {
     await page.getByText('Measured distance 648.00 mm').waitFor();
   });
 
+  it('draws 1:1 on screen from the screen calibration kept in local storage', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await page.goto(`${BASE_URL}/layout?preset=classical-650`, { waitUntil: 'networkidle' });
+    await page.getByRole('button', { name: 'Screen calibration' }).click();
+    await page.getByLabel('Measured length of the bar (mm)').fill('5');
+    await page.getByRole('button', { name: 'Save calibration' }).click();
+    await page.getByText('Enter a length from 20 to 500 mm.').waitFor();
+    await page.getByLabel('Measured length of the bar (mm)').fill('80');
+    await page.getByRole('button', { name: 'Save calibration' }).click();
+    await page.getByRole('button', { name: '1:1 on screen' }).click();
+    // The bar is 100 mm at the CSS reference of 96 px per inch; seen as 80 mm, 1 mm takes 100/80 as many px.
+    const expected = (96 / 25.4) * (100 / 80);
+    expectNear((await readScene(page)).zoom, expected, 1e-9);
+    await page.reload({ waitUntil: 'networkidle' });
+    await page.getByRole('button', { name: '1:1 on screen' }).click();
+    expectNear((await readScene(page)).zoom, expected, 1e-9);
+  });
+
   it('view mode shows the drawing, navigation, readouts and fret table without the form', async () => {
     const page = await browser.newPage({ viewport: { width: 1200, height: 900 } });
     await page.goto(`${BASE_URL}/layout?preset=seven-string-fan&mode=view`, { waitUntil: 'networkidle' });
@@ -180,6 +198,36 @@ describe('Layout editor in Chromium (built server)', () => {
     expectNear((await readScene(page)).zoom / before.zoom, 1.25, 1e-9);
     await page.getByRole('button', { name: 'Fit board' }).click();
     expectNear((await readScene(page)).zoom, before.zoom, 1e-9);
+    // The wheel zooms about the pointer: the board point under it stays under it (within 1e-6 mm).
+    // Mouse events carry whole CSS pixels, so the pointer goes to a whole pixel.
+    const near = await pagePointOf(page, 300, 10);
+    const pointer = { x: Math.round(near.x), y: Math.round(near.y) };
+    const boardUnderPointer = () =>
+      page.evaluate(([px, py]) => {
+        type View = { getAbsoluteTransform(): { copy(): { invert(): { point(p: { x: number; y: number }): { x: number; y: number } } } } };
+        const stage = (window as unknown as { Konva: { stages: { find(s: string): View[]; container(): HTMLElement }[] } }).Konva.stages[0];
+        const view = stage?.find('.board-view')[0];
+        if (!stage || !view) throw new Error('no drawing');
+        const box = stage.container().getBoundingClientRect();
+        return view.getAbsoluteTransform().copy().invert().point({ x: px - box.left, y: py - box.top });
+      }, [pointer.x, pointer.y] as const);
+    const beforeWheel = await boardUnderPointer();
+    await page.mouse.move(pointer.x, pointer.y);
+    await page.mouse.wheel(0, -240);
+    await page.waitForFunction((zoom) => {
+      type Stage = { find(s: string): { getAttr(n: string): unknown }[] };
+      const stage = (window as unknown as { Konva: { stages: Stage[] } }).Konva.stages[0];
+      return Number(stage?.find('.board-view')[0]?.getAttr('scaleX')) > zoom * 1.2;
+    }, before.zoom);
+    const afterWheel = await boardUnderPointer();
+    expectNear(afterWheel.x, beforeWheel.x, 1e-6);
+    expectNear(afterWheel.y, beforeWheel.y, 1e-6);
+    // Arrow keys pan the view by a fixed screen step.
+    await page.getByRole('button', { name: 'Fit board' }).click();
+    const fittedAt = await pagePointOf(page, 0, 0);
+    await page.getByRole('img', { name: /Drawing of the board/ }).focus();
+    await page.keyboard.press('ArrowLeft');
+    expectNear((await pagePointOf(page, 0, 0)).x - fittedAt.x, 40, 1e-9);
     const five = before.frets.find((f) => f.fret === 5)?.points ?? [];
     const at = await pagePointOf(page, ((five[0] ?? 0) + (five[2] ?? 0)) / 2, ((five[1] ?? 0) + (five[3] ?? 0)) / 2);
     await page.mouse.move(at.x, at.y);

@@ -115,18 +115,14 @@ export function BoardDrawing(props: BoardDrawingProps) {
     if (!element) return;
     const onWheel = (event: WheelEvent) => {
       event.preventDefault();
-      const rect = element.getBoundingClientRect();
-      const anchor = { x: event.clientX - rect.left, y: event.clientY - rect.top };
+      const anchor = stagePoint(element, event);
       setView((current) => current && zoomBy(current, Math.exp(-event.deltaY * WHEEL_ZOOM_PER_PX), anchor, units));
     };
     element.addEventListener('wheel', onWheel, { passive: false });
     return () => element.removeEventListener('wheel', onWheel);
   }, [units]);
 
-  const pointerAt = (event: PointerEvent<HTMLDivElement>): ScreenPoint => {
-    const rect = event.currentTarget.getBoundingClientRect();
-    return { x: event.clientX - rect.left, y: event.clientY - rect.top };
-  };
+  const pointerAt = (event: PointerEvent<HTMLDivElement>): ScreenPoint => stagePoint(event.currentTarget, event);
 
   const onPointerDown = (event: PointerEvent<HTMLDivElement>) => {
     const at = pointerAt(event);
@@ -269,6 +265,12 @@ export function BoardDrawing(props: BoardDrawingProps) {
       )}
     </div>
   );
+}
+
+/** A pointer position on the stage, which sits inside the container's border. */
+function stagePoint(container: HTMLElement, event: { clientX: number; clientY: number }): ScreenPoint {
+  const rect = container.getBoundingClientRect();
+  return { x: event.clientX - rect.left - container.clientLeft, y: event.clientY - rect.top - container.clientTop };
 }
 
 function formatScreenScale(zoom: number, screenPxPerMm: number, units: Layout['units']): string {

@@ -12,7 +12,7 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
-import { useMemo, useState } from 'react';
+import { memo, useMemo, useState } from 'react';
 import { formatLength } from '~/lib/format/units';
 import { fretTableRows, type FretTableRow } from '~/lib/export/csv';
 import type { Layout } from '~/lib/geometry/layout';
@@ -21,7 +21,8 @@ import { BUTTON } from './control-styles';
 
 const column = createColumnHelper<FretTableRow>();
 
-export function FretTablePanel({ layout, design }: { layout: Layout; design: Design }) {
+/** Memoised: the table is large and only changes with the (deferred) layout. */
+export const FretTablePanel = memo(function FretTablePanel({ layout, design }: { layout: Layout; design: Design }) {
   const units = layout.units;
   const [sorting, setSorting] = useState<SortingState>([]);
   const [notice, setNotice] = useState('');
@@ -125,7 +126,7 @@ export function FretTablePanel({ layout, design }: { layout: Layout; design: Des
       </div>
     </div>
   );
-}
+});
 
 async function serverCsv(design: Design): Promise<string> {
   const response = await fetch('/api/layout?format=csv', {

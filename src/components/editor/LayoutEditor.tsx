@@ -70,7 +70,10 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
   const preview = useMemo(() => computeLayout(design), [design]);
   const serverCheck = useServerCheck(design, preview);
   const layout: Layout = serverCheck.state === 'mismatch' && serverCheck.layout ? serverCheck.layout : preview;
+  // The table, summary and warnings follow in a later, interruptible render, keeping typing and
+  // redrawing quick.
   const settledLayout = useDeferredValue(layout);
+  const settledDesign = useDeferredValue(design);
 
   useEffect(() => {
     if (loaded) return;
@@ -154,7 +157,7 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
         )}
         <div className="order-1 min-w-0 space-y-3 lg:order-2">
           {drawing}
-          <p id={SUMMARY_ID} className="text-xs text-ink-soft">{describeBoard(design, settledLayout)}</p>
+          <p id={SUMMARY_ID} className="text-xs text-ink-soft">{describeBoard(settledDesign, settledLayout)}</p>
           {settledLayout.warnings.length > 0 && (
             <section aria-label="Check before cutting" className="rounded border border-caution bg-caution-light p-2 text-sm">
               <h2 className="font-semibold">Check before cutting</h2>
@@ -171,7 +174,7 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
             </div>
             <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`}>
               {tab === 'table' || !editing ? (
-                <FretTablePanel layout={settledLayout} design={design} />
+                <FretTablePanel layout={settledLayout} design={settledDesign} />
               ) : (
                 // Mount point for the exports work: src/components/export/ExportPanel.tsx,
                 // rendered here as <ExportPanel design={design} />.
