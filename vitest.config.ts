@@ -7,7 +7,14 @@ export default defineConfig({
   resolve: { alias },
   test: {
     projects: [
-      { resolve: { alias }, test: { name: 'unit', include: ['tests/unit/**/*.test.{ts,tsx}'], environment: 'node' } },
+      { resolve: { alias }, test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.{ts,tsx}'],
+          environment: 'node',
+          // Property tests run hundreds of cases; a busy 2-core machine needs headroom (not a speed goal).
+          testTimeout: 60_000,
+        },
+      },
       {
         resolve: { alias },
         test: {

@@ -1,7 +1,8 @@
 /**
  * The role-by-route matrix: every page and API route with the status each kind of visitor gets.
  * Each feature lists its routes in its own file here and adds it to index.ts; the matrix test
- * (tests/integration/route-matrix.test.ts) fails when a file in src/pages has no entry.
+ * (tests/e2e/route-matrix.test.ts, against the built server) fails when a file in src/pages has
+ * no entry.
  */
 export type Actor = 'anonymous' | 'client' | 'builder' | 'owner' | 'otherOwner';
 
@@ -10,6 +11,8 @@ export interface MatrixIds {
   designId: number;
   templateId: number;
   proofToken: string;
+  /** The demo shop's Builder (builder@wrenfield.example). */
+  demoBuilderId: string;
 }
 
 export interface RouteCase {
@@ -19,6 +22,8 @@ export interface RouteCase {
   path: string | ((ids: MatrixIds) => string);
   /** JSON body for non-GET requests (a valid one, so the status shows authorisation, not validation). */
   body?: unknown | ((ids: MatrixIds) => unknown);
+  /** Sends a string body as-is with this Content-Type instead of JSON (e.g. 'text/plain'). */
+  contentType?: string;
   /** Expected status per actor; an array allows any of those statuses. */
   expect: Record<Actor, number | readonly number[]>;
 }

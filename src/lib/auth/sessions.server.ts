@@ -26,6 +26,15 @@ export async function startSession(cookies: AstroCookies, userId: string): Promi
   setCookie(cookies, token, false);
 }
 
+/**
+ * Signs a user in on this browser: the session the browser had before (if any) ends and a new
+ * one starts, so a session id planted before sign-in is worthless afterwards.
+ */
+export async function rotateSession(cookies: AstroCookies, previousSessionId: string | null, userId: string): Promise<void> {
+  if (previousSessionId) await lucia().invalidateSession(previousSessionId);
+  await startSession(cookies, userId);
+}
+
 /** Reads the cookie and returns the signed-in user, refreshing or clearing the cookie as needed. */
 export async function resolveSession(cookies: AstroCookies): Promise<ResolvedSession | null> {
   const token = cookies.get(SESSION_COOKIE)?.value;
@@ -58,4 +67,10 @@ export async function endSession(cookies: AstroCookies, sessionId: string): Prom
 export async function endOtherSessions(userId: string, keepSessionId?: string): Promise<void> {
   const all = await lucia().getUserSessions(userId);
   await Promise.all(all.filter((s) => s.id !== keepSessionId).map((s) => lucia().invalidateSession(s.id)));
+}
+
+/** Signs the user out everywhere: every session ends and this browser's cookie is cleared. */
+export async function endAllSessions(cookies: AstroCookies, userId: string): Promise<void> {
+  await lucia().invalidateUserSessions(userId);
+  setCookie(cookies, '', true);
 }

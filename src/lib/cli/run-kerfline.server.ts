@@ -1,6 +1,6 @@
-import { readFile } from 'node:fs/promises';
-import { LAYOUT_FORMATS } from '~/lib/export/layout-formats';
-import { computeLayout } from '~/lib/geometry/layout';
+import { readFile, writeFile } from 'node:fs/promises';
+import { exportDesign } from '~/lib/export/export-design.server';
+import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note';
 import { validateDesign } from '~/lib/schemas/design';
 import { USAGE, parseCommand } from './parse-command';
 
@@ -9,7 +9,7 @@ export interface CliOutput {
   stderr: (text: string) => void;
 }
 
-/** Exit codes: 0 done, 1 bad design or unreadable file, 2 bad command line. */
+/** Exit codes: 0 done, 1 bad design or unreadable/unwritable file, 2 bad command line. */
 export async function runKerfline(argv: readonly string[], output: CliOutput): Promise<number> {
   const parsed = parseCommand(argv);
   if (!parsed.ok) {
@@ -25,8 +25,7 @@ export async function runKerfline(argv: readonly string[], output: CliOutput): P
   try {
     input = JSON.parse(await readFile(command.designPath, 'utf8')) as unknown;
   } catch (error) {
-    const why = error instanceof Error ? error.message : String(error);
-    output.stderr(`kerfline: cannot read design ${command.designPath}: ${why}\n`);
+    output.stderr(`kerfline: cannot read design ${command.designPath}: ${reason(error)}\n`);
     return 1;
   }
   const validation = validateDesign(input);
@@ -35,7 +34,24 @@ export async function runKerfline(argv: readonly string[], output: CliOutput): P
     output.stderr(`kerfline: invalid design ${command.designPath}\n${lines.join('\n')}\n`);
     return 1;
   }
-  const rendered = LAYOUT_FORMATS[command.format].render(computeLayout(validation.design));
-  output.stdout(command.format === 'json' ? `${rendered}\n` : rendered);
+  const file = await exportDesign(validation.design, command.options);
+  if (command.out === null) {
+    output.stdout(new TextDecoder().decode(file.bytes));
+    return 0;
+  }
+  try {
+    await writeFile(command.out, file.bytes);
+  } catch (error) {
+    output.stderr(`kerfline: cannot write ${command.out}: ${reason(error)}\n`);
+    return 1;
+  }
+  output.stdout(`Wrote ${command.out} (${file.bytes.byteLength} bytes)\n`);
+  const format = command.options.format;
+  if (format === 'pdf') output.stdout(`${PRINT_CAUTION}\n`);
+  if (format === 'dxf' || format === 'svg') output.stdout(`Caution: ${MACHINE_SAFETY_NOTES.join(' ')}\n`);
   return 0;
+}
+
+function reason(error: unknown): string {
+  return error instanceof Error ? error.message : String(error);
 }

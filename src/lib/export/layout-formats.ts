@@ -2,8 +2,8 @@ import type { Layout } from '~/lib/geometry/layout';
 import { fretTableCsv } from './csv';
 
 /**
- * The ways a computed layout can be written out, shared by the HTTP API and the command line.
- * A new export (PDF, DXF, SVG) adds one entry here.
+ * The text forms of a computed layout, shared by POST /api/layout and the command line. Every
+ * export format, these included, goes through exportDesign (export-design.server.ts).
  */
 export interface LayoutFormat {
   contentType: string;

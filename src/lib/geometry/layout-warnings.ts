@@ -15,6 +15,11 @@ export interface LayoutWarning {
   fret: number | null;
 }
 
+export interface ClosestGap {
+  gap: number;
+  string: number;
+}
+
 export interface WarningInput {
   units: LengthUnit;
   slotWidth: number;
@@ -22,9 +27,9 @@ export interface WarningInput {
   stoppedSlots: boolean;
   stopDistance: number;
   nutCompensation: number;
-  /** fromPrevious of every fret 1..F, per string (index 0 = string 1). */
-  fretGaps: readonly (readonly number[])[];
-  fretLines: readonly Segment[];
+  /** For every fret 1..F, its smallest distance from the previous fret and on which string. */
+  closestGaps: readonly ClosestGap[];
+  frets: readonly { number: number; line: Segment }[];
   /** x where the board end and the drawn saddle line cross the centre line. */
   boardEndCentreX: number;
   saddleCentreX: number;
@@ -34,35 +39,33 @@ export interface WarningInput {
 export function layoutWarnings(input: WarningInput): LayoutWarning[] {
   const show = (length: number) => formatLength(length, input.units, true);
   const warnings: LayoutWarning[] = [];
-  input.fretGaps.forEach((gaps, index) => {
+  input.closestGaps.forEach(({ gap, string }, index) => {
     const fret = index + 1;
     // Fret 1 follows the nut, which is not a slot, unless a zero fret sits there.
     if (fret === 1 && !input.zeroFret) return;
-    const smallest = Math.min(...gaps);
-    if (smallest < input.slotWidth) {
-      const string = gaps.indexOf(smallest) + 1;
+    if (gap < input.slotWidth) {
       warnings.push({
         code: 'frets-closer-than-slot',
         fret,
         message:
-          `Frets ${fret - 1} and ${fret} are ${show(smallest)} apart on string ${string}, ` +
+          `Frets ${fret - 1} and ${fret} are ${show(gap)} apart on string ${string}, ` +
           `less than the slot width ${show(input.slotWidth)}.`,
       });
     }
   });
   if (input.stoppedSlots) {
-    input.fretLines.forEach((line, index) => {
+    for (const { number, line } of input.frets) {
       if (distance(line.start, line.end) <= 2 * input.stopDistance) {
         warnings.push({
           code: 'slot-too-short',
-          fret: index + 1,
-          message: `Fret ${index + 1} is too short for slots stopped ${show(input.stopDistance)} from each edge.`,
+          fret: number,
+          message: `Fret ${number} is too short for slots stopped ${show(input.stopDistance)} from each edge.`,
         });
       }
-    });
+    }
   }
-  const firstGap = input.fretGaps[0];
-  if (firstGap && input.nutCompensation >= Math.min(...firstGap)) {
+  const firstGap = input.closestGaps[0];
+  if (firstGap && input.nutCompensation >= firstGap.gap) {
     warnings.push({
       code: 'nut-past-first-fret',
       fret: 1,

@@ -2,7 +2,7 @@ import type { LengthUnit } from '~/lib/format/units';
 import type { Design } from '~/lib/schemas/design';
 import { acrossBoard, boardOutline } from './board-outline';
 import { layoutMarkers, type LayoutMarker } from './markers';
-import { layoutWarnings, type LayoutWarning } from './layout-warnings';
+import { layoutWarnings, type ClosestGap, type LayoutWarning } from './layout-warnings';
 import { intersectLines, lerpPoint, moveToward, shortenBothEnds, type Point, type Segment } from './plane';
 import { remainingFraction } from './temperament';
 
@@ -122,25 +122,29 @@ export function computeLayout(design: Design): Layout {
   for (let n = 1; n <= fretCount; n++) fractions.push(1 - r(n));
 
   const fretPoints: FretPoint[][] = [];
-  const fretGaps: number[][] = [];
+  const closestGaps: ClosestGap[] = [];
   for (let n = 1; n <= fretCount; n++) {
     const fraction = fractions[n] ?? 0;
     const previous = fractions[n - 1] ?? 0;
-    const points: FretPoint[] = [];
-    const gaps: number[] = [];
-    for (const string of strings) {
-      const fromPrevious = (fraction - previous) * string.scaleLength;
-      points.push({
-        string: string.index,
-        x: string.nut.x + (string.saddle.x - string.nut.x) * fraction,
-        y: string.nut.y + (string.saddle.y - string.nut.y) * fraction,
-        fromNut: fraction * string.scaleLength,
+    const points: FretPoint[] = new Array<FretPoint>(stringCount);
+    const closest = { gap: Number.POSITIVE_INFINITY, string: 1 };
+    for (let i = 0; i < stringCount; i++) {
+      const { index, nut, saddle, scaleLength } = strings[i]!;
+      const fromPrevious = (fraction - previous) * scaleLength;
+      points[i] = {
+        string: index,
+        x: nut.x + (saddle.x - nut.x) * fraction,
+        y: nut.y + (saddle.y - nut.y) * fraction,
+        fromNut: fraction * scaleLength,
         fromPrevious,
-      });
-      gaps.push(fromPrevious);
+      };
+      if (fromPrevious < closest.gap) {
+        closest.gap = fromPrevious;
+        closest.string = index;
+      }
     }
     fretPoints.push(points);
-    fretGaps.push(gaps);
+    closestGaps.push(closest);
   }
 
   const zeroFretPosition = design.compensation.nut;
@@ -221,8 +225,8 @@ export function computeLayout(design: Design): Layout {
       stoppedSlots: design.slot.stopped,
       stopDistance: design.slot.stopDistance,
       nutCompensation: design.compensation.nut,
-      fretGaps,
-      fretLines: frets.map((fret) => fret.line),
+      closestGaps,
+      frets,
       boardEndCentreX: crossCentreLine(board.boardEnd).x,
       saddleCentreX: centreLine.end.x,
     }),

@@ -26,15 +26,17 @@ export function layoutMarkers(
   spans: readonly Segment[],
   edgeLines: readonly Segment[],
 ): LayoutMarker[] {
-  return markers.flatMap((marker) => {
+  const placed: LayoutMarker[] = [];
+  for (const marker of markers) {
     const before = spans[marker.fret - 1];
     const after = spans[marker.fret];
     const edgeBefore = edgeLines[marker.fret - 1];
     const edgeAfter = edgeLines[marker.fret];
-    if (!before || !after || !edgeBefore || !edgeAfter) return [];
+    if (!before || !after || !edgeBefore || !edgeAfter) continue;
     const dots = DOT_POSITIONS[marker.kind].map((t) =>
       lerpPoint(lerpPoint(before.start, before.end, t), lerpPoint(after.start, after.end, t), 0.5),
     );
-    return [{ fret: marker.fret, kind: marker.kind, dots, side: lerpPoint(edgeBefore.end, edgeAfter.end, 0.5) }];
-  });
+    placed.push({ fret: marker.fret, kind: marker.kind, dots, side: lerpPoint(edgeBefore.end, edgeAfter.end, 0.5) });
+  }
+  return placed;
 }

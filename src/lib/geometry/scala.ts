@@ -44,6 +44,7 @@ const RATIO_PATTERN = /^(\d+)(?:\/(\d+))?$/;
 
 /** Parses the text of a .scl file. Accepts \n, \r\n and \r line endings. */
 export function parseScl(text: string): SclParseResult {
+  if (text.trim() === '') return fail(1, 'the file is empty');
   const lines = text.split(/\r\n|\r|\n/);
   let description: string | null = null;
   let count: number | null = null;
@@ -60,6 +61,7 @@ export function parseScl(text: string): SclParseResult {
     }
     const firstWord = raw.trim().split(/\s+/)[0] ?? '';
     if (count === null) {
+      if (firstWord === '') continue;
       const parsed = parseCount(firstWord, lineNumber);
       if (!parsed.ok) return parsed;
       count = parsed.count;
@@ -74,7 +76,7 @@ export function parseScl(text: string): SclParseResult {
     pitches.push(pitch.pitch);
   }
 
-  if (description === null) return fail(1, 'missing description line (the file has no content)');
+  if (description === null) return fail(lines.length, 'missing description line (only comments)');
   if (count === null) return fail(lines.length, 'missing pitch count line after the description');
   const period = pitches[pitches.length - 1];
   if (pitches.length < count || period === undefined) {

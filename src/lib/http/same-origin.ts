@@ -1,18 +1,32 @@
 /**
- * CSRF defence for every state-changing request, JSON included: the browser's Origin header
- * (or, failing that, Referer) must be the app's own origin.
+ * CSRF defence for every state-changing request, JSON included. A browser always says where a
+ * request comes from (Origin, or Sec-Fetch-Site); a cross-site one is refused. A request that
+ * carries the session cookie must prove it is same-origin. Scripts and the command line, which
+ * send no Origin and no cookie, can still call the public endpoints.
  */
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
-export function isSameOriginRequest(request: Request, allowedOrigins: readonly string[]): boolean {
-  if (SAFE_METHODS.has(request.method)) return true;
-  const origin = request.headers.get('origin');
-  if (origin) return allowedOrigins.includes(origin);
+export interface OriginCheckInput {
+  request: Request;
+  allowedOrigins: readonly string[];
+  hasSessionCookie: boolean;
+}
+
+function refererOrigin(request: Request): string | null {
   const referer = request.headers.get('referer');
-  if (!referer) return false;
+  if (!referer) return null;
   try {
-    return allowedOrigins.includes(new URL(referer).origin);
+    return new URL(referer).origin;
   } catch {
-    return false;
+    return 'invalid';
   }
+}
+
+export function isSameOriginRequest({ request, allowedOrigins, hasSessionCookie }: OriginCheckInput): boolean {
+  if (SAFE_METHODS.has(request.method)) return true;
+  const fetchSite = request.headers.get('sec-fetch-site');
+  if (fetchSite === 'cross-site' || fetchSite === 'same-site') return false;
+  const origin = request.headers.get('origin') ?? refererOrigin(request);
+  if (origin) return allowedOrigins.includes(origin);
+  return !hasSessionCookie;
 }

@@ -1,0 +1,269 @@
+/**
+ * The Export panel: options for the paper template and the slot paths, a preview of the page
+ * tiling (the same tile-pages module the PDF uses), and downloads built by POST /api/export.
+ */
+import { useMemo, useState } from 'react';
+import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note';
+import { PAPER_LABELS, PAPER_NAMES } from '~/lib/export/paper-sizes';
+import { sheetDrawing } from '~/lib/export/sheet-drawing';
+import { planTiles } from '~/lib/export/tile-pages';
+import { computeLayout } from '~/lib/geometry/layout';
+import type { Design } from '~/lib/schemas/design';
+import {
+  DEFAULT_EXPORT_OPTIONS,
+  ORIENTATIONS,
+  ORIGINS,
+  SLOT_STYLES,
+  validateExportOptions,
+  type ExportFormat,
+} from '~/lib/schemas/export-options';
+import { TilingPreview } from './TilingPreview';
+
+interface Props {
+  design: Design;
+}
+
+interface FormState {
+  paper: string;
+  orientation: string;
+  overlap: string;
+  strings: boolean;
+  kerf: boolean;
+  mirror: boolean;
+  slots: string;
+  origin: string;
+}
+
+const DOWNLOADS: { format: ExportFormat; label: string }[] = [
+  { format: 'pdf', label: 'Paper template (PDF)' },
+  { format: 'dxf', label: 'Slot paths (DXF)' },
+  { format: 'svg', label: 'Slot paths (SVG)' },
+  { format: 'csv', label: 'Fret table (CSV)' },
+];
+
+const ORIENTATION_LABELS: Record<(typeof ORIENTATIONS)[number], string> = {
+  auto: 'Automatic (fewest pages)',
+  portrait: 'Portrait',
+  landscape: 'Landscape',
+};
+const SLOT_LABELS: Record<(typeof SLOT_STYLES)[number], string> = {
+  lines: 'Single lines',
+  outlines: 'Closed outlines of the slot width',
+};
+const ORIGIN_LABELS: Record<(typeof ORIGINS)[number], string> = {
+  'nut-centre': 'Nut centre (board coordinates)',
+  'lower-left': "Board's lower-left corner",
+};
+
+type Status = { state: 'idle' } | { state: 'busy'; format: ExportFormat } | { state: 'done'; message: string } | { state: 'error'; message: string };
+
+export default function ExportPanel({ design }: Props) {
+  const defaults = DEFAULT_EXPORT_OPTIONS;
+  const [form, setForm] = useState<FormState>({
+    paper: defaults.paper,
+    orientation: defaults.orientation,
+    overlap: String(defaults.overlap),
+    strings: defaults.strings,
+    kerf: defaults.kerf,
+    mirror: defaults.mirror,
+    slots: defaults.slots,
+    origin: defaults.origin,
+  });
+  const [status, setStatus] = useState<Status>({ state: 'idle' });
+  const set = <K extends keyof FormState>(key: K, value: FormState[K]) => setForm((f) => ({ ...f, [key]: value }));
+
+  const validation = validateExportOptions({ ...form });
+  const errors = new Map(validation.ok ? [] : validation.issues.map((i) => [i.path, i.message]));
+  const layout = useMemo(() => computeLayout(design), [design]);
+  const optionsKey = validation.ok ? JSON.stringify(validation.options) : null;
+  const preview = useMemo(() => {
+    if (!validation.ok) return null;
+    const drawing = sheetDrawing(layout, validation.options);
+    const outline = drawing.items.find((item) => item.kind === 'polygon' && item.style === 'outline');
+    return {
+      plan: planTiles(drawing.bounds, validation.options),
+      outline: outline?.kind === 'polygon' ? outline.points : [],
+    };
+    // optionsKey stands for validation.options, which is a new object on every render.
+  }, [layout, optionsKey]);
+
+  async function download(format: ExportFormat) {
+    if (!validation.ok) return;
+    setStatus({ state: 'busy', format });
+    const query = new URLSearchParams({ ...form, format, strings: String(form.strings), kerf: String(form.kerf), mirror: String(form.mirror) });
+    try {
+      const response = await fetch(`/api/export?${query}`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify(design),
+      });
+      if (!response.ok) {
+        const problem = (await response.json().catch(() => ({}))) as { error?: string };
+        setStatus({ state: 'error', message: problem.error ?? `The export failed (${response.status}).` });
+        return;
+      }
+      const blob = await response.blob();
+      const name = /filename="([^"]+)"/.exec(response.headers.get('content-disposition') ?? '')?.[1] ?? `export.${format}`;
+      const url = URL.createObjectURL(blob);
+      const link = document.createElement('a');
+      link.href = url;
+      link.download = name;
+      document.body.append(link);
+      link.click();
+      link.remove();
+      setTimeout(() => URL.revokeObjectURL(url), 10_000);
+      setStatus({ state: 'done', message: `Downloaded ${name} (${Math.ceil(blob.size / 1024)} KiB).` });
+    } catch {
+      setStatus({ state: 'error', message: 'The server could not be reached; nothing was downloaded.' });
+    }
+  }
+
+  const field = 'flex flex-col gap-1 text-sm';
+  const input = 'rounded border border-paper-line bg-white px-2 py-1';
+  const error = (name: string) =>
+    errors.has(name) ? (
+      <span id={`export-${name}-error`} className="text-xs text-rosewood">
+        {errors.get(name)}
+      </span>
+    ) : null;
+  const plan = preview?.plan;
+
+  return (
+    <section aria-labelledby="export-panel-title" className="space-y-4 rounded border border-paper-line bg-white p-4">
+      <h2 id="export-panel-title" className="text-lg font-semibold">
+        Export
+      </h2>
+      <fieldset className="grid gap-3 sm:grid-cols-3">
+        <legend className="mb-2 font-medium">Paper template</legend>
+        <div className={field}>
+          <label htmlFor="export-paper">Paper</label>
+          <select id="export-paper" className={input} value={form.paper} onChange={(e) => set('paper', e.target.value)} aria-invalid={errors.has('paper')}>
+            {PAPER_NAMES.map((name) => (
+              <option key={name} value={name}>
+                {PAPER_LABELS[name]}
+              </option>
+            ))}
+          </select>
+          {error('paper')}
+        </div>
+        <div className={field}>
+          <label htmlFor="export-orientation">Orientation</label>
+          <select id="export-orientation" className={input} value={form.orientation} onChange={(e) => set('orientation', e.target.value)} disabled={form.paper === 'fit'}>
+            {ORIENTATIONS.map((name) => (
+              <option key={name} value={name}>
+                {ORIENTATION_LABELS[name]}
+              </option>
+            ))}
+          </select>
+        </div>
+        <div className={field}>
+          <label htmlFor="export-overlap">Overlap between pages (mm)</label>
+          <input
+            id="export-overlap"
+            className={`${input} font-mono`}
+            type="number"
+            min={0}
+            step={1}
+            value={form.overlap}
+            onChange={(e) => set('overlap', e.target.value)}
+            disabled={form.paper === 'fit'}
+            aria-invalid={errors.has('overlap')}
+            aria-describedby={errors.has('overlap') ? 'export-overlap-error' : undefined}
+          />
+          {error('overlap')}
+        </div>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={form.strings} onChange={(e) => set('strings', e.target.checked)} />
+          Draw the strings
+        </label>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={form.kerf} onChange={(e) => set('kerf', e.target.checked)} />
+          Show the slot width as bands
+        </label>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={form.mirror} onChange={(e) => set('mirror', e.target.checked)} />
+          Mirror (template glued face-down)
+        </label>
+      </fieldset>
+
+      <div className="space-y-1">
+        <h3 className="text-sm font-medium">Page tiling preview</h3>
+        {plan && preview ? (
+          <>
+            <TilingPreview plan={plan} outline={preview.outline} />
+            <p className="text-sm text-ink-soft" aria-live="polite">
+              {plan.tiles.length} page{plan.tiles.length === 1 ? '' : 's'}
+              {plan.paper === 'fit'
+                ? ', one sheet sized to the board'
+                : ` (${plan.rows} row${plan.rows === 1 ? '' : 's'} × ${plan.columns} column${plan.columns === 1 ? '' : 's'}), ${PAPER_LABELS[plan.paper]} ${plan.orientation}`}
+            </p>
+          </>
+        ) : (
+          <p className="text-sm text-rosewood">Fix the options above to see the pages.</p>
+        )}
+      </div>
+
+      <fieldset className="grid gap-3 sm:grid-cols-2">
+        <legend className="mb-2 font-medium">Slot paths (DXF, SVG)</legend>
+        <div className={field}>
+          <label htmlFor="export-slots">Slots</label>
+          <select id="export-slots" className={input} value={form.slots} onChange={(e) => set('slots', e.target.value)}>
+            {SLOT_STYLES.map((name) => (
+              <option key={name} value={name}>
+                {SLOT_LABELS[name]}
+              </option>
+            ))}
+          </select>
+        </div>
+        <div className={field}>
+          <label htmlFor="export-origin">Origin</label>
+          <select id="export-origin" className={input} value={form.origin} onChange={(e) => set('origin', e.target.value)}>
+            {ORIGINS.map((name) => (
+              <option key={name} value={name}>
+                {ORIGIN_LABELS[name]}
+              </option>
+            ))}
+          </select>
+        </div>
+      </fieldset>
+
+      <div className="grid gap-4 md:grid-cols-2">
+        <div className="space-y-2">
+          <h3 className="text-sm font-medium">Downloads</h3>
+          <div className="flex flex-wrap gap-2">
+            {DOWNLOADS.map(({ format, label }) => (
+              <button
+                key={format}
+                type="button"
+                className="rounded bg-spruce px-3 py-1.5 text-sm text-white hover:bg-spruce-dark disabled:opacity-50"
+                disabled={!validation.ok || status.state === 'busy'}
+                onClick={() => void download(format)}
+              >
+                Download {label}
+              </button>
+            ))}
+          </div>
+          <div role="status" aria-live="polite" className="min-h-6 text-sm">
+            {status.state === 'busy' && (
+              <span className="flex items-center gap-2">
+                <progress aria-label={`Building the ${status.format.toUpperCase()} file`} className="h-2 w-32" />
+                Building the {status.format.toUpperCase()} file…
+              </span>
+            )}
+            {status.state === 'done' && <span className="text-spruce">{status.message}</span>}
+            {status.state === 'error' && <span className="text-rosewood">{status.message}</span>}
+          </div>
+        </div>
+        <aside aria-label="Safety note" className="rounded border border-caution bg-caution-light p-3 text-sm">
+          <p className="font-semibold">Before you cut</p>
+          <p>{PRINT_CAUTION}</p>
+          <ul className="mt-1 list-disc pl-5">
+            {MACHINE_SAFETY_NOTES.map((note) => (
+              <li key={note}>{note}</li>
+            ))}
+          </ul>
+        </aside>
+      </div>
+    </section>
+  );
+}

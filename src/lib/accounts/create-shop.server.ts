@@ -1,0 +1,28 @@
+/**
+ * Creating a shop. The form answers "check your e-mail" whether or not the address already has
+ * an account, so it cannot be used to find out who has one: a new address gets a link to finish
+ * (choose name and password, becoming the shop's Owner); a known address gets a note instead.
+ */
+import { config } from '~/lib/config/env.server.ts';
+import { db } from '~/lib/db/client.server.ts';
+import { shops } from '~/lib/db/schema.ts';
+import type { CreateShopInput } from '~/lib/schemas/account.ts';
+import { existingAccountMail, newShopMail } from './account-mail.ts';
+import { INVITATION_TTL_MS } from './links.ts';
+import { deliver } from './mail-delivery.server.ts';
+import { issueToken } from './one-time-tokens.server.ts';
+import { findUserByEmail } from './users.server.ts';
+
+export async function requestNewShop(input: CreateShopInput): Promise<void> {
+  const origin = config().appOrigin;
+  if (await findUserByEmail(input.email)) {
+    await deliver(input.email, existingAccountMail(origin));
+    return;
+  }
+  // The shop and its Owner link are created together or not at all.
+  const token = await db().transaction(async (tx) => {
+    const [shop] = await tx.insert(shops).values({ name: input.shopName }).$returningId();
+    return issueToken(tx, { kind: 'invite', shopId: shop!.id, email: input.email, role: 'owner', ttlMs: INVITATION_TTL_MS });
+  });
+  await deliver(input.email, newShopMail(origin, input.shopName, token));
+}

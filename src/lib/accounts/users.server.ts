@@ -1,0 +1,14 @@
+/** Looking people up by e-mail (stored lower-cased, so the lookup is case-insensitive). */
+import { eq } from 'drizzle-orm';
+import { db } from '~/lib/db/client.server.ts';
+import { shops, users } from '~/lib/db/schema.ts';
+
+export async function findUserByEmail(email: string) {
+  const [row] = await db().select().from(users).where(eq(users.email, email.trim().toLowerCase())).limit(1);
+  return row ?? null;
+}
+
+export async function shopName(shopId: number): Promise<string> {
+  const [row] = await db().select({ name: shops.name }).from(shops).where(eq(shops.id, shopId)).limit(1);
+  return row?.name ?? 'your shop';
+}

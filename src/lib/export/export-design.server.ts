@@ -1,0 +1,65 @@
+/**
+ * One entry point for every export of a validated design: the API routes (unsaved designs here,
+ * saved designs in the Boards area) and the command line call this.
+ */
+import { computeLayout } from '~/lib/geometry/layout';
+import type { Design } from '~/lib/schemas/design';
+import type { ExportFormat, ExportOptions } from '~/lib/schemas/export-options';
+import { slotPathsDxf } from './dxf.server';
+import { exportFileName } from './file-name';
+import { LAYOUT_FORMATS } from './layout-formats';
+import { paperTemplatePdf } from './pdf.server';
+import { slotPaths } from './slot-paths';
+import { slotPathsSvg } from './svg';
+import type { ExportContext } from './title-block';
+
+export type { ExportContext } from './title-block';
+
+export interface ExportFile {
+  bytes: Uint8Array;
+  contentType: string;
+  /** Sanitised, made from the design name; safe for Content-Disposition. */
+  filename: string;
+}
+
+export const EXPORT_CONTENT_TYPES: Readonly<Record<ExportFormat, string>> = {
+  pdf: 'application/pdf',
+  // IANA registers DXF as image/vnd.dxf.
+  dxf: 'image/vnd.dxf',
+  svg: 'image/svg+xml; charset=utf-8',
+  csv: LAYOUT_FORMATS.csv.contentType,
+  json: LAYOUT_FORMATS.json.contentType,
+};
+
+/** Builds the file for `options.format`; every length comes from computeLayout. */
+export async function exportDesign(
+  design: Design,
+  options: ExportOptions,
+  context: ExportContext = {},
+): Promise<ExportFile> {
+  const layout = computeLayout(design);
+  const text = new TextEncoder();
+  let bytes: Uint8Array;
+  switch (options.format) {
+    case 'pdf':
+      bytes = (await paperTemplatePdf(design, layout, options, context)).bytes;
+      break;
+    case 'dxf':
+      bytes = text.encode(slotPathsDxf(slotPaths(layout, options)));
+      break;
+    case 'svg':
+      bytes = text.encode(slotPathsSvg(slotPaths(layout, options)));
+      break;
+    case 'csv':
+      bytes = text.encode(LAYOUT_FORMATS.csv.render(layout));
+      break;
+    case 'json':
+      bytes = text.encode(`${LAYOUT_FORMATS.json.render(layout)}\n`);
+      break;
+  }
+  return {
+    bytes,
+    contentType: EXPORT_CONTENT_TYPES[options.format],
+    filename: exportFileName(design.name, options.format),
+  };
+}

@@ -1,0 +1,368 @@
+/**
+ * The paper template as PDF (pdf-lib): the sheet drawing at exactly 1:1 (72 pt = 1 in = 25.4 mm,
+ * ISO 32000-1) on one page or tiled over several, each page with the caution, two calibration
+ * bars, a title block and the page map. Text uses the shipped JetBrains Mono, embedded as a subset.
+ *
+ * Lines a test or a person may want to find are wrapped in marked content (BMC) with plain tags:
+ * Fret<n>, CalibrationBar100mm, CalibrationBar4in, AlignmentMark.
+ */
+import { readFile } from 'node:fs/promises';
+import { createRequire } from 'node:module';
+import fontkit from '@pdf-lib/fontkit';
+import {
+  beginMarkedContent,
+  clip,
+  closePath,
+  endMarkedContent,
+  endPath,
+  fill,
+  lineTo,
+  moveTo,
+  PDFDocument,
+  popGraphicsState,
+  pushGraphicsState,
+  rectangle,
+  rgb,
+  setDashPattern,
+  setFillingRgbColor,
+  setLineWidth,
+  setStrokingRgbColor,
+  stroke,
+  type PDFFont,
+  type PDFPage,
+} from 'pdf-lib';
+import type { Layout, Point } from '~/lib/geometry/layout';
+import type { Design } from '~/lib/schemas/design';
+import type { ExportOptions } from '~/lib/schemas/export-options';
+import { PAGE_FRAME_MM } from './page-frame';
+import { PAPER_LABELS, mmToPt } from './paper-sizes';
+import { PRINT_CAUTION } from './safety-note';
+import { sheetDrawing, type LineStyle, type SheetItem } from './sheet-drawing';
+import { planTiles, type Tile, type TilePlan } from './tile-pages';
+import { titleBlockLines, type ExportContext } from './title-block';
+import { woffToSfnt } from './woff-to-sfnt.server';
+
+const FONT_FILE = '@fontsource/jetbrains-mono/files/jetbrains-mono-latin-400-normal.woff';
+let fontBytes: Promise<Uint8Array> | null = null;
+
+/** The font file is read and unpacked once per process. */
+function loadFont(): Promise<Uint8Array> {
+  fontBytes ??= readFile(createRequire(import.meta.url).resolve(FONT_FILE)).then(woffToSfnt);
+  return fontBytes;
+}
+
+type Rgb = [number, number, number];
+interface Pen {
+  widthPt: number;
+  dashPt?: number[];
+  colour: Rgb;
+}
+
+const BLACK: Rgb = [0, 0, 0];
+const GREY: Rgb = [0.45, 0.45, 0.45];
+const LIGHT: Rgb = [0.78, 0.78, 0.78];
+const CAUTION: Rgb = [0.54, 0.35, 0];
+
+const PENS: Record<LineStyle, Pen> = {
+  outline: { widthPt: 0.6, colour: BLACK },
+  'centre-line': { widthPt: 0.3, dashPt: [6, 2, 1, 2], colour: GREY },
+  nut: { widthPt: 0.8, colour: BLACK },
+  'nut-uncompensated': { widthPt: 0.4, dashPt: [2, 2], colour: GREY },
+  saddle: { widthPt: 0.8, colour: BLACK },
+  'saddle-uncompensated': { widthPt: 0.4, dashPt: [2, 2], colour: GREY },
+  string: { widthPt: 0.3, colour: LIGHT },
+  /** Thin, so a knife or saw lines up on the line's centre. */
+  fret: { widthPt: 0.25, colour: BLACK },
+  marker: { widthPt: 0.3, colour: BLACK },
+};
+const KERF_FILL: Rgb = [0.85, 0.85, 0.85];
+const WINDOW_EDGE: Pen = { widthPt: 0.2, dashPt: [3, 3], colour: LIGHT };
+
+/** Alignment mark: a circle of 3 mm radius with a cross 8 mm long. */
+const MARK = { radiusMm: 3, armMm: 4 } as const;
+
+export interface PaperTemplate {
+  bytes: Uint8Array;
+  plan: TilePlan;
+}
+
+/** Builds the paper template of a validated design and its computed layout. */
+export async function paperTemplatePdf(
+  design: Design,
+  layout: Layout,
+  options: ExportOptions,
+  context: ExportContext = {},
+): Promise<PaperTemplate> {
+  const drawing = sheetDrawing(layout, options);
+  const plan = planTiles(drawing.bounds, options);
+  const document = await PDFDocument.create();
+  document.registerFontkit(fontkit);
+  // No contextual alternates or ligatures: printed numbers and words show exactly as written.
+  const font = memoiseEncoding(
+    await document.embedFont(await loadFont(), { subset: true, features: { calt: false, liga: false } }),
+  );
+  document.setTitle(`${design.name} (paper template)`);
+  document.setSubject(PRINT_CAUTION);
+  document.setCreator('Kerfline');
+  const titleLines = titleBlockLines(design, options, context);
+  const outline = drawing.items.find((item) => item.kind === 'polygon' && item.style === 'outline');
+
+  for (const tile of plan.tiles) {
+    const page = document.addPage([plan.pageWidthPt, plan.pageHeightPt]);
+    const toPage = (p: Point) => ({
+      x: mmToPt(plan.window.xMm + p.x - tile.x0),
+      y: mmToPt(plan.window.yMm + p.y - tile.y0),
+    });
+    drawTile(page, font, plan, tile, drawing.items, toPage);
+    drawHeader(page, font, plan, tile, outline?.kind === 'polygon' ? outline.points : []);
+    drawFooter(page, font, titleLines);
+  }
+  return { bytes: await document.save({ useObjectStreams: false }), plan };
+}
+
+function penOps(pen: Pen) {
+  return [setLineWidth(pen.widthPt), setDashPattern(pen.dashPt ?? [], 0), setStrokingRgbColor(...pen.colour)];
+}
+
+function drawTile(
+  page: PDFPage,
+  font: PDFFont,
+  plan: TilePlan,
+  tile: Tile,
+  items: readonly SheetItem[],
+  toPage: (p: Point) => Point,
+): void {
+  const window = {
+    x: mmToPt(plan.window.xMm),
+    y: mmToPt(plan.window.yMm),
+    width: mmToPt(plan.window.widthMm),
+    height: mmToPt(plan.window.heightMm),
+  };
+  page.pushOperators(pushGraphicsState(), rectangle(window.x, window.y, window.width, window.height), clip(), endPath());
+  const visible = (points: Point[]) => overlapsWindow(plan, tile, points);
+  for (const item of items) {
+    if (item.kind === 'polygon' && visible(item.points)) {
+      const [first, ...rest] = item.points.map(toPage);
+      if (!first) continue;
+      const path = [moveTo(first.x, first.y), ...rest.map((p) => lineTo(p.x, p.y)), closePath()];
+      if (item.style === 'kerf') {
+        page.pushOperators(setFillingRgbColor(...KERF_FILL), ...path, fill());
+      } else {
+        page.pushOperators(...penOps(PENS.outline), ...path, stroke());
+      }
+    } else if (item.kind === 'line' && visible([item.start, item.end])) {
+      const start = toPage(item.start);
+      const end = toPage(item.end);
+      const tagged = item.fret !== undefined;
+      page.pushOperators(
+        ...(tagged ? [beginMarkedContent(`Fret${item.fret}`)] : []),
+        ...penOps(PENS[item.style]),
+        moveTo(start.x, start.y),
+        lineTo(end.x, end.y),
+        stroke(),
+        ...(tagged ? [endMarkedContent()] : []),
+      );
+    } else if (item.kind === 'circle' && visible([item.centre])) {
+      const centre = toPage(item.centre);
+      page.drawCircle({ x: centre.x, y: centre.y, size: mmToPt(item.radiusMm), borderWidth: PENS.marker.widthPt, borderColor: rgb(0, 0, 0) });
+    } else if (item.kind === 'label' && visible([item.centre])) {
+      const centre = toPage(item.centre);
+      const width = monoWidth(item.text, item.sizePt);
+      page.drawText(item.text, { x: centre.x - width / 2, y: centre.y - item.sizePt * 0.36, size: item.sizePt, font });
+    }
+  }
+  for (const mark of plan.marks) {
+    const near = [
+      { x: mark.x - MARK.armMm, y: mark.y - MARK.armMm },
+      { x: mark.x + MARK.armMm, y: mark.y + MARK.armMm },
+    ];
+    if (!overlapsWindow(plan, tile, near)) continue;
+    const centre = toPage(mark);
+    const arm = mmToPt(MARK.armMm);
+    page.pushOperators(
+      beginMarkedContent('AlignmentMark'),
+      ...penOps(PENS.marker),
+      moveTo(centre.x - arm, centre.y),
+      lineTo(centre.x + arm, centre.y),
+      moveTo(centre.x, centre.y - arm),
+      lineTo(centre.x, centre.y + arm),
+      stroke(),
+      endMarkedContent(),
+    );
+    page.drawCircle({ x: centre.x, y: centre.y, size: mmToPt(MARK.radiusMm), borderWidth: 0.3, borderColor: rgb(0, 0, 0) });
+  }
+  page.pushOperators(popGraphicsState());
+  if (plan.tiles.length > 1) {
+    page.pushOperators(
+      ...penOps(WINDOW_EDGE),
+      rectangle(window.x, window.y, window.width, window.height),
+      stroke(),
+    );
+  }
+}
+
+/** Whether the box around `points` touches the tile's window. */
+function overlapsWindow(plan: TilePlan, tile: Tile, points: readonly Point[]): boolean {
+  const xs = points.map((p) => p.x);
+  const ys = points.map((p) => p.y);
+  return (
+    Math.max(...xs) >= tile.x0 &&
+    Math.min(...xs) <= tile.x0 + plan.window.widthMm &&
+    Math.max(...ys) >= tile.y0 &&
+    Math.min(...ys) <= tile.y0 + plan.window.heightMm
+  );
+}
+
+/** Header: the caution, the page label and the page map. */
+function drawHeader(page: PDFPage, font: PDFFont, plan: TilePlan, tile: Tile, outline: readonly Point[]): void {
+  const { margin, header } = PAGE_FRAME_MM;
+  const top = plan.pageHeightPt - mmToPt(margin);
+  const left = mmToPt(margin);
+  page.drawText(PRINT_CAUTION, { x: left, y: top - mmToPt(4.5), size: 10, font, color: rgb(...CAUTION) });
+  const pageLabel =
+    plan.tiles.length > 1
+      ? `Page ${tile.index + 1} of ${plan.tiles.length} · row ${tile.row}, column ${tile.column} · ` +
+        `${PAPER_LABELS[plan.paper]} ${plan.orientation} · overlap ${plan.overlapMm} mm`
+      : `Page 1 of 1 · ${PAPER_LABELS[plan.paper]} ${plan.paper === 'fit' ? '' : plan.orientation}`.trim();
+  page.drawText(pageLabel, { x: left, y: top - mmToPt(10), size: 7, font });
+  if (plan.tiles.length > 1) {
+    page.drawText('Overlap pages on the round marks; trim along the dashed edge.', { x: left, y: top - mmToPt(14.5), size: 7, font });
+  }
+  drawPageMap(page, font, plan, tile, outline, {
+    right: plan.pageWidthPt - mmToPt(margin),
+    top: top - mmToPt(1),
+    width: mmToPt(55),
+    height: mmToPt(header - 3),
+  });
+}
+
+/** A small drawing of the whole board with the page grid; this page is shaded. */
+function drawPageMap(
+  page: PDFPage,
+  font: PDFFont,
+  plan: TilePlan,
+  current: Tile,
+  outline: readonly Point[],
+  box: { right: number; top: number; width: number; height: number },
+): void {
+  const minX = Math.min(...plan.tiles.map((t) => t.x0));
+  const minY = Math.min(...plan.tiles.map((t) => t.y0));
+  const spanX = Math.max(...plan.tiles.map((t) => t.x0)) + plan.window.widthMm - minX;
+  const spanY = Math.max(...plan.tiles.map((t) => t.y0)) + plan.window.heightMm - minY;
+  const scale = Math.min(box.width / spanX, box.height / spanY);
+  const left = box.right - spanX * scale;
+  const bottom = box.top - spanY * scale;
+  const at = (p: Point) => ({ x: left + (p.x - minX) * scale, y: bottom + (p.y - minY) * scale });
+  for (const tile of plan.tiles) {
+    const corner = at({ x: tile.x0, y: tile.y0 });
+    const width = plan.window.widthMm * scale;
+    const height = plan.window.heightMm * scale;
+    page.drawRectangle({
+      x: corner.x,
+      y: corner.y,
+      width,
+      height,
+      borderWidth: 0.4,
+      borderColor: rgb(...GREY),
+      ...(tile.index === current.index ? { color: rgb(0.88, 0.93, 0.91) } : {}),
+    });
+    page.drawText(String(tile.index + 1), { x: corner.x + 1.5, y: corner.y + height - 5.5, size: 5, font });
+  }
+  const [first, ...rest] = outline.map(at);
+  if (first) {
+    page.pushOperators(
+      ...penOps({ widthPt: 0.5, colour: BLACK }),
+      moveTo(first.x, first.y),
+      ...rest.map((p) => lineTo(p.x, p.y)),
+      closePath(),
+      stroke(),
+    );
+  }
+}
+
+/** Footer: the 100 mm and 4 in calibration bars with end ticks, and the title block. */
+function drawFooter(page: PDFPage, font: PDFFont, titleLines: readonly string[]): void {
+  const { margin, footer } = PAGE_FRAME_MM;
+  const left = mmToPt(margin + 1);
+  drawBar(page, font, { x: left, y: mmToPt(margin + 20) }, 100, 10, 'mm', 'CalibrationBar100mm');
+  drawBar(page, font, { x: left, y: mmToPt(margin + 7) }, 4, 1, 'in', 'CalibrationBar4in');
+  const textLeft = mmToPt(margin + 126);
+  const size = 6.5;
+  const maxChars = Math.floor((page.getWidth() - mmToPt(margin) - textLeft) / (size * 0.6));
+  titleLines.forEach((line, index) => {
+    const text = line.length > maxChars ? `${line.slice(0, Math.max(1, maxChars - 1))}…` : line;
+    page.drawText(fitsFont(font, text), {
+      x: textLeft,
+      y: mmToPt(margin + footer - 4) - index * mmToPt(3.4),
+      size: index === 0 ? size + 1 : size,
+      font,
+    });
+  });
+}
+
+/**
+ * A calibration bar `length` units long from `start`, with tall end ticks and short ticks every
+ * `step`, labelled with its length.
+ */
+function drawBar(
+  page: PDFPage,
+  font: PDFFont,
+  start: Point,
+  length: number,
+  step: number,
+  unit: 'mm' | 'in',
+  tag: string,
+): void {
+  const toPt = (value: number) => (unit === 'mm' ? mmToPt(value) : value * 72);
+  const end = start.x + toPt(length);
+  const tall = mmToPt(3);
+  const short = mmToPt(1.5);
+  page.pushOperators(
+    beginMarkedContent(tag),
+    ...penOps({ widthPt: 0.5, colour: BLACK }),
+    moveTo(start.x, start.y),
+    lineTo(end, start.y),
+    stroke(),
+    endMarkedContent(),
+    moveTo(start.x, start.y - tall),
+    lineTo(start.x, start.y + tall),
+    moveTo(end, start.y - tall),
+    lineTo(end, start.y + tall),
+  );
+  for (let at = step; at < length - step / 2; at += step) {
+    const x = start.x + toPt(at);
+    page.pushOperators(moveTo(x, start.y), lineTo(x, start.y + short));
+  }
+  page.pushOperators(stroke());
+  page.drawText(`${length} ${unit}`, { x: end + mmToPt(2), y: start.y - 2.5, size: 8, font });
+}
+
+/** Characters the font lacks become "?" instead of blank boxes. */
+function fitsFont(font: PDFFont, text: string): string {
+  const supported = characterSets.get(font) ?? new Set(font.getCharacterSet());
+  characterSets.set(font, supported);
+  return [...text].map((char) => (supported.has(char.codePointAt(0) ?? 0) ? char : '?')).join('');
+}
+const characterSets = new WeakMap<PDFFont, Set<number>>();
+
+/** JetBrains Mono advances every character 600/1000 em. */
+function monoWidth(text: string, sizePt: number): number {
+  return [...text].length * 0.6 * sizePt;
+}
+
+/**
+ * fontkit shapes each string anew (about half a millisecond each); the template repeats the same
+ * few strings on every page, so each document remembers its encodings.
+ */
+function memoiseEncoding(font: PDFFont): PDFFont {
+  const encode = font.encodeText.bind(font);
+  const cache = new Map<string, ReturnType<PDFFont['encodeText']>>();
+  font.encodeText = (text: string) => {
+    const known = cache.get(text);
+    if (known) return known;
+    const encoded = encode(text);
+    cache.set(text, encoded);
+    return encoded;
+  };
+  return font;
+}

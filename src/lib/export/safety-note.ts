@@ -1,0 +1,22 @@
+/**
+ * The cautions that travel with every export, in one place so the download panel, the files and
+ * the documentation say the same thing.
+ */
+
+/** Printed on every page of the paper template. */
+export const PRINT_CAUTION = 'Print at 100 % / actual size. Measure both bars before cutting.';
+
+/** For machine exports (DXF, SVG) and beside the download buttons. */
+export const MACHINE_SAFETY_NOTES: readonly string[] = [
+  'Verify units and scale on scrap or a test piece before cutting the good blank.',
+  'Secure the work: clamp the blank or template; never hold small parts by hand at a blade or cutter.',
+  'Wear eye and hearing protection.',
+  'Never leave a running machine.',
+  "Follow the machine maker's instructions and your local workshop rules; they come first.",
+];
+
+/** One line for a file comment, naming the units the file is drawn in. */
+export function machineCaution(units: 'mm' | 'in'): string {
+  const unitName = units === 'mm' ? 'millimetres' : 'inches';
+  return `Kerfline slot paths. Units: ${unitName} (${units}), drawn 1:1. CAUTION: ${MACHINE_SAFETY_NOTES.join(' ')}`;
+}

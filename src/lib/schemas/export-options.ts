@@ -1,0 +1,110 @@
+/**
+ * Options for every export (paper template, slot paths, fret table). One schema serves the API
+ * query string, the command line and the Export panel: text values ("true", "10") are accepted
+ * and converted, so the same rules and messages apply everywhere.
+ */
+import { z } from 'zod';
+import { maxOverlapMm } from '~/lib/export/page-frame';
+import { PAPER_NAMES } from '~/lib/export/paper-sizes';
+
+export const EXPORT_FORMATS = ['pdf', 'dxf', 'svg', 'csv', 'json'] as const;
+export type ExportFormat = (typeof EXPORT_FORMATS)[number];
+
+export const ORIENTATIONS = ['auto', 'portrait', 'landscape'] as const;
+export const SLOT_STYLES = ['lines', 'outlines'] as const;
+export const ORIGINS = ['nut-centre', 'lower-left'] as const;
+
+/** Default overlap between tiled pages: 10 mm. */
+export const DEFAULT_OVERLAP_MM = 10;
+
+function fromText(value: unknown): unknown {
+  if (typeof value !== 'string') return value;
+  const text = value.trim().toLowerCase();
+  if (text === 'true' || text === '1' || text === 'yes' || text === 'on') return true;
+  if (text === 'false' || text === '0' || text === 'no' || text === 'off') return false;
+  return value;
+}
+
+function numberFromText(value: unknown): unknown {
+  if (typeof value !== 'string' || value.trim() === '') return value;
+  const number = Number(value);
+  return Number.isNaN(number) ? value : number;
+}
+
+const flag = z.preprocess(fromText, z.boolean({ invalid_type_error: 'must be true or false' }));
+
+function choice<T extends readonly [string, ...string[]]>(values: T) {
+  return z.enum(values, { errorMap: () => ({ message: `must be one of: ${values.join(', ')}` }) });
+}
+
+export const exportOptionsSchema = z
+  .object({
+    /** pdf = paper template, dxf/svg = slot paths, csv = fret table, json = the computed layout. */
+    format: choice(EXPORT_FORMATS).default('pdf'),
+    /** Paper template sheet; `fit` is one sheet sized to the board. */
+    paper: choice(PAPER_NAMES).default('letter'),
+    /** `auto` picks the orientation that needs the fewest pages. */
+    orientation: choice(ORIENTATIONS).default('auto'),
+    /** Overlap between neighbouring tiled pages, in millimetres. */
+    overlap: z
+      .preprocess(
+        numberFromText,
+        z
+          .number({ invalid_type_error: 'must be a number of millimetres' })
+          .finite({ message: 'must be a finite number of millimetres' })
+          .nonnegative({ message: 'must not be negative' }),
+      )
+      .default(DEFAULT_OVERLAP_MM),
+    /** Draw the string lines on the paper template. */
+    strings: flag.default(false),
+    /** Draw each slot's width as a band on the paper template. */
+    kerf: flag.default(true),
+    /** Mirror the paper template across the centre line, for templates glued face-down. */
+    mirror: flag.default(false),
+    /** Slot paths: single lines, or closed outlines of the slot width. */
+    slots: choice(SLOT_STYLES).default('lines'),
+    /** Slot paths origin: the nut centre (board coordinates) or the board's lower-left corner. */
+    origin: choice(ORIGINS).default('nut-centre'),
+  })
+  .strict()
+  .superRefine((options, ctx) => {
+    if (options.paper === 'fit') return;
+    const limit = maxOverlapMm(options.paper);
+    if (options.overlap >= limit) {
+      ctx.addIssue({
+        code: z.ZodIssueCode.custom,
+        path: ['overlap'],
+        message: `must be less than ${limit.toFixed(1)} mm on ${options.paper} paper`,
+      });
+    }
+  });
+
+export type ExportOptions = z.output<typeof exportOptionsSchema>;
+export type ExportOptionsInput = z.input<typeof exportOptionsSchema>;
+
+export const DEFAULT_EXPORT_OPTIONS: ExportOptions = exportOptionsSchema.parse({});
+
+export interface OptionIssue {
+  /** The option's name, e.g. "overlap", or the unknown option itself. */
+  path: string;
+  message: string;
+}
+
+export type OptionsValidation = { ok: true; options: ExportOptions } | { ok: false; issues: OptionIssue[] };
+
+/** Validates options from a query string, the command line or a form; never throws. */
+export function validateExportOptions(input: unknown): OptionsValidation {
+  const result = exportOptionsSchema.safeParse(input);
+  if (result.success) return { ok: true, options: result.data };
+  return {
+    ok: false,
+    issues: result.error.issues.map((issue) => {
+      if (issue.code === z.ZodIssueCode.unrecognized_keys) {
+        return { path: issue.keys[0] ?? 'options', message: `unknown option (known: ${KNOWN_OPTIONS.join(', ')})` };
+      }
+      return { path: issue.path.join('.') || 'options', message: issue.message };
+    }),
+  };
+}
+
+const KNOWN_OPTIONS = Object.keys(exportOptionsSchema._def.schema.shape);

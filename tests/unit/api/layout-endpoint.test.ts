@@ -1,0 +1,114 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { fretTableCsv } from '~/lib/export/csv';
+import { computeLayout } from '~/lib/geometry/layout';
+import { handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server';
+import { invalidFieldArbitrary } from '../geometry/design-arbitraries';
+import { designInput, validDesign, withField } from '../geometry/design-builders';
+
+const URL_BASE = 'http://127.0.0.1:4321/api/layout';
+const FAN = designInput({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8 });
+
+function post(body: BodyInit, headers: Record<string, string> = { 'content-type': 'application/json' }, url = URL_BASE) {
+  return handleLayoutRequest(new Request(url, { method: 'POST', headers, body }));
+}
+
+async function errorBody(response: Response): Promise<{ error: string; field?: string; issues?: { path: string; message: string }[] }> {
+  expect(response.headers.get('content-type')).toMatch(/^application\/json/);
+  return (await response.json()) as { error: string; field?: string; issues?: { path: string; message: string }[] };
+}
+
+describe('POST /api/layout handler', () => {
+  it('returns the layout as JSON', async () => {
+    const response = await post(JSON.stringify(FAN));
+    expect(response.status).toBe(200);
+    expect(response.headers.get('content-type')).toBe('application/json; charset=utf-8');
+    expect(await response.json()).toEqual(JSON.parse(JSON.stringify(computeLayout(validDesign(FAN)))));
+  });
+
+  it('returns the fret table CSV for ?format=csv and for Accept: text/csv', async () => {
+    const expected = fretTableCsv(computeLayout(validDesign(FAN)));
+    for (const response of [
+      await post(JSON.stringify(FAN), { 'content-type': 'application/json' }, `${URL_BASE}?format=csv`),
+      await post(JSON.stringify(FAN), { 'content-type': 'application/json', accept: 'text/csv' }),
+    ]) {
+      expect(response.status).toBe(200);
+      expect(response.headers.get('content-type')).toBe('text/csv; charset=utf-8');
+      expect(await response.text()).toBe(expected);
+    }
+  });
+
+  it('400 for an unknown format, naming it', async () => {
+    const response = await post(JSON.stringify(FAN), { 'content-type': 'application/json' }, `${URL_BASE}?format=xls`);
+    expect(response.status).toBe(400);
+    expect((await errorBody(response)).field).toBe('format');
+  });
+
+  it.each([['text/plain'], ['application/x-www-form-urlencoded'], ['']])('415 for content type %j', async (type) => {
+    const response = await post(JSON.stringify(FAN), type === '' ? {} : { 'content-type': type });
+    expect(response.status).toBe(415);
+    expect((await errorBody(response)).error).toContain('application/json');
+  });
+
+  it('400 for a body that is not JSON', async () => {
+    const response = await post('{"name": "unterminated');
+    expect(response.status).toBe(400);
+    expect((await errorBody(response)).error).toContain('not valid JSON');
+  });
+
+  it.each([
+    ['wrong type', { ...FAN, strings: 'six' }, 'strings'],
+    ['missing field', { ...FAN, frets: undefined }, 'frets'],
+    ['negative length', { ...FAN, scale: { treble: -648, bass: 686 } }, 'scale.treble'],
+    ['zero length', { ...FAN, stringSpacing: { nut: 0, bridge: 60 } }, 'stringSpacing.nut'],
+    ['1e308', { ...FAN, scale: { treble: 648, bass: 1e308 } }, 'scale.bass'],
+    ['"NaN" string', { ...FAN, scale: { treble: 'NaN', bass: 686 } }, 'scale.treble'],
+    ['10,000 strings', { ...FAN, strings: 10_000 }, 'strings'],
+    ['Scala text with a missing count', { ...FAN, temperament: { kind: 'scala', scl: 'Only a description\n' } }, 'temperament.scl'],
+    ['Scala text with a zero ratio', { ...FAN, temperament: { kind: 'scala', scl: 'Zero\n2\n0/1\n2/1\n' } }, 'temperament.scl'],
+  ])('400 for %s, naming the field', async (_label, design, path) => {
+    const response = await post(JSON.stringify(design));
+    expect(response.status).toBe(400);
+    const body = await errorBody(response);
+    expect(body.field).toBe(path);
+    expect(body.error).toContain(path);
+    expect(body.issues?.map((issue) => issue.path)).toContain(path);
+  });
+
+  it('413 for a 5 MB body, by Content-Length and by actual bytes', async () => {
+    const big = `{"name":"${'x'.repeat(5 * 1024 * 1024)}"}`;
+    const declared = await post(big, { 'content-type': 'application/json', 'content-length': String(big.length) });
+    expect(declared.status).toBe(413);
+    const stream = new Blob([big]).stream();
+    const streamed = await handleLayoutRequest(
+      new Request(URL_BASE, { method: 'POST', headers: { 'content-type': 'application/json' }, body: stream, duplex: 'half' } as RequestInit),
+    );
+    expect(streamed.status).toBe(413);
+  });
+
+  it('accepts a body just under 64 KiB', async () => {
+    const padded = JSON.stringify({ ...FAN, name: 'x'.repeat(100) });
+    expect(padded.length).toBeLessThan(64 * 1024);
+    expect((await post(padded)).status).toBe(200);
+  });
+
+  it('405 for methods other than POST', async () => {
+    const response = await handleLayoutRequest(new Request(URL_BASE, { method: 'GET' }));
+    expect(response.status).toBe(405);
+    expect(response.headers.get('allow')).toBe('POST');
+  });
+
+  it('property: random invalid designs get 400 naming the field (fast-check)', async () => {
+    await fc.assert(
+      fc.asyncProperty(invalidFieldArbitrary, async ([path, value]) => {
+        const input = withField(path, value);
+        const response = await post(JSON.stringify(input));
+        expect(response.status).toBe(400);
+        const body = await errorBody(response);
+        // JSON has no NaN or Infinity: they arrive as null, still rejected at the same field.
+        expect(body.issues?.map((issue) => issue.path)).toContain(path);
+      }),
+      { numRuns: 100 },
+    );
+  });
+});

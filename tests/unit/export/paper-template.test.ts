@@ -1,0 +1,201 @@
+import { mkdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { PNG } from 'pngjs';
+import { describe, expect, it } from 'vitest';
+import { exportDesign } from '~/lib/export/export-design.server';
+import { sheetDrawing } from '~/lib/export/sheet-drawing';
+import { planTiles, type TilePlan } from '~/lib/export/tile-pages';
+import { computeLayout, type Layout } from '~/lib/geometry/layout';
+import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import type { Design } from '~/lib/schemas/design';
+import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options';
+import { pageText, pdfFonts, readPdf, renderPage, type PageSegment, type ReadPage } from '../../support/pdf-readback.ts';
+
+/** ISO 32000-1: PDF user space units are 1/72 in; 1 in = 25.4 mm exactly. */
+const PT_PER_MM = 72 / 25.4;
+const TOLERANCE_PT = 0.01;
+
+function expectNearPt(actual: number, expected: number, what: string): void {
+  if (Math.abs(actual - expected) > TOLERANCE_PT) {
+    throw new Error(`${what}: ${actual} pt is not within ${TOLERANCE_PT} pt of ${expected} pt`);
+  }
+}
+
+function demo(id: string): Design {
+  const found = DEMO_DESIGNS.find((d) => d.id === id);
+  if (!found) throw new Error(`no demo design ${id}`);
+  return found.design;
+}
+
+function options(input: Record<string, unknown>): ExportOptions {
+  const result = validateExportOptions({ format: 'pdf', ...input });
+  if (!result.ok) throw new Error(JSON.stringify(result.issues));
+  return result.options;
+}
+
+async function template(design: Design, input: Record<string, unknown>) {
+  const chosen = options(input);
+  const file = await exportDesign(design, chosen, { revision: 2, shopName: 'Wrenfield Instrument Co.' });
+  const layout = computeLayout(design);
+  const plan = planTiles(sheetDrawing(layout, chosen).bounds, chosen);
+  return { bytes: file.bytes, pages: await readPdf(file.bytes), plan, layout };
+}
+
+function length(s: PageSegment): number {
+  return Math.hypot(s.x2 - s.x1, s.y2 - s.y1);
+}
+
+/** Sheet millimetres of a board point, as the paper template draws it. */
+function sheetMm(layout: Layout, point: { x: number; y: number }, mirror: boolean) {
+  const scale = layout.units === 'in' ? 25.4 : 1;
+  return { x: point.x * scale, y: (mirror ? -1 : 1) * point.y * scale };
+}
+
+/** A page point with the tile's offset undone, in points from the board origin. */
+function undoTile(plan: TilePlan, pageIndex: number, x: number, y: number) {
+  const tile = plan.tiles[pageIndex]!;
+  return {
+    x: x - (plan.window.xMm - tile.x0) * PT_PER_MM,
+    y: y - (plan.window.yMm - tile.y0) * PT_PER_MM,
+  };
+}
+
+function fretSegments(page: ReadPage, fret: number): PageSegment[] {
+  return page.tagged.get(`Fret${fret}`) ?? [];
+}
+
+describe('paper template PDF read back with pdfjs-dist and poppler', () => {
+  it('tiles the seven-string fan over Letter landscape pages of 792 x 612 pt (ANSI Letter 11 x 8.5 in)', async () => {
+    const { pages, plan } = await template(demo('seven-string-fan'), { paper: 'letter' });
+    expect(plan.orientation).toBe('landscape');
+    expect(pages.length).toBe(plan.tiles.length);
+    expect(pages.length).toBeGreaterThan(1);
+    for (const page of pages) {
+      expectNearPt(page.widthPt, 792, 'Letter width');
+      expectNearPt(page.heightPt, 612, 'Letter height');
+    }
+  });
+
+  it('uses A4 pages of 595.28 x 841.89 pt when asked for portrait (ISO 216: 210 x 297 mm)', async () => {
+    const { pages } = await template(demo('classical-650'), { paper: 'a4', orientation: 'portrait' });
+    for (const page of pages) {
+      expectNearPt(page.widthPt, 595.28, 'A4 width');
+      expectNearPt(page.heightPt, 841.89, 'A4 height');
+    }
+  });
+
+  it('picks the orientation needing fewer pages, and a single page sized to the board for "fit"', async () => {
+    const design = demo('seven-string-fan');
+    const auto = await template(design, { paper: 'letter' });
+    const portrait = await template(design, { paper: 'letter', orientation: 'portrait' });
+    expect(portrait.pages.length).toBeGreaterThanOrEqual(auto.pages.length);
+    const fit = await template(design, { paper: 'fit' });
+    expect(fit.pages.length).toBe(1);
+    // The saddle of the 686 mm bass string lies past 686 mm from the nut's bass end: the page is wider.
+    expect(fit.pages[0]!.widthPt).toBeGreaterThan(686 * PT_PER_MM);
+  });
+
+  it('draws a 100 mm bar of 283.465 pt and a 4 in bar of 288 pt on every page (ISO 32000-1 units)', async () => {
+    const { pages } = await template(demo('seven-string-fan'), { paper: 'a4' });
+    for (const page of pages) {
+      const [mm] = page.tagged.get('CalibrationBar100mm') ?? [];
+      const [inch] = page.tagged.get('CalibrationBar4in') ?? [];
+      expect(mm && inch).toBeTruthy();
+      expectNearPt(length(mm!), 283.465, '100 mm bar');
+      expectNearPt(length(inch!), 288, '4 in bar');
+    }
+  });
+
+  it('places every fret line at the geometry x 72/25.4 after undoing the tile offset, and overlapping tiles agree', async () => {
+    const { pages, plan, layout } = await template(demo('seven-string-fan'), { paper: 'letter', overlap: 20 });
+    const seenOn = new Map<number, number>();
+    for (const fret of layout.frets) {
+      const start = sheetMm(layout, fret.line.start, false);
+      const end = sheetMm(layout, fret.line.end, false);
+      pages.forEach((page, index) => {
+        for (const segment of fretSegments(page, fret.number)) {
+          const a = undoTile(plan, index, segment.x1, segment.y1);
+          const b = undoTile(plan, index, segment.x2, segment.y2);
+          expectNearPt(a.x, start.x * PT_PER_MM, `fret ${fret.number} treble x, page ${index + 1}`);
+          expectNearPt(a.y, start.y * PT_PER_MM, `fret ${fret.number} treble y, page ${index + 1}`);
+          expectNearPt(b.x, end.x * PT_PER_MM, `fret ${fret.number} bass x, page ${index + 1}`);
+          expectNearPt(b.y, end.y * PT_PER_MM, `fret ${fret.number} bass y, page ${index + 1}`);
+          seenOn.set(fret.number, (seenOn.get(fret.number) ?? 0) + 1);
+        }
+      });
+    }
+    for (const fret of layout.frets) expect(seenOn.get(fret.number) ?? 0).toBeGreaterThan(0);
+    // With a 20 mm overlap some frets fall where two pages overlap; they were checked on both.
+    expect([...seenOn.values()].some((count) => count >= 2)).toBe(true);
+  });
+
+  it('puts each alignment mark on every page that shares its overlap, at the same board position', async () => {
+    const { pages, plan } = await template(demo('seven-string-fan'), { paper: 'a4', orientation: 'portrait' });
+    expect(plan.marks.length).toBeGreaterThan(0);
+    const centres: { x: number; y: number }[] = [];
+    pages.forEach((page, index) => {
+      const lines = page.tagged.get('AlignmentMark') ?? [];
+      for (let i = 0; i + 1 < lines.length; i += 2) {
+        const across = lines[i]!;
+        centres.push(undoTile(plan, index, (across.x1 + across.x2) / 2, (across.y1 + across.y2) / 2));
+      }
+    });
+    for (const mark of plan.marks) {
+      const matches = centres.filter(
+        (c) => Math.abs(c.x - mark.x * PT_PER_MM) <= TOLERANCE_PT && Math.abs(c.y - mark.y * PT_PER_MM) <= TOLERANCE_PT,
+      );
+      expect(matches.length).toBeGreaterThanOrEqual(2);
+    }
+  });
+
+  it('mirrors the drawing across the centre line for templates glued face-down', async () => {
+    const { pages, plan, layout } = await template(demo('classical-650'), { paper: 'fit', mirror: true });
+    const fret = layout.frets[11]!;
+    const [segment] = fretSegments(pages[0]!, fret.number);
+    const start = sheetMm(layout, fret.line.start, true);
+    const a = undoTile(plan, 0, segment!.x1, segment!.y1);
+    expectNearPt(a.y, start.y * PT_PER_MM, 'mirrored treble y');
+    expect(start.y).toBeGreaterThan(0);
+  });
+
+  it('draws a design in inches at 72 pt per inch', async () => {
+    const { pages, plan, layout } = await template(demo('mandolin'), { paper: 'letter' });
+    expect(layout.units).toBe('in');
+    const fret = layout.frets[6]!;
+    const index = pages.findIndex((page) => fretSegments(page, fret.number).length > 0);
+    const segment = fretSegments(pages[index]!, fret.number)[0]!;
+    const a = undoTile(plan, index, segment.x1, segment.y1);
+    expectNearPt(a.x, fret.line.start.x * 72, 'fret 7 x in points');
+  });
+
+  it('prints the caution and the title block on every page, with the font embedded (pdffonts)', async () => {
+    const design = demo('seven-string-fan');
+    const { bytes, pages } = await template(design, { paper: 'letter' });
+    for (let page = 1; page <= pages.length; page++) {
+      const text = pageText(bytes, page);
+      expect(text).toContain('Print at 100 % / actual size. Measure both bars before cutting.');
+      expect(text).toContain(design.name);
+      expect(text).toContain('Perpendicular fret 8');
+      expect(text).toContain('revision 2');
+      expect(text).toContain(`of ${pages.length}`);
+    }
+    const fonts = pdfFonts(bytes);
+    expect(fonts.length).toBe(1);
+    expect(fonts[0]!.name).toMatch(/JetBrainsMono/);
+    expect(fonts[0]!.embedded).toBe(true);
+  });
+
+  it('renders a tiled page to PNG (test-results/paper-template-page-2.png) with the drawing on it', async () => {
+    const { bytes } = await template(demo('seven-string-fan'), { paper: 'letter', strings: true });
+    const dir = process.env.ARTIFACTS_DIR ?? 'test-results';
+    mkdirSync(dir, { recursive: true });
+    const path = renderPage(bytes, 2, join(dir, 'paper-template-page-2'));
+    const png = PNG.sync.read(readFileSync(path));
+    // Letter landscape at 100 dpi: 1100 x 850 pixels.
+    expect(png.width).toBe(1100);
+    expect(png.height).toBe(850);
+    let dark = 0;
+    for (let i = 0; i < png.data.length; i += 4) if (png.data[i]! < 100) dark++;
+    expect(dark).toBeGreaterThan(1000);
+  });
+});

@@ -1,0 +1,26 @@
+import { describe, expect, it } from 'vitest';
+import { safeNextPath } from '~/lib/http/safe-next.ts';
+
+describe('safeNextPath (where sign-in may send a person)', () => {
+  it('keeps same-site relative paths with their query and fragment', () => {
+    expect(safeNextPath('/members', '/x')).toBe('/members');
+    expect(safeNextPath('/boards?sort=name#top', '/x')).toBe('/boards?sort=name#top');
+  });
+
+  it.each([
+    ['https://elsewhere.example/'],
+    ['//elsewhere.example/path'],
+    ['/\\elsewhere.example'],
+    ['javascript:alert(1)'],
+    ['members'],
+    ['/\tfoo'],
+    [''],
+  ])('falls back for %j', (next) => {
+    expect(safeNextPath(next, '/fallback')).toBe('/fallback');
+  });
+
+  it('falls back when there is no next at all', () => {
+    expect(safeNextPath(null, '/home')).toBe('/home');
+    expect(safeNextPath(undefined, '/home')).toBe('/home');
+  });
+});
