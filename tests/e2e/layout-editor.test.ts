@@ -147,6 +147,11 @@ describe('Layout editor in Chromium (built server)', () => {
     expect(csv).toBe(await api.text());
     expect(csv.trim().split('\n').length).toBe(1 + 7 * 24);
 
+    // The Exports tab holds the Export panel for the same design.
+    await page.getByRole('tab', { name: 'Exports' }).click();
+    await page.getByRole('button', { name: 'Paper template (PDF)' }).waitFor();
+    await page.getByRole('tab', { name: 'Fret table' }).click();
+
     mkdirSync(ARTIFACTS_DIR, { recursive: true });
     await page.getByTestId('board-drawing').screenshot({ path: join(ARTIFACTS_DIR, 'layout-editor-drawing.png') });
     await page.screenshot({ path: join(ARTIFACTS_DIR, 'layout-editor-page.png'), fullPage: true });

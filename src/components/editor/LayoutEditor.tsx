@@ -6,7 +6,7 @@
  * The preview is computed here with the shared geometry module at every change; POST /api/layout
  * checks it (see use-server-check.ts) and wins if it ever disagrees.
  */
-import { useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
+import { Suspense, lazy, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import { computeLayout, type Layout } from '~/lib/geometry/layout';
 import { blankDesign } from '~/lib/presets/blank-design';
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
@@ -32,6 +32,9 @@ export interface LayoutEditorProps {
   /** Where the design is kept in edit mode; the scratch design in this browser by default. */
   storage?: DesignStorage;
 }
+
+// Loaded when the Exports tab first opens, so the drawing's own script stays small.
+const ExportPanel = lazy(() => import('~/components/export/ExportPanel'));
 
 const BLANK_PRESET_ID = 'blank';
 const PRESETS: readonly PresetChoice[] = [
@@ -176,11 +179,16 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
               {tab === 'table' || !editing ? (
                 <FretTablePanel layout={settledLayout} design={settledDesign} />
               ) : (
-                // Mount point for the exports work: src/components/export/ExportPanel.tsx,
-                // rendered here as <ExportPanel design={design} />.
-                <p className="rounded border border-dashed border-ink-faint bg-white p-3 text-sm text-ink-soft" data-mount="export-panel">
-                  Paper template and Slot paths exports for this design will appear here.
-                </p>
+                <div className="space-y-2">
+                  {!validation.ok && (
+                    <p className="rounded border border-caution bg-caution-light p-2 text-sm" role="status">
+                      The form has errors: these exports are of the last valid layout, not what the form shows.
+                    </p>
+                  )}
+                  <Suspense fallback={<p className="text-sm" role="status">Loading the exports…</p>}>
+                    <ExportPanel design={design} />
+                  </Suspense>
+                </div>
               )}
             </div>
           </section>
