@@ -10,11 +10,15 @@ export default defineConfig({
   server: { host: '127.0.0.1', port: 4321 },
   // src/middleware.ts checks the Origin of every non-GET request (forms and JSON alike) against
   // APP_ORIGIN (src/lib/http/same-origin.ts). Astro's own check is off: behind an untrusted Host
-  // header it compares against "http://localhost", and it would refuse cookie-less scripts too.
+  // header it compares against "http://localhost".
   security: { checkOrigin: false },
   devToolbar: { enabled: false },
-  // Astro hashes every script and style it emits into a CSP <meta>; only our own origin is
-  // allowed. frame-ancestors cannot live in a <meta>, so middleware sends it as a header too.
+  // Vite inlines small assets (some font subsets) as data: URLs, which font-src 'self' blocks;
+  // emitting every asset as a file keeps the policy strict.
+  vite: { build: { assetsInlineLimit: 0 } },
+  // Astro hashes every script and style it emits into the page's CSP (a response header for
+  // on-demand pages); only our own origin is allowed. Astro does not emit frame-ancestors, so
+  // middleware merges it into that header (src/lib/http/security-headers.ts).
   experimental: {
     csp: {
       directives: [

@@ -10,6 +10,7 @@ source scripts/lib/build.sh
 
 ensure_node_modules
 ensure_mariadb
+ensure_mariadb_dump
 ensure_chromium
 ensure_poppler
 
@@ -55,7 +56,7 @@ npx vitest run --project unit --project integration \
 
 say "building the app"
 if (build_if_changed); then
-  node dist/server/entry.mjs >"$work/server.log" 2>&1 & pids+=($!)
+  start_app_server >"$work/server.log" 2>&1 & pids+=($!)
   if wait_http "$APP_ORIGIN/api/version" 30; then
     say "browser tests (Chromium) against $APP_ORIGIN"
     npx vitest run --project e2e --reporter=default --reporter=json --outputFile.json="$results/e2e.json"

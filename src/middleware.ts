@@ -3,7 +3,7 @@
  * and a 503 instead of a 500 when the database is down. Roles are checked again in each route.
  */
 import { defineMiddleware, sequence } from 'astro:middleware';
-import { resolveSession, SESSION_COOKIE } from '~/lib/auth/index.server.ts';
+import { resolveSession } from '~/lib/auth/index.server.ts';
 import { config } from '~/lib/config/env.server.ts';
 import { isDbUnavailable } from '~/lib/db/db-errors.ts';
 import { problem } from '~/lib/http/problem.ts';
@@ -16,8 +16,7 @@ const headers = defineMiddleware(async (_context, next) => withSecurityHeaders(a
 
 const sameOrigin = defineMiddleware((context, next) => {
   // Only APP_ORIGIN: the request URL's own origin is built from an untrusted Host header.
-  const hasSessionCookie = context.cookies.has(SESSION_COOKIE);
-  if (!isSameOriginRequest({ request: context.request, allowedOrigins: [config().appOrigin], hasSessionCookie })) {
+  if (!isSameOriginRequest(context.request, [config().appOrigin])) {
     return problem(403, 'Cross-site request refused: the Origin header must be this site');
   }
   return next();

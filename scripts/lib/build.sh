@@ -15,3 +15,9 @@ build_if_changed() {
   rm -f /tmp/kerfline-build.$$.log
   echo "$want" > dist/.source-hash
 }
+
+# Runs the built server on HOST:PORT (security headers on static files too). Call it in the
+# background (`start_app_server & pid=$!`): exec makes $! the server itself, so TERM reaches it.
+start_app_server() {
+  exec node scripts/serve-built-app.mjs
+}

@@ -32,6 +32,11 @@ ensure_mariadb() {
   fi
 }
 
+# mariadb-dump (backups) is in Debian's full client package, not in mariadb-client-core.
+ensure_mariadb_dump() {
+  command -v mariadb-dump >/dev/null 2>&1 || { say "installing mariadb-client (mariadb-dump)"; apt_install mariadb-client; }
+}
+
 ensure_chromium() {
   if [ ! -x /usr/bin/chromium ]; then
     say "installing Chromium from Debian's packages (browser tests)"

@@ -7,13 +7,13 @@ const fan = readFileSync('fixtures/designs/seven-string-fan.json', 'utf8');
 function post(body: string, headers: Record<string, string> = {}, query = ''): Promise<Response> {
   return fetch(`${BASE_URL}/api/layout${query}`, {
     method: 'POST',
-    headers: { 'content-type': 'application/json', ...headers },
+    headers: { 'content-type': 'application/json', origin: BASE_URL, ...headers },
     body,
   });
 }
 
 describe('POST /api/layout on the built server', () => {
-  it('answers a script (no Origin, no cookie) with the fret table CSV for the fanned 7-string', async () => {
+  it('answers a script (no cookie, Origin set) with the fret table CSV for the fanned 7-string', async () => {
     const response = await post(fan, {}, '?format=csv');
     expect(response.status).toBe(200);
     expect(response.headers.get('content-type')).toMatch(/^text\/csv/);
@@ -23,15 +23,17 @@ describe('POST /api/layout on the built server', () => {
   });
 
   it('answers JSON whose outer strings have the design scale lengths', async () => {
-    const response = await post(fan, { origin: BASE_URL });
+    const response = await post(fan);
     expect(response.status).toBe(200);
     const layout = (await response.json()) as { strings: { index: number; scaleLength: number }[] };
     expect(layout.strings[0]!.scaleLength).toBe(648);
     expect(layout.strings.at(-1)!.scaleLength).toBe(686);
   });
 
-  it('refuses a write from another site with 403 (CSRF)', async () => {
+  it('refuses a write from another site, or naming no origin, with 403 (CSRF)', async () => {
     expect((await post(fan, { origin: 'https://elsewhere.example' })).status).toBe(403);
+    const noOrigin = await fetch(`${BASE_URL}/api/layout`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: fan });
+    expect(noOrigin.status).toBe(403);
   });
 
   it('answers bad input with 4xx naming the field, never a 500', async () => {

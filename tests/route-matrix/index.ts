@@ -1,7 +1,8 @@
 import { ACCOUNT_ROUTES } from './accounts.ts';
 import { EXPORT_ROUTES } from './exports.ts';
 import { SITE_ROUTES } from './site.ts';
+import { PROOF_ROUTES } from './proof.ts';
 import type { RouteCase } from './types.ts';
 
 /** Every feature's route list; add yours here. */
-export const ROUTE_CASES: readonly RouteCase[] = [...SITE_ROUTES, ...ACCOUNT_ROUTES, ...EXPORT_ROUTES];
+export const ROUTE_CASES: readonly RouteCase[] = [...SITE_ROUTES, ...ACCOUNT_ROUTES, ...EXPORT_ROUTES, ...PROOF_ROUTES];

@@ -11,11 +11,16 @@ export async function mailsTo(email: string): Promise<OutboxMessage[]> {
   return (await readOutbox(outboxDir())).filter((m) => m.to.includes(email));
 }
 
-/** The newest mail to `email` whose subject matches, waiting up to `ms` for it to arrive. */
-export async function waitForMail(email: string, subject: RegExp, ms = 5000): Promise<OutboxMessage> {
+/** The newest mail to `email` whose subject (and optional test) match, waiting up to `ms` for it. */
+export async function waitForMail(
+  email: string,
+  subject: RegExp,
+  ms = 5000,
+  also: (m: OutboxMessage) => boolean = () => true,
+): Promise<OutboxMessage> {
   const until = Date.now() + ms;
   for (;;) {
-    const found = (await mailsTo(email)).find((m) => subject.test(m.subject));
+    const found = (await mailsTo(email)).find((m) => subject.test(m.subject) && also(m));
     if (found) return found;
     if (Date.now() > until) throw new Error(`no mail to ${email} matching ${subject} within ${ms} ms`);
     await new Promise((r) => setTimeout(r, 100));

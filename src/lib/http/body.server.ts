@@ -1,6 +1,6 @@
 /**
  * Reads a request body with the size limit enforced before parsing: Content-Length is checked
- * first, then the stream is cut off as soon as it passes the limit.
+ * first, then nothing past the limit is kept or parsed as the stream arrives.
  */
 import { problem } from './problem.ts';
 
@@ -16,8 +16,28 @@ function mediaType(request: Request): string {
   return (request.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
 }
 
-function tooLarge(maxBytes: number): Response {
-  return problem(413, `Request body is larger than ${Math.round(maxBytes / 1024)} KiB`, { field: '(body)' });
+/**
+ * An over-limit body that keeps streaming is read and dropped up to this many bytes, so the client
+ * gets the 413 on a connection it can reuse; a longer one is cut off and the connection closed.
+ */
+const DISCARD_MAX_BYTES = 8 * 1024 * 1024;
+
+function tooLarge(maxBytes: number, connection: 'keep-alive' | 'close'): Response {
+  const headers: Record<string, string> = connection === 'close' ? { connection: 'close' } : {};
+  return problem(413, `Request body is larger than ${Math.round(maxBytes / 1024)} KiB`, { field: '(body)' }, headers);
+}
+
+/** Drops the rest of the body; false when it was cut off at DISCARD_MAX_BYTES. */
+async function discardRest(reader: ReadableStreamDefaultReader<Uint8Array>, readSoFar: number): Promise<boolean> {
+  for (let total = readSoFar; ; ) {
+    const { done, value } = await reader.read();
+    if (done) return true;
+    total += value.byteLength;
+    if (total > DISCARD_MAX_BYTES) {
+      await reader.cancel();
+      return false;
+    }
+  }
 }
 
 /** The raw body as bytes, or a 413/415 response. */
@@ -30,7 +50,8 @@ export async function readBytes(request: Request, options: ReadBodyOptions): Pro
     };
   }
   const declared = Number(request.headers.get('content-length') ?? '0');
-  if (declared > options.maxBytes) return { ok: false, response: tooLarge(options.maxBytes) };
+  // Unread, a declared body is drained by Node's HTTP server itself, keeping the connection.
+  if (declared > options.maxBytes) return { ok: false, response: tooLarge(options.maxBytes, 'keep-alive') };
   const chunks: Uint8Array[] = [];
   let total = 0;
   if (request.body) {
@@ -40,8 +61,8 @@ export async function readBytes(request: Request, options: ReadBodyOptions): Pro
       if (done) break;
       total += value.byteLength;
       if (total > options.maxBytes) {
-        await reader.cancel();
-        return { ok: false, response: tooLarge(options.maxBytes) };
+        const drained = await discardRest(reader, total);
+        return { ok: false, response: tooLarge(options.maxBytes, drained ? 'keep-alive' : 'close') };
       }
       chunks.push(value);
     }

@@ -1,29 +1,46 @@
-/** Headers every response carries (the CSP itself comes from Astro's hashed <meta>). */
-export const SECURITY_HEADERS: Readonly<Record<string, string>> = {
-  'x-content-type-options': 'nosniff',
-  'referrer-policy': 'same-origin',
-  'x-frame-options': 'DENY',
-  'content-security-policy': "frame-ancestors 'none'; object-src 'none'; base-uri 'self'",
-  'cross-origin-opener-policy': 'same-origin',
-  'permissions-policy': 'camera=(), microphone=(), geolocation=()',
-};
+/**
+ * Headers every response carries. Pages also get Astro's hashed CSP (astro.config.mjs); its
+ * directives are kept and ours (frame-ancestors, which Astro does not emit) are added to it, so a
+ * page has one policy with both. The values live in JSON so scripts/serve-built-app.mjs can put
+ * them on the static files the adapter serves before this middleware runs.
+ */
+import headers from './security-headers.json';
 
-export function withSecurityHeaders(response: Response): Response {
-  for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
-    if (!response.headers.has(name)) {
-      try {
-        response.headers.set(name, value);
-      } catch {
-        // Some responses (e.g. redirects built by Response.redirect) have immutable headers.
-        return new Response(response.body, { status: response.status, headers: mergedHeaders(response) });
-      }
-    }
-  }
-  return response;
+export const SECURITY_HEADERS: Readonly<Record<string, string>> = headers;
+
+const CSP = 'content-security-policy';
+
+function directiveName(directive: string): string {
+  return directive.trim().split(/\s+/)[0]!.toLowerCase();
 }
 
-function mergedHeaders(response: Response): Headers {
-  const headers = new Headers(response.headers);
-  for (const [name, value] of Object.entries(SECURITY_HEADERS)) if (!headers.has(name)) headers.set(name, value);
-  return headers;
+/** `policy` with every directive of `base` that it does not set itself appended. */
+export function mergeCsp(policy: string, base: string): string {
+  const present = new Set(policy.split(';').filter((d) => d.trim()).map(directiveName));
+  const missing = base.split(';').filter((d) => d.trim() && !present.has(directiveName(d)));
+  if (missing.length === 0) return policy;
+  const kept = policy.trim().replace(/;$/, '');
+  return [kept, ...missing.map((d) => d.trim())].join('; ');
+}
+
+/** The headers a response should carry: its own, plus every missing security header. */
+export function securedHeaders(existing: Headers): Headers {
+  const result = new Headers(existing);
+  for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
+    const current = result.get(name);
+    if (current === null) result.set(name, value);
+    else if (name === CSP) result.set(name, mergeCsp(current, value));
+  }
+  return result;
+}
+
+export function withSecurityHeaders(response: Response): Response {
+  const wanted = securedHeaders(response.headers);
+  try {
+    for (const [name, value] of wanted) response.headers.set(name, value);
+    return response;
+  } catch {
+    // Some responses (e.g. redirects built by Response.redirect) have immutable headers.
+    return new Response(response.body, { status: response.status, statusText: response.statusText, headers: wanted });
+  }
 }

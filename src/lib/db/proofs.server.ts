@@ -1,0 +1,250 @@
+/**
+ * Proofs: a design revision shared with a client through a link. The link's token is returned
+ * once at creation and only its SHA-256 is stored. Every builder-side query is scoped by shop;
+ * the client side finds a proof by its token, or by id for the signed-in client it was sent to.
+ * Time is always passed in (`now`) so expiry can be tested with a fixed clock.
+ */
+import { and, desc, eq, gt, isNull, type SQL } from 'drizzle-orm';
+import { newToken, sha256Hex } from '~/lib/auth/tokens.ts';
+import { config } from '~/lib/config/env.server.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import type {
+  CreateProofInput,
+  CreatedProof,
+  DecisionInput,
+  ProofDecision,
+  ProofState,
+  ProofSummary,
+  SharedProof,
+} from '~/lib/schemas/proof.ts';
+import { db } from './client.server.ts';
+import { findRevisionDesign, findShopDesign, setDesignStatus } from './proof-design.server.ts';
+import { designRevisions, designs, proofs, shops, users } from './schema.ts';
+import { mailBuilderDecision, mailClientProof } from '~/lib/mail/proof-mails.server.ts';
+
+const DAY_MS = 86_400_000;
+
+/** The signed-in builder or owner acting on proofs. */
+export interface ProofWriter {
+  id: string;
+  shopId: number;
+}
+
+/** How the client side finds a proof: by link token, or by id for the signed-in client. */
+export type ProofLocator = { token: string } | { proofId: number; shopId: number; clientEmail: string };
+
+/** Everything the proof page shows: one revision of one design, and nothing that leads elsewhere. */
+export interface ProofPage {
+  shopName: string;
+  designName: string;
+  revision: number;
+  newerRevisionExists: boolean;
+  clientName: string;
+  message: string;
+  expiresAt: string;
+  design: Design;
+  decision: ProofDecision | null;
+}
+
+export type DecideResult =
+  | { ok: true; decision: ProofDecision; mailed: boolean }
+  | { ok: false; reason: 'not_found' | 'already_decided' | 'expired' };
+
+type ProofRow = typeof proofs.$inferSelect;
+
+export function proofLink(token: string): string {
+  return `${config().appOrigin}/p/${token}`;
+}
+
+function decisionOf(row: ProofRow): ProofDecision | null {
+  if (!row.decision || !row.decidedAt) return null;
+  return { kind: row.decision, at: row.decidedAt.toISOString(), name: row.decidedName ?? '', comment: row.decisionComment ?? '' };
+}
+
+function stateOf(row: ProofRow, now: Date): ProofState {
+  if (row.revokedAt) return 'revoked';
+  if (row.decision) return row.decision;
+  return row.expiresAt.getTime() <= now.getTime() ? 'expired' : 'open';
+}
+
+function toSummary(row: ProofRow, now: Date): ProofSummary {
+  return {
+    id: row.id,
+    revision: row.revision,
+    clientName: row.clientName,
+    clientEmail: row.clientEmail,
+    message: row.message,
+    createdAt: row.createdAt.toISOString(),
+    expiresAt: row.expiresAt.toISOString(),
+    revokedAt: row.revokedAt?.toISOString() ?? null,
+    state: stateOf(row, now),
+    decision: decisionOf(row),
+  };
+}
+
+/** Where-clause of a locator; revoked proofs are never found from the client side. */
+function locate(locator: ProofLocator): SQL | undefined {
+  const notRevoked = isNull(proofs.revokedAt);
+  if ('token' in locator) return and(eq(proofs.tokenHash, sha256Hex(locator.token)), notRevoked);
+  return and(
+    eq(proofs.id, locator.proofId),
+    eq(proofs.shopId, locator.shopId),
+    eq(proofs.clientEmail, locator.clientEmail.toLowerCase()),
+    notRevoked,
+  );
+}
+
+/**
+ * Creates a proof of the design's current revision, marks the design as shared and e-mails the
+ * client the link. Null when the design is not in the writer's shop.
+ */
+export async function createProof(writer: ProofWriter, designId: number, input: CreateProofInput, now: Date): Promise<CreatedProof | null> {
+  const token = newToken();
+  const created = await db().transaction(async (tx) => {
+    const head = await findShopDesign(tx, writer.shopId, designId);
+    if (!head) return null;
+    const [inserted] = await tx
+      .insert(proofs)
+      .values({
+        shopId: writer.shopId,
+        designId,
+        revision: head.currentRevision,
+        tokenHash: sha256Hex(token),
+        clientName: input.clientName,
+        clientEmail: input.clientEmail,
+        message: input.message,
+        expiresAt: new Date(now.getTime() + input.expiresInDays * DAY_MS),
+        createdBy: writer.id,
+        createdAt: now,
+      })
+      .$returningId();
+    await setDesignStatus(tx, writer.shopId, designId, 'shared');
+    const [row] = await tx.select().from(proofs).where(eq(proofs.id, inserted!.id));
+    return { head, row: row! };
+  });
+  if (!created) return null;
+  const [shop] = await db().select({ name: shops.name }).from(shops).where(eq(shops.id, writer.shopId));
+  const link = proofLink(token);
+  const mailed = await mailClientProof({
+    to: created.row.clientEmail,
+    clientName: created.row.clientName,
+    shopName: shop?.name ?? '',
+    designName: created.head.name,
+    revision: created.row.revision,
+    message: created.row.message,
+    expiresAt: created.row.expiresAt,
+    link,
+  });
+  return { proof: toSummary(created.row, now), link, mailed };
+}
+
+/** The proof page's content, or null for unknown, revoked and expired proofs alike. */
+export async function openProof(locator: ProofLocator, now: Date): Promise<ProofPage | null> {
+  const [found] = await db()
+    .select({ proof: proofs, shopName: shops.name, currentRevision: designs.currentRevision })
+    .from(proofs)
+    .innerJoin(designs, eq(designs.id, proofs.designId))
+    .innerJoin(shops, eq(shops.id, proofs.shopId))
+    .where(and(locate(locator), gt(proofs.expiresAt, now)))
+    .limit(1);
+  if (!found) return null;
+  const design = await findRevisionDesign(db(), found.proof.designId, found.proof.revision);
+  if (!design) return null;
+  return {
+    shopName: found.shopName,
+    designName: design.name,
+    revision: found.proof.revision,
+    newerRevisionExists: found.currentRevision > found.proof.revision,
+    clientName: found.proof.clientName,
+    message: found.proof.message,
+    expiresAt: found.proof.expiresAt.toISOString(),
+    design,
+    decision: decisionOf(found.proof),
+  };
+}
+
+/**
+ * Records the client's answer once. The update itself re-checks "not decided, not revoked, not
+ * expired", so two answers racing each other cannot both be recorded. The design's status follows
+ * the answer when the proof shows its current revision (an answer to an older proof is kept in
+ * the history but does not speak for the newer geometry). The builder who sent it gets an e-mail.
+ */
+export async function decideProof(locator: ProofLocator, input: DecisionInput, now: Date): Promise<DecideResult> {
+  const [row] = await db().select().from(proofs).where(locate(locator)).limit(1);
+  if (!row) return { ok: false, reason: 'not_found' };
+  if (row.decision) return { ok: false, reason: 'already_decided' };
+  if (row.expiresAt.getTime() <= now.getTime()) return { ok: false, reason: 'expired' };
+  const comment = input.decision === 'changes_requested' ? input.comment : '';
+  const recorded = await db().transaction(async (tx) => {
+    const [result] = await tx
+      .update(proofs)
+      .set({ decision: input.decision, decidedAt: now, decidedName: input.name, decisionComment: comment })
+      .where(and(eq(proofs.id, row.id), isNull(proofs.decision), isNull(proofs.revokedAt), gt(proofs.expiresAt, now)));
+    if (result.affectedRows !== 1) return null;
+    const head = await findShopDesign(tx, row.shopId, row.designId);
+    if (head && head.currentRevision === row.revision) await setDesignStatus(tx, row.shopId, row.designId, input.decision);
+    return head;
+  });
+  if (!recorded) return { ok: false, reason: 'already_decided' };
+  const decision: ProofDecision = { kind: input.decision, at: now.toISOString(), name: input.name, comment };
+  const [builder] = await db().select({ email: users.email }).from(users).where(eq(users.id, row.createdBy));
+  const mailed = builder
+    ? await mailBuilderDecision({
+        to: builder.email,
+        designName: recorded.name,
+        designId: row.designId,
+        revision: row.revision,
+        clientName: row.clientName,
+        decision,
+      })
+    : false;
+  return { ok: true, decision, mailed };
+}
+
+/** Revokes a proof of the shop (again is harmless). Null when there is no such proof in the shop. */
+export async function revokeProof(shopId: number, proofId: number, now: Date): Promise<ProofSummary | null> {
+  await db()
+    .update(proofs)
+    .set({ revokedAt: now })
+    .where(and(eq(proofs.id, proofId), eq(proofs.shopId, shopId), isNull(proofs.revokedAt)));
+  const [row] = await db().select().from(proofs).where(and(eq(proofs.id, proofId), eq(proofs.shopId, shopId)));
+  return row ? toSummary(row, now) : null;
+}
+
+/** The design's proofs, newest first; null when the design is not in the shop. */
+export async function listDesignProofs(shopId: number, designId: number, now: Date): Promise<ProofSummary[] | null> {
+  const head = await findShopDesign(db(), shopId, designId);
+  if (!head) return null;
+  const rows = await db()
+    .select()
+    .from(proofs)
+    .where(and(eq(proofs.shopId, shopId), eq(proofs.designId, designId)))
+    .orderBy(desc(proofs.createdAt), desc(proofs.id));
+  return rows.map((row) => toSummary(row, now));
+}
+
+/** MariaDB stores JSON as text, so the driver may hand back a string. */
+function revisionName(data: unknown): string {
+  const value = typeof data === 'string' ? (JSON.parse(data) as unknown) : data;
+  const name = (value as { name?: unknown } | null)?.name;
+  return typeof name === 'string' ? name : '';
+}
+
+/** Proofs sent to a client's e-mail by the client's own shop, newest first ("Shared with me"). */
+export async function listSharedWith(shopId: number, email: string, now: Date): Promise<SharedProof[]> {
+  const rows = await db()
+    .select({ proof: proofs, data: designRevisions.data })
+    .from(proofs)
+    .innerJoin(designRevisions, and(eq(designRevisions.designId, proofs.designId), eq(designRevisions.revision, proofs.revision)))
+    .where(and(eq(proofs.shopId, shopId), eq(proofs.clientEmail, email.toLowerCase())))
+    .orderBy(desc(proofs.createdAt), desc(proofs.id));
+  return rows.map(({ proof, data }) => ({
+    id: proof.id,
+    designName: revisionName(data),
+    revision: proof.revision,
+    createdAt: proof.createdAt.toISOString(),
+    expiresAt: proof.expiresAt.toISOString(),
+    state: stateOf(proof, now),
+    decision: decisionOf(proof),
+  }));
+}

@@ -1,0 +1,44 @@
+/**
+ * Demo seed step: the demo client has a proof of the seven-string board waiting, so "Shared with
+ * me" shows something after `npm start`. Needs that design (seeded by the Boards step); without it
+ * this inserts nothing. The link token is thrown away (only its hash is stored, as for any proof):
+ * the demo client opens the proof from "Shared with me".
+ */
+import { and, eq, like } from 'drizzle-orm';
+import { newToken, sha256Hex } from '~/lib/auth/tokens.ts';
+import { designs, proofs } from '~/lib/db/schema.ts';
+import type { SeedStep } from './demo-shop.server.ts';
+
+const DEMO_CLIENT = { email: 'client@wrenfield.example', name: 'Ines Calloway' };
+const DEMO_BUILDER_EMAIL = 'builder@wrenfield.example';
+const DEMO_PROOF_DAYS = 365;
+
+export const seedDemoProof: SeedStep = async ({ db, shopId, people }) => {
+  const [design] = await db
+    .select({ id: designs.id, currentRevision: designs.currentRevision })
+    .from(designs)
+    .where(and(eq(designs.shopId, shopId), like(designs.name, '%Seven-string%')))
+    .limit(1);
+  const builderId = people.get(DEMO_BUILDER_EMAIL);
+  if (!design || !builderId) return;
+  const [existing] = await db
+    .select({ id: proofs.id })
+    .from(proofs)
+    .where(and(eq(proofs.designId, design.id), eq(proofs.clientEmail, DEMO_CLIENT.email)))
+    .limit(1);
+  if (existing) return;
+  await db.transaction(async (tx) => {
+    await tx.insert(proofs).values({
+      shopId,
+      designId: design.id,
+      revision: design.currentRevision,
+      tokenHash: sha256Hex(newToken()),
+      clientName: DEMO_CLIENT.name,
+      clientEmail: DEMO_CLIENT.email,
+      message: 'Here is the fanned seven-string board as we discussed: 648 to 686 mm, square at fret 8.',
+      expiresAt: new Date(Date.now() + DEMO_PROOF_DAYS * 86_400_000),
+      createdBy: builderId,
+    });
+    await tx.update(designs).set({ status: 'shared' }).where(eq(designs.id, design.id));
+  });
+};

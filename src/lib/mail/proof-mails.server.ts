@@ -1,0 +1,72 @@
+/**
+ * The two proof e-mails: the link to the client, and the client's answer to the builder. A failed
+ * send is reported as `false` rather than thrown, so the proof itself is never lost over mail.
+ * Nothing here logs: the client's message carries the link token.
+ */
+import { config } from '~/lib/config/env.server.ts';
+import type { ProofDecision } from '~/lib/schemas/proof.ts';
+import { sendMail } from './send.server.ts';
+
+export interface ClientProofMail {
+  to: string;
+  clientName: string;
+  shopName: string;
+  designName: string;
+  revision: number;
+  message: string;
+  expiresAt: Date;
+  link: string;
+}
+
+export interface BuilderDecisionMail {
+  to: string;
+  designName: string;
+  designId: number;
+  revision: number;
+  clientName: string;
+  decision: ProofDecision;
+}
+
+function day(date: Date): string {
+  return date.toISOString().slice(0, 10);
+}
+
+async function trySend(to: string, subject: string, lines: string[]): Promise<boolean> {
+  try {
+    await sendMail({ to, subject, text: `${lines.join('\n')}\n` });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+export function mailClientProof(mail: ClientProofMail): Promise<boolean> {
+  const from = mail.shopName || 'Your luthier';
+  return trySend(mail.to, `Please review your fretboard layout: ${mail.designName}`, [
+    `Hello ${mail.clientName},`,
+    '',
+    `${from} has shared the fret layout "${mail.designName}" (revision ${mail.revision}) for your review.`,
+    ...(mail.message ? ['', 'Their message:', ...mail.message.split('\n').map((line) => `  ${line}`)] : []),
+    '',
+    'Open it here (no account needed):',
+    mail.link,
+    '',
+    'On that page you can look at the board and its fret table, then approve it or ask for changes.',
+    `The link works until ${day(mail.expiresAt)}. Anyone with the link can answer, so please keep it to yourself.`,
+  ]);
+}
+
+export function mailBuilderDecision(mail: BuilderDecisionMail): Promise<boolean> {
+  const approved = mail.decision.kind === 'approved';
+  const subject = approved ? `Proof approved: ${mail.designName}` : `Changes requested: ${mail.designName}`;
+  return trySend(mail.to, subject, [
+    approved
+      ? `${mail.decision.name} approved revision ${mail.revision} of "${mail.designName}" on ${mail.decision.at}.`
+      : `${mail.decision.name} asked for changes to revision ${mail.revision} of "${mail.designName}" on ${mail.decision.at}.`,
+    `The proof was sent to ${mail.clientName}.`,
+    ...(mail.decision.comment ? ['', 'Their comment:', ...mail.decision.comment.split('\n').map((line) => `  ${line}`)] : []),
+    '',
+    'The design\'s proofs and their history:',
+    `${config().appOrigin}/boards/${mail.designId}/proofs`,
+  ]);
+}

@@ -1,0 +1,141 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
+import { createProof, revokeProof } from '~/lib/db/proofs.server.ts';
+import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
+import { ensureDesign } from '../support/designs.ts';
+import { linkIn, waitForMail } from '../support/outbox.ts';
+import { signInAs, type TestUser } from '../support/sessions.ts';
+import { closeDb } from '../support/test-db.ts';
+
+const DAY_MS = 86_400_000;
+
+let browser: Browser;
+let builder: TestUser;
+let designId: number;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  builder = await signInAs('builder@wrenfield.example');
+  designId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+});
+afterAll(async () => {
+  await browser?.close();
+  await closeDb();
+});
+
+/** The app's link, moved onto the server under test (e-mails use APP_ORIGIN, which is the same in npm test). */
+function onTestServer(link: string): string {
+  const url = new URL(link);
+  return `${BASE_URL}${url.pathname}`;
+}
+
+describe('Proof in Chromium (built server)', () => {
+  it('the builder shares the fanned 7-string, the client opens the e-mailed link without an account and approves', async () => {
+    const builderContext = await browser.newContext();
+    await builderContext.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
+    const panel = await builderContext.newPage();
+    await panel.goto(`${BASE_URL}/boards/${designId}/proofs`);
+    const email = `client-e2e-${Date.now()}@wrenfield.example`;
+    await panel.getByLabel('Client name').fill('Ines Calloway');
+    await panel.getByLabel('Client e-mail').fill(email);
+    await panel.getByLabel('Message to the client (optional)').fill('The fan we talked about: square at fret 8.');
+    await expect(panel.getByLabel('Link expires after (days)').inputValue()).resolves.toBe('30');
+    await panel.getByRole('button', { name: 'Send proof of the current revision' }).click();
+    await panel.getByText(`Proof sent to ${email}`).waitFor();
+    const shownLink = await panel.getByLabel(/Link for the client/).inputValue();
+
+    const mail = await waitForMail(email, /./);
+    expect(linkIn(mail, '/p/').url).toBe(shownLink);
+
+    const clientContext = await browser.newContext();
+    expect(await clientContext.cookies()).toEqual([]);
+    const proof = await clientContext.newPage();
+    const response = await proof.goto(onTestServer(shownLink));
+    expect(response?.status()).toBe(200);
+    const headers = response!.headers();
+    expect(headers['x-robots-tag']).toContain('noindex');
+    expect(headers['referrer-policy']).toBe('no-referrer');
+    expect(headers['cache-control']).toContain('no-store');
+    expect(headers['cache-control']).toContain('private');
+    expect(await proof.locator('meta[name="robots"]').getAttribute('content')).toContain('noindex');
+
+    await expect(proof.getByRole('heading', { level: 1 }).textContent()).resolves.toBe('Demo: seven-string multi-scale guitar');
+    const specs = await proof.locator('dl').textContent();
+    expect(specs).toContain('648.00 mm on the treble side to 686.00 mm on the bass side');
+    expect(specs).toContain('fret 8');
+    expect(await proof.getByText('The fan we talked about: square at fret 8.').count()).toBe(1);
+    expect(await proof.getByRole('row', { name: /^12 / }).count()).toBe(1);
+
+    const fret12 = proof.locator('[data-fret="12"]');
+    await fret12.hover();
+    expect(await fret12.locator('title').textContent()).toMatch(/^Fret 12: \d+\.\d\d mm from the nut on string 1, \d+\.\d\d mm on string 7$/);
+
+    const html = await proof.content();
+    for (const leak of [`/boards/${designId}`, '/api/designs', 'designId', 'shopId']) expect(html).not.toContain(leak);
+
+    const approve = proof.getByRole('form', { name: 'Approve' });
+    await approve.getByLabel('Your name').fill('Ines Calloway');
+    await approve.getByRole('checkbox').check();
+    await approve.getByRole('button', { name: 'Approve' }).click();
+    await proof.getByRole('heading', { name: /^Approved by Ines Calloway on / }).waitFor();
+    expect(await proof.getByRole('form', { name: 'Approve' }).count()).toBe(0);
+    expect(await proof.getByRole('form', { name: 'Request changes' }).count()).toBe(0);
+    await saveScreenshot(proof, 'proof-approved');
+
+    await panel.reload();
+    const row = panel.getByRole('row').filter({ hasText: email });
+    await row.waitFor();
+    expect(await row.locator('[data-label="state"]').textContent()).toBe('approved');
+    expect(await row.textContent()).toContain('Approved by Ines Calloway');
+    await saveScreenshot(panel, 'proof-panel-approved');
+    const answerMail = await waitForMail(builder.email, /^Proof approved: Demo: seven-string multi-scale guitar$/);
+    expect(answerMail.text).toContain('Ines Calloway approved revision');
+    await builderContext.close();
+    await clientContext.close();
+  });
+
+  it('a signed-in client finds the proof under Shared with me and asks for changes there', async () => {
+    const client = await signInAs('client@wrenfield.example');
+    const sent = await createProof(builder, designId, { clientName: 'Ines Calloway', clientEmail: client.email, message: 'Second look', expiresInDays: 30 }, new Date());
+    const context = await browser.newContext();
+    await context.addCookies([{ name: SESSION_COOKIE, value: client.token, url: BASE_URL }]);
+    const page = await context.newPage();
+    await page.goto(`${BASE_URL}/shared`);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Shared with me' }).waitFor();
+    await page.locator(`a[href="/shared/${sent!.proof.id}"]`).click();
+    await page.getByRole('heading', { level: 1, name: 'Demo: seven-string multi-scale guitar' }).waitFor();
+    const changes = page.getByRole('form', { name: 'Request changes' });
+    await changes.getByLabel('Your name').fill('Ines Calloway');
+    await changes.getByLabel(/What should change/).fill('Could the bass side be 690 mm?');
+    await changes.getByRole('button', { name: 'Request changes' }).click();
+    await page.getByRole('heading', { name: /^Changes requested by Ines Calloway on / }).waitFor();
+    expect(await page.getByText('Could the bass side be 690 mm?').count()).toBe(1);
+    await page.goto(`${BASE_URL}/shared`);
+    const row = await page.getByRole('row').filter({ has: page.locator(`a[href="/shared/${sent!.proof.id}"]`) }).textContent();
+    expect(row?.replace(/\s+/g, ' ')).toContain('changes requested by Ines Calloway');
+    await context.close();
+  });
+
+  it('unknown, expired, revoked and malformed links all get the same 404 page', async () => {
+    const input = { clientName: 'C', clientEmail: `gone-${Date.now()}@wrenfield.example`, message: '', expiresInDays: 1 };
+    const expired = await createProof(builder, designId, input, new Date(Date.now() - 2 * DAY_MS));
+    const revoked = await createProof(builder, designId, input, new Date());
+    await revokeProof(builder.shopId, revoked!.proof.id, new Date());
+    const paths = ['/p/AAAAAAAAAAAAAAAAAAAAAA', new URL(expired!.link).pathname, new URL(revoked!.link).pathname, '/p/not-a-token'];
+    const answers = [];
+    for (const path of paths) {
+      const response = await fetch(`${BASE_URL}${path}`);
+      answers.push({
+        status: response.status,
+        robots: response.headers.get('x-robots-tag'),
+        referrer: response.headers.get('referrer-policy'),
+        cache: response.headers.get('cache-control'),
+        body: await response.text(),
+      });
+    }
+    expect(answers[0]).toMatchObject({ status: 404, robots: 'noindex, nofollow', referrer: 'no-referrer', cache: 'private, no-store' });
+    expect(answers[0]!.body).toContain('This proof is not available');
+    for (const answer of answers.slice(1)) expect(answer).toEqual(answers[0]);
+  });
+});
