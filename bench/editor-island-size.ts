@@ -1,6 +1,6 @@
 /**
  * Bench: size of the Layout editor island's JavaScript, as a browser loads it for /layout.
- * Usage: tsx bench/editor-island-size.ts <base URL of a running built server> [dist/client]
+ * Usage: npm run bench, or tsx bench/editor-island-size.ts <base URL of a running built server> [dist/client]
  *
  * Reads the island's component and renderer scripts from the page, follows their static imports
  * through the built files in dist/client/_astro, and reports the total gzip size as JSON lines.
@@ -8,15 +8,12 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
+import { baseUrl, reportFigure } from './lib/figure.ts';
 
-const baseUrl = process.argv[2] ?? process.env.TEST_APP_URL;
+const origin = process.argv[2] ?? baseUrl();
 const clientDir = process.argv[3] ?? 'dist/client';
-if (!baseUrl) {
-  console.error('usage: tsx bench/editor-island-size.ts <base URL of a running built server> [dist/client]');
-  process.exit(2);
-}
 
-const html = await (await fetch(new URL('/layout', baseUrl))).text();
+const html = await (await fetch(new URL('/layout', origin))).text();
 const island = /<astro-island\b[^>]*>/.exec(html)?.[0] ?? '';
 const entries = [...island.matchAll(/(?:component|renderer)-url="([^"]+)"/g)].map((match) => match[1] ?? '');
 if (entries.length < 2) {
@@ -43,6 +40,6 @@ for (const file of files) {
   raw += bytes.length;
   gzip += gzipSync(bytes).length;
 }
-const kb = (bytes: number) => Math.round((bytes / 1024) * 10) / 10;
-console.log(JSON.stringify({ figure: 'editor island JavaScript (gzip)', value: kb(gzip), unit: 'KB', goal: '< 250', files: [...files].sort() }));
-console.log(JSON.stringify({ figure: 'editor island JavaScript (uncompressed)', value: kb(raw), unit: 'KB', goal: null }));
+const kib = (bytes: number) => Math.round((bytes / 1024) * 10) / 10;
+reportFigure({ figure: 'editor island JavaScript (gzip)', value: kib(gzip), unit: 'KiB', goal: '< 250', met: kib(gzip) < 250 });
+reportFigure({ figure: `editor island JavaScript (uncompressed, ${files.size} files)`, value: kib(raw), unit: 'KiB', goal: 'context' });

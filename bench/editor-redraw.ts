@@ -1,6 +1,6 @@
 /**
  * Bench: how long the Layout editor takes to recompute and redraw after a parameter change.
- * Usage: tsx bench/editor-redraw.ts <base URL of a running built server>
+ * Usage: npm run bench, or tsx bench/editor-redraw.ts <base URL of a running built server>
  *
  * In Chromium it types an 8-string, 36-fret fanned design into /layout, then changes the bass
  * scale back and forth. The island (redraw-timing.ts) reads performance.now() around compute
@@ -10,12 +10,9 @@
  */
 import type { Page } from 'playwright-core';
 import { launchBrowser } from '../tests/support/browser.ts';
+import { baseUrl, reportFigure } from './lib/figure.ts';
 
-const baseUrl = process.argv[2] ?? process.env.TEST_APP_URL;
-if (!baseUrl) {
-  console.error('usage: tsx bench/editor-redraw.ts <base URL of a running built server>');
-  process.exit(2);
-}
+const origin = process.argv[2] ?? baseUrl();
 
 const WARM_UP_CHANGES = 8;
 const MEASURED_CHANGES = 41;
@@ -58,7 +55,7 @@ try {
   await page.addInitScript(() => {
     window.__kerflineBench = { samples: [] };
   });
-  await page.goto(new URL('/layout', baseUrl).href, { waitUntil: 'networkidle' });
+  await page.goto(new URL('/layout', origin).href, { waitUntil: 'networkidle' });
   await page.getByLabel('Preset').selectOption({ label: 'Blank design' });
   await page.getByRole('button', { name: 'Start', exact: true }).click();
 
@@ -77,13 +74,32 @@ try {
   );
   const largeTotal = median(large.map((s) => s.totalMs));
   const smallTotal = median(small.map((s) => s.totalMs));
-  const lines = [
-    { figure: 'editor redraw after a parameter change, 8 strings 36 frets fanned: median compute + draw', value: round(largeTotal), unit: 'ms', goal: '< 8' },
-    { figure: 'editor redraw, 8 strings 36 frets: median compute (validate, layout, React commit)', value: round(median(large.map((s) => s.computeMs))), unit: 'ms', goal: null },
-    { figure: 'editor redraw, 8 strings 36 frets: median Konva draw of the board layer', value: round(median(large.map((s) => s.drawMs))), unit: 'ms', goal: null },
-    { figure: 'editor redraw: 8x36 fanned board / 6x22 board, medians in the same run', value: round(largeTotal / smallTotal), unit: 'ratio', goal: null },
-  ];
-  for (const line of lines) console.log(JSON.stringify({ ...line, samples: MEASURED_CHANGES }));
+  const context = `median of ${MEASURED_CHANGES} changes`;
+  reportFigure({
+    figure: 'editor redraw after a parameter change, 8 strings 36 frets fanned: median compute + draw',
+    value: round(largeTotal),
+    unit: 'ms',
+    goal: '< 8',
+    met: largeTotal < 8,
+  });
+  reportFigure({
+    figure: 'editor redraw, 8 strings 36 frets: median compute (validate, layout, React commit)',
+    value: round(median(large.map((s) => s.computeMs))),
+    unit: 'ms',
+    goal: context,
+  });
+  reportFigure({
+    figure: 'editor redraw, 8 strings 36 frets: median Konva draw of the board layer',
+    value: round(median(large.map((s) => s.drawMs))),
+    unit: 'ms',
+    goal: context,
+  });
+  reportFigure({
+    figure: 'editor redraw: 8x36 fanned board / 6x22 board, medians in the same run',
+    value: round(largeTotal / smallTotal),
+    unit: 'ratio',
+    goal: 'context',
+  });
 } finally {
   await browser.close();
 }
