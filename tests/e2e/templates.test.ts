@@ -36,9 +36,9 @@ afterAll(async () => {
   await closeDb();
 });
 
-/** Slot positions of a template made for 628.65 mm, as a caliper would report them (0.01 mm). */
+/** Slot positions of a 650 mm template shifted 0.3 mm at the nut, as a caliper reports them (0.01 mm). */
 function measuredCsv(): string {
-  const rows = Array.from({ length: 19 }, (_, i) => `${i + 1},${(628.65 * (1 - 2 ** (-(i + 1) / 12))).toFixed(2)}`);
+  const rows = Array.from({ length: 19 }, (_, i) => `${i + 1},${(650 * (1 - 2 ** (-(i + 1) / 12)) + 0.3).toFixed(2)}`);
   return `fret,from_nut\n${rows.join('\n')}\n`;
 }
 
@@ -51,7 +51,7 @@ describe('Template shelf and Template check in Chromium', () => {
 
     await page.goto(`${BASE_URL}/templates`);
     await expect(page.getByRole('heading', { name: 'Template shelf', level: 1 }).count()).resolves.toBe(1);
-    await page.getByLabel('Design').selectOption({ label: `${designName} (rev. 1)` });
+    await page.getByLabel('Design', { exact: true }).selectOption({ label: `${designName} (rev. 1)` });
     await page.getByLabel("Jig key width (design's units)").fill('0.5');
     await page.getByLabel('Material').fill('6 mm aluminium');
     await page.getByRole('button', { name: 'Add template' }).click();
@@ -70,7 +70,7 @@ describe('Template shelf and Template check in Chromium', () => {
     await page.getByLabel(/Measured positions CSV/).setInputFiles({ name: 'measured.csv', mimeType: 'text/csv', buffer: Buffer.from(measuredCsv()) });
     const verdict = page.getByTestId('check-verdict');
     await verdict.waitFor();
-    await expect(verdict.textContent()).resolves.toMatch(/^Fail\. .*fit a 628\.6\d mm scale, not 650\.00 mm/);
+    await expect(verdict.textContent()).resolves.toMatch(/^Fail\. .*shifted by a constant \+0\.30 mm at the nut/);
     const chart = page.getByRole('img', { name: /Deviation against fret number/ });
     await expect(chart.count()).resolves.toBe(1);
     await expect(chart.locator('path').count()).resolves.toBeGreaterThan(0); // crosses: slots outside tolerance
@@ -92,9 +92,13 @@ describe('Template shelf and Template check in Chromium', () => {
     const [name, value] = builder.cookie.split('=') as [string, string];
     await context.addCookies([{ name, value, url: BASE_URL }]);
     const page = await context.newPage();
-    await page.goto(`${BASE_URL}/templates`);
-    await page.getByRole('link', { name: designName }).first().click();
-    await page.waitForURL(/\/templates\/\d+$/);
+    const created = await page.request.post(`${BASE_URL}/api/templates`, {
+      headers: { origin: BASE_URL },
+      data: { source: 'typed', name: 'Shelf test: typed 635', units: 'mm', trebleScale: 635, bassScale: 635, frets: 20, slotWidth: 0.6, keyWidth: 0.55 },
+    });
+    expect(created.status()).toBe(201);
+    const { id } = (await created.json()) as { id: number };
+    await page.goto(`${BASE_URL}/templates/${id}`);
     await page.getByLabel('CSV file').check();
     await page.getByLabel(/Measured positions CSV/).setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from('fret,from_nut\n1,36.4\n2,abc\n') });
     await expect(page.getByRole('alert').filter({ hasText: 'Line 3' }).textContent()).resolves.toMatch(/from_nut "abc" is not a number/);

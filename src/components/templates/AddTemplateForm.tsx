@@ -3,7 +3,7 @@
  * scale lengths for a template that predates Kerfline. The server validates; its error names the
  * field, shown next to it.
  */
-import { useState, type ReactNode, type SyntheticEvent } from 'react';
+import { cloneElement, useId, useState, type ReactElement, type SyntheticEvent } from 'react';
 import { ApiError, createTemplate } from './shelf-api';
 
 export interface DesignChoice {
@@ -13,13 +13,15 @@ export interface DesignChoice {
   units: 'mm' | 'in';
 }
 
-function Field({ label, error, children }: { label: string; error?: string | undefined; children: ReactNode }) {
+/** A labelled control; the label points at the control by id so its name is the label alone. */
+function Field({ label, error, children }: { label: string; error?: string | undefined; children: ReactElement<{ id?: string; 'aria-invalid'?: boolean | undefined }> }) {
+  const id = useId();
   return (
-    <label className="flex flex-col gap-1 text-sm">
-      {label}
-      {children}
+    <div className="flex flex-col gap-1 text-sm">
+      <label htmlFor={id}>{label}</label>
+      {cloneElement(children, { id, 'aria-invalid': error ? true : undefined })}
       {error && <span className="text-rosewood">{error}</span>}
-    </label>
+    </div>
   );
 }
 

@@ -9,6 +9,18 @@ const WIDTH = 720;
 const HEIGHT = 300;
 const PAD = { left: 64, right: 16, top: 16, bottom: 44 };
 
+/** Round-numbered ticks across ±extent, plus ±tolerance when there is room to label them. */
+function axisTicks(extent: number, tolerance: number, plotHeight: number): number[] {
+  const rough = extent / 2;
+  const magnitude = 10 ** Math.floor(Math.log10(rough));
+  const step = [1, 2, 5, 10].map((m) => m * magnitude).find((s) => s >= rough) ?? rough;
+  const ticks: number[] = [];
+  for (let t = -Math.floor(extent / step) * step; t <= extent + 1e-12; t += step) ticks.push(Math.abs(t) < step / 1e6 ? 0 : t);
+  const pxPerUnit = plotHeight / (2 * extent);
+  const roomFor = (value: number) => ticks.every((t) => Math.abs(t - value) * pxPerUnit > 14);
+  return [...ticks, ...[-tolerance, tolerance].filter(roomFor)];
+}
+
 export function DeviationChart({ result, frets, title }: { result: CheckResult; frets: number; title: string }) {
   const { units, tolerance } = result;
   const extent = Math.max(2 * tolerance, ...result.slots.map((s) => Math.abs(s.deviation))) * 1.15;
@@ -16,7 +28,7 @@ export function DeviationChart({ result, frets, title }: { result: CheckResult; 
   const plotH = HEIGHT - PAD.top - PAD.bottom;
   const x = (fret: number) => PAD.left + (fret / (frets + 1)) * plotW;
   const y = (deviation: number) => PAD.top + ((extent - deviation) / (2 * extent)) * plotH;
-  const ticks = [-extent / 1.15, -tolerance, 0, tolerance, extent / 1.15];
+  const ticks = axisTicks(extent, tolerance, plotH);
   const strings = [...new Set(result.slots.map((s) => s.string))];
   const fretStep = frets > 24 ? 3 : frets > 12 ? 2 : 1;
 
