@@ -80,8 +80,8 @@ describe('Template shelf and Template check in Chromium', () => {
 
     await page.getByRole('button', { name: 'Save check' }).click();
     await page.getByText('Saved on the template.').waitFor();
-    await page.goto(`${BASE_URL}/templates`);
-    await page.getByLabel('Search').fill(designName);
+    await page.goto(`${BASE_URL}/templates?q=${encodeURIComponent(designName)}`);
+    await expect(page.getByLabel('Search').inputValue()).resolves.toBe(designName);
     const row = page.getByRole('row').filter({ hasText: designName });
     await row.getByText('Fail').waitFor();
     await context.close();

@@ -56,7 +56,14 @@ export function DeviationChart({ result, frets, title }: { result: CheckResult; 
       </text>
       {ticks.map((t) => (
         <g key={t}>
-          <line x1={PAD.left - 4} x2={PAD.left + plotW} y1={y(t)} y2={y(t)} stroke={t === 0 ? '#4b5259' : '#d9d4c8'} strokeWidth={t === 0 ? 1 : 0.5} />
+          <line
+            x1={PAD.left - 4}
+            x2={PAD.left + plotW}
+            y1={y(t)}
+            y2={y(t)}
+            stroke={t === 0 ? '#4b5259' : '#d9d4c8'}
+            strokeWidth={t === 0 ? 1 : 0.5}
+          />
           <text x={PAD.left - 8} y={y(t) + 4} textAnchor="end" fontSize="11" fontFamily="JetBrains Mono, monospace" fill="#4b5259">
             {formatLength(t, units)}
           </text>
@@ -65,7 +72,15 @@ export function DeviationChart({ result, frets, title }: { result: CheckResult; 
       {Array.from({ length: frets }, (_, i) => i + 1)
         .filter((f) => f % fretStep === 0 || f === 1)
         .map((f) => (
-          <text key={f} x={x(f)} y={PAD.top + plotH + 16} textAnchor="middle" fontSize="11" fontFamily="JetBrains Mono, monospace" fill="#4b5259">
+          <text
+            key={f}
+            x={x(f)}
+            y={PAD.top + plotH + 16}
+            textAnchor="middle"
+            fontSize="11"
+            fontFamily="JetBrains Mono, monospace"
+            fill="#4b5259"
+          >
             {f}
           </text>
         ))}
@@ -90,12 +105,7 @@ export function DeviationChart({ result, frets, title }: { result: CheckResult; 
               s.withinTolerance ? (
                 <circle key={s.fret} cx={x(s.fret)} cy={y(s.deviation)} r="4" fill="#2f5d50" />
               ) : (
-                <path
-                  key={s.fret}
-                  d={`M${x(s.fret) - 4},${y(s.deviation) - 4}l8,8m0,-8l-8,8`}
-                  stroke="#7a3b2e"
-                  strokeWidth="2"
-                />
+                <path key={s.fret} d={`M${x(s.fret) - 4},${y(s.deviation) - 4}l8,8m0,-8l-8,8`} stroke="#7a3b2e" strokeWidth="2" />
               ),
             )}
           </g>

@@ -13,6 +13,7 @@ import { runCheck, runCsvCheck, type CheckOutcome } from '~/lib/template-check/r
 import type { SavedCheck } from '~/lib/db/templates.server';
 import { DeviationChart } from './DeviationChart';
 import { ApiError, postCheck } from './shelf-api';
+import { useHydrated } from './use-hydrated';
 
 interface Props {
   template: TemplateView;
@@ -27,6 +28,7 @@ function toleranceText(method: WorkMethod, units: LengthUnit): string {
 }
 
 export default function TemplateCheckPanel({ template, design, checks: initialChecks }: Props) {
+  const hydrated = useHydrated();
   const fanned = design.scale.treble !== design.scale.bass;
   const edges = fanned ? [1, design.strings] : [1];
   const [units, setUnits] = useState<LengthUnit>(design.units);
@@ -108,80 +110,97 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
           Measure each slot's distance from the nut{fanned ? ' along the treble and bass edges' : ''} and compare it with{' '}
           {template.designId !== null ? 'the design' : 'the typed scale lengths'} ({design.name}).
         </p>
-        <div className="flex flex-wrap items-end gap-4">
-          <label className="flex flex-col text-sm">
-            Measurement units
-            <select value={units} onChange={(e) => chooseUnits(e.target.value as LengthUnit)} className={input}>
-              <option value="mm">mm</option>
-              <option value="in">in</option>
-            </select>
-          </label>
-          <label className="flex flex-col text-sm">
-            Work
-            <select value={method} onChange={(e) => chooseMethod(e.target.value as WorkMethod)} className={input}>
-              <option value="hand">Hand-sawn (±0.1 mm, common practice)</option>
-              <option value="cnc">CNC (±0.05 mm, common practice)</option>
-            </select>
-          </label>
-          <label className="flex flex-col text-sm">
-            Tolerance ± ({units})
-            <input value={tolerance} onChange={(e) => setTolerance(e.target.value)} inputMode="decimal" className={`${input} w-28 font-mono`} aria-invalid={!toleranceOk} />
-            {!toleranceOk && <span className="text-rosewood">Enter a tolerance greater than 0</span>}
-          </label>
-        </div>
-        <fieldset className="flex gap-4 text-sm">
-          <legend className="mb-1">Enter measurements</legend>
-          <label className="flex items-center gap-1">
-            <input type="radio" name="mode" checked={mode === 'grid'} onChange={() => setMode('grid')} /> Grid
-          </label>
-          <label className="flex items-center gap-1">
-            <input type="radio" name="mode" checked={mode === 'csv'} onChange={() => setMode('csv')} /> CSV file
-          </label>
-        </fieldset>
-        {mode === 'csv' ? (
-          <div className="space-y-1 text-sm">
-            <label className="flex flex-col gap-1">
-              Measured positions CSV (fret,from_nut or fret,string,from_nut; up to 64 KiB)
-              <input type="file" accept=".csv,text/csv,text/plain" onChange={readCsv} />
+        <fieldset disabled={!hydrated} className="space-y-4">
+          <legend className="sr-only">Measurements</legend>
+          <div className="flex flex-wrap items-end gap-4">
+            <label className="flex flex-col text-sm">
+              Measurement units
+              <select value={units} onChange={(e) => chooseUnits(e.target.value as LengthUnit)} className={input}>
+                <option value="mm">mm</option>
+                <option value="in">in</option>
+              </select>
             </label>
-            {csvTooBig && <p role="alert" className="text-rosewood">The file is larger than 64 KiB.</p>}
-            {csv && <p className="text-ink-soft">Read {csv.name}.</p>}
+            <label className="flex flex-col text-sm">
+              Work
+              <select value={method} onChange={(e) => chooseMethod(e.target.value as WorkMethod)} className={input}>
+                <option value="hand">Hand-sawn (±0.1 mm, common practice)</option>
+                <option value="cnc">CNC (±0.05 mm, common practice)</option>
+              </select>
+            </label>
+            <label className="flex flex-col text-sm">
+              Tolerance ± ({units})
+              <input
+                value={tolerance}
+                onChange={(e) => setTolerance(e.target.value)}
+                inputMode="decimal"
+                className={`${input} w-28 font-mono`}
+                aria-invalid={!toleranceOk}
+              />
+              {!toleranceOk && <span className="text-rosewood">Enter a tolerance greater than 0</span>}
+            </label>
           </div>
-        ) : (
-          <div className="max-h-96 overflow-y-auto">
-            <table className="text-sm">
-              <caption className="sr-only">Measured distance from the nut per fret</caption>
-              <thead>
-                <tr>
-                  <th scope="col" className="px-2 text-left">Fret</th>
-                  {edges.map((s) => (
-                    <th key={s} scope="col" className="px-2 text-left">
-                      {fanned ? `${edgeName(s)}, ` : ''}from nut ({units})
+          <fieldset className="flex gap-4 text-sm">
+            <legend className="mb-1">Enter measurements</legend>
+            <label className="flex items-center gap-1">
+              <input type="radio" name="mode" checked={mode === 'grid'} onChange={() => setMode('grid')} /> Grid
+            </label>
+            <label className="flex items-center gap-1">
+              <input type="radio" name="mode" checked={mode === 'csv'} onChange={() => setMode('csv')} /> CSV file
+            </label>
+          </fieldset>
+          {mode === 'csv' ? (
+            <div className="space-y-1 text-sm">
+              <label className="flex flex-col gap-1">
+                Measured positions CSV (fret,from_nut or fret,string,from_nut; up to 64 KiB)
+                <input type="file" accept=".csv,text/csv,text/plain" onChange={readCsv} />
+              </label>
+              {csvTooBig && (
+                <p role="alert" className="text-rosewood">
+                  The file is larger than 64 KiB.
+                </p>
+              )}
+              {csv && <p className="text-ink-soft">Read {csv.name}.</p>}
+            </div>
+          ) : (
+            <div className="max-h-96 overflow-y-auto">
+              <table className="text-sm">
+                <caption className="sr-only">Measured distance from the nut per fret</caption>
+                <thead>
+                  <tr>
+                    <th scope="col" className="px-2 text-left">
+                      Fret
                     </th>
-                  ))}
-                </tr>
-              </thead>
-              <tbody>
-                {Array.from({ length: design.frets }, (_, i) => i + 1).map((fret) => (
-                  <tr key={fret}>
-                    <th scope="row" className="px-2 text-left font-mono">{fret}</th>
                     {edges.map((s) => (
-                      <td key={s} className="px-2 py-0.5">
-                        <input
-                          aria-label={`Fret ${fret}${fanned ? `, ${edgeName(s)}` : ''}, measured from nut (${units})`}
-                          inputMode="decimal"
-                          className={`${input} w-32 font-mono`}
-                          value={grid[`${fret}/${s}`] ?? ''}
-                          onChange={(e) => setGrid((g) => ({ ...g, [`${fret}/${s}`]: e.target.value }))}
-                        />
-                      </td>
+                      <th key={s} scope="col" className="px-2 text-left">
+                        {fanned ? `${edgeName(s)}, ` : ''}from nut ({units})
+                      </th>
                     ))}
                   </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
-        )}
+                </thead>
+                <tbody>
+                  {Array.from({ length: design.frets }, (_, i) => i + 1).map((fret) => (
+                    <tr key={fret}>
+                      <th scope="row" className="px-2 text-left font-mono">
+                        {fret}
+                      </th>
+                      {edges.map((s) => (
+                        <td key={s} className="px-2 py-0.5">
+                          <input
+                            aria-label={`Fret ${fret}${fanned ? `, ${edgeName(s)}` : ''}, measured from nut (${units})`}
+                            inputMode="decimal"
+                            className={`${input} w-32 font-mono`}
+                            value={grid[`${fret}/${s}`] ?? ''}
+                            onChange={(e) => setGrid((g) => ({ ...g, [`${fret}/${s}`]: e.target.value }))}
+                          />
+                        </td>
+                      ))}
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+          )}
+        </fieldset>
       </section>
 
       {outcome && !outcome.ok && (
@@ -189,8 +208,16 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
           <p className="font-semibold">These measurements cannot be checked yet:</p>
           <ul className="list-disc pl-5">
             {'csvErrors' in outcome
-              ? outcome.csvErrors.map((e) => <li key={`${e.line}-${e.message}`}>Line {e.line}: {e.message}</li>)
-              : outcome.errors.map((e) => <li key={e.field}>Fret {e.fret}: {e.message}</li>)}
+              ? outcome.csvErrors.map((e) => (
+                  <li key={`${e.line}-${e.message}`}>
+                    Line {e.line}: {e.message}
+                  </li>
+                ))
+              : outcome.errors.map((e) => (
+                  <li key={e.field}>
+                    Fret {e.fret}: {e.message}
+                  </li>
+                ))}
           </ul>
         </div>
       )}
@@ -200,7 +227,11 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
           <h2 id="check-result" className="text-lg font-semibold">
             Result
           </h2>
-          <p role="status" data-testid="check-verdict" className={`rounded p-3 ${result.passed ? 'bg-spruce-light text-spruce-dark' : 'bg-rosewood-light text-rosewood'}`}>
+          <p
+            role="status"
+            data-testid="check-verdict"
+            className={`rounded p-3 ${result.passed ? 'bg-spruce-light text-spruce-dark' : 'bg-rosewood-light text-rosewood'}`}
+          >
             <strong>{result.passed ? 'Pass. ' : 'Fail. '}</strong>
             {result.summary}
           </p>
@@ -220,8 +251,9 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
                 <span className="font-mono">{formatLength(fit.scale.maxAbsResidual, result.units, true)}</span>)
                 {fit.withOffset && (
                   <>
-                    ; with a constant offset: <span className="font-mono">{formatLength(fit.withOffset.scaleLength, result.units, true)}</span>{' '}
-                    and <span className="font-mono">{formatLength(fit.withOffset.offset, result.units, true)}</span>
+                    ; with a constant offset:{' '}
+                    <span className="font-mono">{formatLength(fit.withOffset.scaleLength, result.units, true)}</span> and{' '}
+                    <span className="font-mono">{formatLength(fit.withOffset.offset, result.units, true)}</span>
                   </>
                 )}
               </li>
@@ -255,7 +287,12 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
             </table>
           </div>
           <div className="flex items-center gap-3">
-            <button type="button" onClick={save} disabled={saveState.kind === 'saving'} className="rounded bg-spruce px-3 py-1.5 text-white disabled:opacity-50">
+            <button
+              type="button"
+              onClick={save}
+              disabled={saveState.kind === 'saving'}
+              className="rounded bg-spruce px-3 py-1.5 text-white disabled:opacity-50"
+            >
               {saveState.kind === 'saving' ? 'Saving…' : 'Save check'}
             </button>
             <span aria-live="polite" className="text-sm">

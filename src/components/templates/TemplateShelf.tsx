@@ -10,8 +10,15 @@ import { TEMPLATE_SORTS, type TemplateView } from '~/lib/schemas/template';
 import { AddTemplateForm, type DesignChoice } from './AddTemplateForm';
 import { CONDITION_LABELS, LastCheck } from './template-labels';
 import { fetchTemplates } from './shelf-api';
+import { useHydrated } from './use-hydrated';
 
 const queryClient = new QueryClient({ defaultOptions: { queries: { retry: 1, staleTime: 5_000 } } });
+
+interface ShelfProps {
+  designs: DesignChoice[];
+  /** From the page's ?q=, so a search can be linked to. */
+  initialSearch: string;
+}
 
 const column = createColumnHelper<TemplateView>();
 const SORTABLE = new Set<string>(TEMPLATE_SORTS);
@@ -48,12 +55,17 @@ const columns = [
   column.accessor('material', { header: 'Material', enableSorting: false }),
   column.accessor('storagePlace', { header: 'Stored at', enableSorting: false }),
   column.accessor('condition', { header: 'Condition', enableSorting: false, cell: (info) => CONDITION_LABELS[info.getValue()] }),
-  column.accessor('madeOn', { id: 'madeOn', header: 'Made on', cell: (info) => <span className="font-mono">{info.getValue() ?? '—'}</span> }),
+  column.accessor('madeOn', {
+    id: 'madeOn',
+    header: 'Made on',
+    cell: (info) => <span className="font-mono">{info.getValue() ?? '—'}</span>,
+  }),
   column.display({ id: 'lastChecked', header: 'Last check', cell: ({ row }) => <LastCheck template={row.original} /> }),
 ];
 
-function Shelf({ designs }: { designs: DesignChoice[] }) {
-  const [search, setSearch] = useState('');
+function Shelf({ designs, initialSearch }: ShelfProps) {
+  const hydrated = useHydrated();
+  const [search, setSearch] = useState(initialSearch);
   const [condition, setCondition] = useState('');
   const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
   const [page, setPage] = useState(1);
@@ -66,7 +78,11 @@ function Shelf({ designs }: { designs: DesignChoice[] }) {
     params.set('sort', sort.id);
     params.set('dir', sort.desc ? 'desc' : 'asc');
   }
-  const query = useQuery({ queryKey: ['templates', params.toString()], queryFn: () => fetchTemplates(params), placeholderData: keepPreviousData });
+  const query = useQuery({
+    queryKey: ['templates', params.toString()],
+    queryFn: () => fetchTemplates(params),
+    placeholderData: keepPreviousData,
+  });
   const table = useReactTable({
     data: query.data?.items ?? [],
     columns,
@@ -84,7 +100,8 @@ function Shelf({ designs }: { designs: DesignChoice[] }) {
 
   return (
     <div className="space-y-4">
-      <div className="flex flex-wrap items-end gap-4">
+      <fieldset disabled={!hydrated} className="flex flex-wrap items-end gap-4">
+        <legend className="sr-only">Find templates</legend>
         <label className="flex flex-col text-sm">
           Search
           <input
@@ -117,10 +134,14 @@ function Shelf({ designs }: { designs: DesignChoice[] }) {
           </select>
         </label>
         <p className="text-sm text-ink-soft" aria-live="polite">
-          {query.isFetching ? 'Loading…' : `${total} template${total === 1 ? '' : 's'}`}
+          {!hydrated || query.isFetching ? 'Loading…' : `${total} template${total === 1 ? '' : 's'}`}
         </p>
-      </div>
-      {query.isError && <p role="alert" className="text-rosewood">{(query.error as Error).message}</p>}
+      </fieldset>
+      {query.isError && (
+        <p role="alert" className="text-rosewood">
+          {(query.error as Error).message}
+        </p>
+      )}
       <div className="overflow-x-auto rounded border border-paper-line bg-white">
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Template shelf</caption>
@@ -138,7 +159,11 @@ function Shelf({ designs }: { designs: DesignChoice[] }) {
                       aria-sort={direction === 'asc' ? 'ascending' : direction === 'desc' ? 'descending' : undefined}
                     >
                       {sortable ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="underline-offset-2 hover:underline">
+                        <button
+                          type="button"
+                          onClick={header.column.getToggleSortingHandler()}
+                          className="underline-offset-2 hover:underline"
+                        >
                           {flexRender(header.column.columnDef.header, header.getContext())}
                           {direction === 'asc' ? ' ▲' : direction === 'desc' ? ' ▼' : ''}
                         </button>
@@ -172,13 +197,23 @@ function Shelf({ designs }: { designs: DesignChoice[] }) {
         </table>
       </div>
       <nav aria-label="Pages" className="flex items-center gap-3 text-sm">
-        <button type="button" disabled={page <= 1} onClick={() => setPage((p) => p - 1)} className="rounded border border-paper-line px-2 py-1 disabled:opacity-40">
+        <button
+          type="button"
+          disabled={page <= 1}
+          onClick={() => setPage((p) => p - 1)}
+          className="rounded border border-paper-line px-2 py-1 disabled:opacity-40"
+        >
           Previous
         </button>
         <span>
           Page {page} of {pages}
         </span>
-        <button type="button" disabled={page >= pages} onClick={() => setPage((p) => p + 1)} className="rounded border border-paper-line px-2 py-1 disabled:opacity-40">
+        <button
+          type="button"
+          disabled={page >= pages}
+          onClick={() => setPage((p) => p + 1)}
+          className="rounded border border-paper-line px-2 py-1 disabled:opacity-40"
+        >
           Next
         </button>
       </nav>
@@ -187,10 +222,10 @@ function Shelf({ designs }: { designs: DesignChoice[] }) {
   );
 }
 
-export default function TemplateShelf({ designs }: { designs: DesignChoice[] }) {
+export default function TemplateShelf(props: ShelfProps) {
   return (
     <QueryClientProvider client={queryClient}>
-      <Shelf designs={designs} />
+      <Shelf {...props} />
     </QueryClientProvider>
   );
 }
