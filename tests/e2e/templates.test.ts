@@ -87,7 +87,7 @@ describe('Template shelf and Template check in Chromium', () => {
     await context.close();
   });
 
-  it('shows the CSV line at fault and offers nothing to save', async () => {
+  it('shows the CSV line at fault, offers nothing to save, and edits the shelf record', async () => {
     const context = await browser.newContext();
     const [name, value] = builder.cookie.split('=') as [string, string];
     await context.addCookies([{ name, value, url: BASE_URL }]);
@@ -103,6 +103,14 @@ describe('Template shelf and Template check in Chromium', () => {
     await page.getByLabel(/Measured positions CSV/).setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from('fret,from_nut\n1,36.4\n2,abc\n') });
     await expect(page.getByRole('alert').filter({ hasText: 'Line 3' }).textContent()).resolves.toMatch(/from_nut "abc" is not a number/);
     await expect(page.getByRole('button', { name: 'Save check' }).count()).resolves.toBe(0);
+
+    await page.getByText('Edit shelf record').click();
+    await page.getByLabel('Condition').selectOption('worn');
+    await page.getByLabel('Stored at').fill('Drawer 5');
+    await page.getByRole('button', { name: 'Save shelf record' }).click();
+    await page.getByText('Saved.', { exact: true }).waitFor();
+    const after = await page.request.get(`${BASE_URL}/api/templates/${id}`);
+    expect(await after.json()).toMatchObject({ condition: 'worn', storagePlace: 'Drawer 5' });
     await context.close();
   });
 });

@@ -6,7 +6,6 @@
 import { z } from 'zod';
 import { DESIGN_LIMITS } from '~/lib/schemas/design';
 import { fromMm } from '~/lib/format/units';
-import { TEMPLATE_CONDITIONS } from '~/lib/db/schema';
 
 export const TEMPLATE_LIMITS = {
   nameMaxChars: 120,
@@ -17,7 +16,18 @@ export const TEMPLATE_LIMITS = {
   maxMeasurements: 2 * DESIGN_LIMITS.maxFrets * DESIGN_LIMITS.maxStrings,
 } as const;
 
-export const templateConditionSchema = z.enum(TEMPLATE_CONDITIONS);
+/**
+ * The same list as the database enum; spelled out so this browser-safe file does not pull the
+ * database schema into the page bundle. The type check below fails if the two ever differ.
+ */
+export const templateConditionSchema = z.enum(['in_use', 'worn', 'retired']);
+type DbCondition = (typeof import('~/lib/db/schema'))['TEMPLATE_CONDITIONS'][number];
+type SameConditions = [DbCondition] extends [z.infer<typeof templateConditionSchema>]
+  ? [z.infer<typeof templateConditionSchema>] extends [DbCondition]
+    ? true
+    : never
+  : never;
+export const CONDITIONS_MATCH_DATABASE: SameConditions = true;
 export type TemplateCondition = z.infer<typeof templateConditionSchema>;
 const unitsSchema = z.enum(['mm', 'in']);
 
