@@ -9,7 +9,9 @@ const input = 'rounded border border-paper-line px-2 py-1';
 
 export default function TemplateEditForm({ template }: { template: TemplateView }) {
   const hydrated = useHydrated();
-  const [state, setState] = useState<{ kind: 'idle' | 'saving' | 'saved' } | { kind: 'error'; message: string; field?: string | undefined }>({
+  const [state, setState] = useState<
+    { kind: 'idle' | 'saving' | 'saved' } | { kind: 'error'; message: string; field?: string | undefined }
+  >({
     kind: 'idle',
   });
 
@@ -27,7 +29,11 @@ export default function TemplateEditForm({ template }: { template: TemplateView 
       });
       setState({ kind: 'saved' });
     } catch (e) {
-      setState(e instanceof ApiError ? { kind: 'error', message: e.message, field: e.field } : { kind: 'error', message: 'Could not reach the server' });
+      setState(
+        e instanceof ApiError
+          ? { kind: 'error', message: e.message, field: e.field }
+          : { kind: 'error', message: 'Could not reach the server' },
+      );
     }
   }
 
@@ -60,12 +66,21 @@ export default function TemplateEditForm({ template }: { template: TemplateView 
             <textarea name="notes" defaultValue={template.notes} rows={2} className={input} />
           </label>
           <div className="flex items-center gap-3 sm:col-span-2">
-            <button type="submit" className="rounded bg-spruce px-3 py-1.5 text-white disabled:opacity-50" disabled={state.kind === 'saving'}>
+            <button
+              type="submit"
+              className="rounded bg-spruce px-3 py-1.5 text-white disabled:opacity-50"
+              disabled={state.kind === 'saving'}
+            >
               Save shelf record
             </button>
             <span aria-live="polite" className="text-sm">
               {state.kind === 'saved' && 'Saved.'}
-              {state.kind === 'error' && <span className="text-rosewood">{state.field ? `${state.field}: ` : ''}{state.message}</span>}
+              {state.kind === 'error' && (
+                <span className="text-rosewood">
+                  {state.field ? `${state.field}: ` : ''}
+                  {state.message}
+                </span>
+              )}
             </span>
           </div>
         </fieldset>
