@@ -6,12 +6,13 @@ import { readdirSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { asc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { newToken } from '~/lib/auth/index.server.ts';
-import { designs, shops, templates, users } from '~/lib/db/schema.ts';
+import { newToken, sha256Hex } from '~/lib/auth/index.server.ts';
+import { proofs, shops, templates, users } from '~/lib/db/schema.ts';
 import { DEMO_SHOP_NAME } from '~/lib/db/seed/demo-shop.server.ts';
 import { ROUTE_CASES } from '../route-matrix/index.ts';
 import type { Actor, MatrixIds, RouteCase } from '../route-matrix/types.ts';
 import { BASE_URL } from '../support/browser.ts';
+import { ensureDesign } from '../support/designs.ts';
 import { newShopUser, signInAs } from '../support/sessions.ts';
 import { closeDb, db } from '../support/test-db.ts';
 
@@ -30,11 +31,23 @@ let otherOwnerEmail: string;
 async function resolveIds(): Promise<MatrixIds> {
   const [shop] = await db().select({ id: shops.id }).from(shops).where(eq(shops.name, DEMO_SHOP_NAME));
   if (!shop) throw new Error('the demo shop is not seeded');
-  const [design] = await db().select({ id: designs.id }).from(designs).where(eq(designs.shopId, shop.id)).orderBy(asc(designs.id)).limit(1);
-  const [template] = await db().select({ id: templates.id }).from(templates).where(eq(templates.shopId, shop.id)).orderBy(asc(templates.id)).limit(1);
   const [builder] = await db().select({ id: users.id }).from(users).where(eq(users.email, DEMO_EMAILS.builder));
-  // Proof links are stored hashed, so none can be read back: a well-formed token never issued.
-  return { designId: design?.id ?? MISSING_ID, templateId: template?.id ?? MISSING_ID, proofToken: newToken(), demoBuilderId: builder!.id };
+  const designId = await ensureDesign(shop.id, builder!.id, 'Seven-string', 'seven-string-fan');
+  const [template] = await db().select({ id: templates.id }).from(templates).where(eq(templates.shopId, shop.id)).orderBy(asc(templates.id)).limit(1);
+  // Proof links are stored hashed, so none can be read back: this run issues its own.
+  const proofToken = newToken();
+  await db().insert(proofs).values({
+    shopId: shop.id,
+    designId,
+    revision: 1,
+    tokenHash: sha256Hex(proofToken),
+    clientName: 'Ines Calloway',
+    clientEmail: DEMO_EMAILS.client,
+    message: 'Route matrix proof',
+    expiresAt: new Date(Date.now() + 86_400_000),
+    createdBy: builder!.id,
+  });
+  return { designId, templateId: template?.id ?? MISSING_ID, proofToken, demoBuilderId: builder!.id };
 }
 
 /** A fresh session per request, since some routes (sign-out) end every session of the user. */

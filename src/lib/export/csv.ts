@@ -3,6 +3,32 @@ import type { Layout } from '~/lib/geometry/layout';
 /** The fret table's header; part of the public output format. */
 export const FRET_TABLE_HEADER = 'fret,string,scale_length,from_nut,from_previous,x,y';
 
+/** One row of the fret table, in the layout's units (the CSV columns, in order). */
+export interface FretTableRow {
+  fret: number;
+  string: number;
+  scaleLength: number;
+  fromNut: number;
+  fromPrevious: number;
+  x: number;
+  y: number;
+}
+
+/** The fret table's rows, ordered by fret then string; shared by the CSV and the on-screen table. */
+export function fretTableRows(layout: Layout): FretTableRow[] {
+  return layout.frets.flatMap((fret) =>
+    fret.points.map((point) => ({
+      fret: fret.number,
+      string: point.string,
+      scaleLength: layout.strings[point.string - 1]?.scaleLength ?? Number.NaN,
+      fromNut: point.fromNut,
+      fromPrevious: point.fromPrevious,
+      x: point.x,
+      y: point.y,
+    })),
+  );
+}
+
 /**
  * The fret table as CSV: one row per fret (1..F) and string (1..N), ordered by fret then string,
  * in the layout's units. Numbers are unrounded, in JavaScript's shortest round-trip form, so a
@@ -10,14 +36,11 @@ export const FRET_TABLE_HEADER = 'fret,string,scale_length,from_nut,from_previou
  */
 export function fretTableCsv(layout: Layout): string {
   const lines = [FRET_TABLE_HEADER];
-  for (const fret of layout.frets) {
-    for (const point of fret.points) {
-      const scaleLength = layout.strings[point.string - 1]?.scaleLength ?? Number.NaN;
-      lines.push(
-        `${fret.number},${point.string},${String(scaleLength)},${String(point.fromNut)},` +
-          `${String(point.fromPrevious)},${String(point.x)},${String(point.y)}`,
-      );
-    }
+  for (const row of fretTableRows(layout)) {
+    lines.push(
+      `${row.fret},${row.string},${String(row.scaleLength)},${String(row.fromNut)},` +
+        `${String(row.fromPrevious)},${String(row.x)},${String(row.y)}`,
+    );
   }
   return `${lines.join('\n')}\n`;
 }

@@ -1,11 +1,16 @@
 import type { APIRoute } from 'astro';
-import { isWellFormedToken } from '~/lib/auth/index.server.ts';
+import { isWellFormedToken, sha256Hex } from '~/lib/auth/index.server.ts';
 import { handleDecision } from '~/lib/proof-api/decision-endpoint.server.ts';
 
 export const prerender = false;
 
-/** Public: the link itself is the permission. */
+/**
+ * Public: the link itself is the permission. Answers are limited per visitor and per link, so
+ * one visitor hammering one proof is stopped without locking out every other proof from the same
+ * address (a shop's clients may share one office connection).
+ */
 export const POST: APIRoute = ({ params, request, clientAddress }) => {
   const token = params.token ?? '';
-  return handleDecision(request, isWellFormedToken(token) ? { token } : null, clientAddress, new Date());
+  const rateKey = `${clientAddress}:${sha256Hex(token).slice(0, 16)}`;
+  return handleDecision(request, isWellFormedToken(token) ? { token } : null, rateKey, new Date());
 };

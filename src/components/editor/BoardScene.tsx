@@ -1,0 +1,188 @@
+/**
+ * The board itself, as Konva nodes in board coordinates (the parent group maps them to the
+ * screen). Lines keep a constant screen width (strokeScaleEnabled off); labels are scaled by
+ * 1/zoom so they stay readable at any zoom. Every node is named, and lines keep their board
+ * coordinates in `points`, so tests and tools can read the scene graph.
+ */
+import { memo } from 'react';
+import { Circle, Group, Line, Text } from 'react-konva';
+import { formatLength, fromMm } from '~/lib/format/units';
+import type { Layout, Point, Segment } from '~/lib/geometry/layout';
+import { DASHES_PX, DRAWING_COLOURS as C, LABEL_FONT, LINE_WIDTHS_PX as W } from './drawing-style';
+import { boundsOf } from './view-transform';
+
+interface BoardSceneProps {
+  layout: Layout;
+  /** Screen px per board unit; used only to keep labels and ticks at a constant screen size. */
+  zoom: number;
+}
+
+/** Face dot and side dot diameters in millimetres (common practice, from memory). */
+const FACE_DOT_MM = 6;
+const SIDE_DOT_MM = 2;
+const SCALE_LABEL_WIDTH_PX = 280;
+
+const segmentPoints = (segment: Segment) => [segment.start.x, segment.start.y, segment.end.x, segment.end.y];
+
+export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneProps) {
+  const bounds = boundsOf(layout.outline);
+  const labelScale = { scaleX: 1 / zoom, scaleY: -1 / zoom };
+  const tick = 16 / zoom;
+  const stopped = layout.frets.some((fret) => fret.slot.start.x !== fret.line.start.x || fret.slot.start.y !== fret.line.start.y);
+  const perpendicularX = layout.perpendicularFret.x;
+  const showUnits = (length: number) => formatLength(length, layout.units, true);
+  const compensated =
+    !sameSegment(layout.nutLine, layout.uncompensated.nutLine) ||
+    !sameSegment(layout.saddleLine, layout.uncompensated.saddleLine);
+
+  return (
+    <Group name="board">
+      <Line
+        name="outline"
+        points={layout.outline.flatMap((p) => [p.x, p.y])}
+        closed
+        fill={C.board}
+        stroke={C.boardEdge}
+        strokeWidth={W.outline}
+        strokeScaleEnabled={false}
+      />
+      <Line
+        name="perpendicular-line"
+        fret={layout.perpendicularFret.fret}
+        points={[perpendicularX, bounds.minY - tick, perpendicularX, bounds.maxY + tick]}
+        stroke={C.centre}
+        strokeWidth={W.reference}
+        dash={[...DASHES_PX.perpendicular]}
+        strokeScaleEnabled={false}
+      />
+      {layout.markers.map((marker) => (
+        <Group key={`marker-${marker.fret}`} name="marker" fret={marker.fret}>
+          {marker.dots.map((dot, index) => (
+            <Circle key={index} name="marker-dot" x={dot.x} y={dot.y} radius={fromMm(FACE_DOT_MM / 2, layout.units)} fill={C.marker} />
+          ))}
+          <Circle name="side-dot" x={marker.side.x} y={marker.side.y} radius={fromMm(SIDE_DOT_MM / 2, layout.units)} fill={C.marker} />
+        </Group>
+      ))}
+      {layout.frets.map((fret) => (
+        <Group key={fret.number} name="fret">
+          <Line
+            name="fret-line"
+            fret={fret.number}
+            points={segmentPoints(fret.line)}
+            stroke={stopped ? C.fretStopped : C.fret}
+            strokeWidth={W.fret}
+            strokeScaleEnabled={false}
+          />
+          <Line
+            name="fret-slot"
+            fret={fret.number}
+            points={segmentPoints(fret.slot)}
+            stroke={C.slot}
+            strokeWidth={W.slot}
+            strokeScaleEnabled={false}
+          />
+          <Text
+            name="fret-number"
+            fret={fret.number}
+            text={String(fret.number)}
+            x={fret.line.start.x}
+            y={fret.line.start.y}
+            {...labelScale}
+            width={28}
+            offsetX={14}
+            offsetY={-6}
+            align="center"
+            fontFamily={LABEL_FONT.family}
+            fontSize={LABEL_FONT.sizePx}
+            fill={C.label}
+          />
+        </Group>
+      ))}
+      {layout.zeroFret && (
+        <Line name="zero-fret-line" points={segmentPoints(layout.zeroFret.line)} stroke={C.slot} strokeWidth={W.slot} strokeScaleEnabled={false} />
+      )}
+      <Line
+        name="centre-line"
+        points={segmentPoints(layout.centreLine)}
+        stroke={C.centre}
+        strokeWidth={W.centre}
+        dash={[...DASHES_PX.centre]}
+        strokeScaleEnabled={false}
+      />
+      {layout.strings.map((string) => (
+        <Line
+          key={string.index}
+          name="string-line"
+          string={string.index}
+          scaleLength={string.scaleLength}
+          points={[string.nut.x, string.nut.y, string.saddle.x, string.saddle.y]}
+          stroke={C.string}
+          strokeWidth={W.string}
+          strokeScaleEnabled={false}
+        />
+      ))}
+      {compensated && (
+        <>
+          <Line name="nut-reference-line" points={segmentPoints(layout.uncompensated.nutLine)} stroke={C.reference} strokeWidth={W.reference} dash={[...DASHES_PX.reference]} strokeScaleEnabled={false} />
+          <Line name="saddle-reference-line" points={segmentPoints(layout.uncompensated.saddleLine)} stroke={C.reference} strokeWidth={W.reference} dash={[...DASHES_PX.reference]} strokeScaleEnabled={false} />
+        </>
+      )}
+      <Line name="nut-line" points={segmentPoints(layout.nutLine)} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
+      <Line name="saddle-line" points={segmentPoints(layout.saddleLine)} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
+      <Text
+        name="perpendicular-label"
+        text={layout.perpendicularFret.fret === 0 ? 'nut square to centre line' : `fret ${layout.perpendicularFret.fret} square to centre line`}
+        x={perpendicularX}
+        y={bounds.maxY}
+        {...labelScale}
+        offsetY={tick * zoom + 2 * LABEL_FONT.sizePx + 8}
+        fontFamily={LABEL_FONT.family}
+        fontSize={LABEL_FONT.sizePx}
+        fill={C.centre}
+      />
+      {outerStrings(layout).map(({ index, nut, saddle, scaleLength, side }) => (
+        <Text
+          key={`scale-${index}`}
+          name="scale-label"
+          string={index}
+          text={`string ${index} scale ${showUnits(scaleLength)}`}
+          x={(nut.x + saddle.x) / 2}
+          y={(nut.y + saddle.y) / 2}
+          {...labelScale}
+          rotation={(Math.atan2(saddle.y - nut.y, saddle.x - nut.x) * 180) / Math.PI}
+          width={SCALE_LABEL_WIDTH_PX}
+          offsetX={SCALE_LABEL_WIDTH_PX / 2}
+          align="center"
+          offsetY={side === 'treble' ? -(labelGap(layout, side, zoom) + 20) : labelGap(layout, side, zoom) + LABEL_FONT.sizePx + 6}
+          fontFamily={LABEL_FONT.family}
+          fontSize={LABEL_FONT.sizePx}
+          fill={C.label}
+        />
+      ))}
+    </Group>
+  );
+});
+
+function sameSegment(a: Segment, b: Segment): boolean {
+  return a.start.x === b.start.x && a.start.y === b.start.y && a.end.x === b.end.x && a.end.y === b.end.y;
+}
+
+function outerStrings(layout: Layout) {
+  const first = layout.strings[0];
+  const last = layout.strings[layout.strings.length - 1];
+  if (!first || !last) return [];
+  return [
+    { ...first, side: 'treble' as const },
+    { ...last, side: 'bass' as const },
+  ];
+}
+
+/** Screen distance from an outer string to just beyond the board edge on its side, in px. */
+function labelGap(layout: Layout, side: 'treble' | 'bass', zoom: number): number {
+  const edge = layout.edges[side];
+  const string = side === 'treble' ? layout.strings[0] : layout.strings[layout.strings.length - 1];
+  if (!string) return 0;
+  const mid: Point = { x: (string.nut.x + string.saddle.x) / 2, y: (string.nut.y + string.saddle.y) / 2 };
+  const edgeMidY = (edge.start.y + edge.end.y) / 2;
+  return Math.abs(edgeMidY - mid.y) * zoom + 4;
+}

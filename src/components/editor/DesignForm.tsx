@@ -1,0 +1,222 @@
+/**
+ * The parameter form. Every field shows its units in its label and its errors right below it;
+ * the errors come from the shared design schema (see design-draft.ts).
+ */
+import { useId, useState, type ChangeEvent, type ReactNode } from 'react';
+import type { DesignIssue } from '~/lib/schemas/design';
+import { BUTTON, FIELD_ERROR, INPUT } from './control-styles';
+import {
+  fieldOfIssue,
+  switchUnits,
+  typedLength,
+  type DesignDraft,
+  type LengthField,
+  type NumberField,
+} from './design-draft';
+import { ScalaUpload } from './ScalaUpload';
+
+export interface PresetChoice {
+  id: string;
+  label: string;
+}
+
+interface DesignFormProps {
+  draft: DesignDraft;
+  onChange: (update: (draft: DesignDraft) => DesignDraft) => void;
+  issues: readonly DesignIssue[];
+  presets: readonly PresetChoice[];
+  onStartFrom: (presetId: string) => void;
+}
+
+export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: DesignFormProps) {
+  const units = draft.units;
+  const [presetId, setPresetId] = useState(presets[0]?.id ?? '');
+  const presetSelectId = useId();
+  const errorsOf = (field: string) => issues.filter((issue) => fieldOfIssue(issue.path) === field).map((issue) => issue.message);
+  const general = issues.filter((issue) => issue.path === 'design');
+
+  const length = (field: LengthField, label: string) => (
+    <TextField
+      path={field}
+      label={`${label} (${units})`}
+      value={draft.lengths[field].text}
+      errors={errorsOf(field)}
+      inputMode="decimal"
+      onChange={(text) => onChange((d) => ({ ...d, lengths: { ...d.lengths, [field]: typedLength(text) } }))}
+    />
+  );
+  const count = (field: NumberField, label: string, inputMode: 'numeric' | 'decimal' = 'numeric') => (
+    <TextField
+      path={field}
+      label={label}
+      value={draft.numbers[field]}
+      errors={errorsOf(field)}
+      inputMode={inputMode}
+      onChange={(text) => onChange((d) => ({ ...d, numbers: { ...d.numbers, [field]: text } }))}
+    />
+  );
+
+  return (
+    <form className="space-y-3" aria-label="Design parameters" onSubmit={(event) => event.preventDefault()} noValidate>
+      <Group title="Start from">
+        <label htmlFor={presetSelectId} className="block text-sm">Preset</label>
+        <div className="flex gap-2">
+          <select id={presetSelectId} className={INPUT} value={presetId} onChange={(event) => setPresetId(event.target.value)}>
+            {presets.map((preset) => (
+              <option key={preset.id} value={preset.id}>{preset.label}</option>
+            ))}
+          </select>
+          <button type="button" className={BUTTON} onClick={() => onStartFrom(presetId)}>Start</button>
+        </div>
+        <p className="text-xs text-ink-soft">Replaces every field below with the preset's values.</p>
+      </Group>
+
+      {general.length > 0 && (
+        <ul className={FIELD_ERROR} role="alert">
+          {general.map((issue) => <li key={issue.message}>{issue.message}</li>)}
+        </ul>
+      )}
+
+      <Group title="Design">
+        <TextField path="name" label="Design name" value={draft.name} errors={errorsOf('name')} onChange={(name) => onChange((d) => ({ ...d, name }))} />
+        <fieldset>
+          <legend className="text-sm">Units</legend>
+          <div className="flex gap-4 text-sm">
+            {(['mm', 'in'] as const).map((choice) => (
+              <label key={choice} className="flex items-center gap-1">
+                <input
+                  type="radio"
+                  name="units"
+                  value={choice}
+                  checked={units === choice}
+                  onChange={() => onChange((d) => switchUnits(d, choice))}
+                />
+                {choice === 'mm' ? 'Millimetres (mm)' : 'Inches (in)'}
+              </label>
+            ))}
+          </div>
+          <p className="text-xs text-ink-soft">Switching converts every length exactly (1 in = 25.4 mm).</p>
+        </fieldset>
+      </Group>
+
+      <Group title="Strings and scale">
+        {count('strings', 'Strings')}
+        {length('scale.treble', 'Treble scale length, string 1')}
+        {length('scale.bass', 'Bass scale length, last string')}
+        {count('perpendicularFret', 'Perpendicular fret (0 = nut)', 'decimal')}
+        {count('frets', 'Frets')}
+        {length('stringSpacing.nut', 'String spacing at the nut')}
+        {length('stringSpacing.bridge', 'String spacing at the bridge')}
+      </Group>
+
+      <Group title="Board">
+        {length('overhang.nut', 'Edge overhang at the nut')}
+        {length('overhang.end', 'Edge overhang at the board end')}
+        {length('endExtension', 'Board end past the last fret')}
+      </Group>
+
+      <Group title="Temperament">
+        <div className="flex flex-col gap-1 text-sm">
+          <label className="flex items-center gap-1">
+            <input type="radio" name="temperament" checked={draft.temperamentKind === 'equal'} onChange={() => onChange((d) => ({ ...d, temperamentKind: 'equal' }))} />
+            Equal divisions of the octave
+          </label>
+          <label className="flex items-center gap-1">
+            <input type="radio" name="temperament" checked={draft.temperamentKind === 'scala'} onChange={() => onChange((d) => ({ ...d, temperamentKind: 'scala' }))} />
+            Scala scale file (.scl)
+          </label>
+        </div>
+        {draft.temperamentKind === 'equal' ? (
+          count('temperament.divisions', 'Divisions per octave')
+        ) : (
+          <ScalaUpload
+            scl={draft.scl}
+            errors={errorsOf('temperament.scl')}
+            onLoaded={(scl) => onChange((d) => ({ ...d, scl, temperamentKind: 'scala' }))}
+          />
+        )}
+      </Group>
+
+      <Group title="Slots">
+        {length('slot.width', 'Slot width (kerf)')}
+        <Checkbox label="Stopped slots (end short of both board edges)" checked={draft.slotStopped} onChange={(slotStopped) => onChange((d) => ({ ...d, slotStopped }))} />
+        {draft.slotStopped && length('slot.stopDistance', 'Stop short of each edge by')}
+      </Group>
+
+      <Group title="Compensation">
+        {length('compensation.nut', 'Nut setback')}
+        {length('compensation.saddleTreble', 'Saddle setback, treble')}
+        {length('compensation.saddleBass', 'Saddle setback, bass')}
+        <Checkbox label="Zero fret" checked={draft.zeroFret} onChange={(zeroFret) => onChange((d) => ({ ...d, zeroFret }))} />
+        {draft.zeroFret && length('zeroFretNutGap', 'Zero fret to nut')}
+      </Group>
+
+      <Group title="Markers">
+        <TextField path="markers.single" label="Single markers at frets" value={draft.singleMarkers} errors={[]} onChange={(singleMarkers) => onChange((d) => ({ ...d, singleMarkers }))} />
+        <TextField path="markers.double" label="Double markers at frets" value={draft.doubleMarkers} errors={[]} onChange={(doubleMarkers) => onChange((d) => ({ ...d, doubleMarkers }))} />
+        <p className="text-xs text-ink-soft">Fret numbers separated by spaces or commas.</p>
+        {errorsOf('markers').length > 0 && (
+          <p id="error-markers" className={FIELD_ERROR}>
+            Markers: {errorsOf('markers').join('; ')}
+          </p>
+        )}
+      </Group>
+    </form>
+  );
+}
+
+function Group({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <fieldset className="space-y-2 rounded border border-paper-line bg-white p-3">
+      <legend className="px-1 text-sm font-semibold">{title}</legend>
+      {children}
+    </fieldset>
+  );
+}
+
+interface TextFieldProps {
+  path: string;
+  label: string;
+  value: string;
+  errors: readonly string[];
+  inputMode?: 'numeric' | 'decimal';
+  onChange: (text: string) => void;
+}
+
+function TextField({ path, label, value, errors, inputMode, onChange }: TextFieldProps) {
+  const id = `field-${path}`;
+  const errorId = `error-${path}`;
+  const invalid = errors.length > 0;
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm">{label}</label>
+      <input
+        id={id}
+        name={path}
+        type="text"
+        inputMode={inputMode}
+        autoComplete="off"
+        spellCheck={false}
+        className={INPUT}
+        value={value}
+        aria-invalid={invalid}
+        aria-describedby={invalid ? errorId : undefined}
+        onChange={(event: ChangeEvent<HTMLInputElement>) => onChange(event.target.value)}
+      />
+      {invalid && (
+        <p id={errorId} className={FIELD_ERROR}>
+          {errors.join('; ')}
+        </p>
+      )}
+    </div>
+  );
+}
+
+function Checkbox({ label, checked, onChange }: { label: string; checked: boolean; onChange: (checked: boolean) => void }) {
+  return (
+    <label className="flex items-center gap-2 text-sm">
+      <input type="checkbox" checked={checked} onChange={(event) => onChange(event.target.checked)} />
+      {label}
+    </label>
+  );
+}

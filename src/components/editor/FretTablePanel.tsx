@@ -1,0 +1,148 @@
+/**
+ * The Fret table: the same rows and numbers as the CSV (src/lib/export/csv.ts), shown rounded to
+ * 0.01 mm / 0.001 in, sortable by any column. Copy and download carry the unrounded CSV from
+ * the server (POST /api/layout?format=csv), the authority for exported numbers: the browser's
+ * Math functions may differ from the server's in the last bit.
+ */
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingState,
+} from '@tanstack/react-table';
+import { memo, useMemo, useState } from 'react';
+import { formatLength } from '~/lib/format/units';
+import { fretTableRows, type FretTableRow } from '~/lib/export/csv';
+import type { Layout } from '~/lib/geometry/layout';
+import type { Design } from '~/lib/schemas/design';
+import { BUTTON } from './control-styles';
+
+const column = createColumnHelper<FretTableRow>();
+
+/** Memoised: the table is large and only changes with the (deferred) layout. */
+export const FretTablePanel = memo(function FretTablePanel({ layout, design }: { layout: Layout; design: Design }) {
+  const units = layout.units;
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const [notice, setNotice] = useState('');
+  const rows = useMemo(() => fretTableRows(layout), [layout]);
+  const columns = useMemo(() => {
+    const length = (value: number) => formatLength(value, units);
+    return [
+      column.accessor('fret', { header: 'Fret' }),
+      column.accessor('string', { header: 'String' }),
+      column.accessor('scaleLength', { header: `Scale length (${units})`, cell: (c) => length(c.getValue()) }),
+      column.accessor('fromNut', { header: `From nut (${units})`, cell: (c) => length(c.getValue()) }),
+      column.accessor('fromPrevious', { header: `From previous (${units})`, cell: (c) => length(c.getValue()) }),
+      column.accessor('x', { header: `x (${units})`, cell: (c) => length(c.getValue()) }),
+      column.accessor('y', { header: `y (${units})`, cell: (c) => length(c.getValue()) }),
+    ];
+  }, [units]);
+  const table = useReactTable({
+    data: rows,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
+
+  const [busy, setBusy] = useState(false);
+  const withServerCsv = async (use: (csv: string) => Promise<string>) => {
+    setBusy(true);
+    setNotice('Preparing the CSV…');
+    try {
+      setNotice(await use(await serverCsv(design)));
+    } catch (error) {
+      setNotice(`No CSV: ${error instanceof Error ? error.message : String(error)}`);
+    } finally {
+      setBusy(false);
+    }
+  };
+  const copy = () =>
+    withServerCsv(async (csv) => {
+      await navigator.clipboard.writeText(csv);
+      return 'Fret table copied as CSV.';
+    });
+  const download = () =>
+    withServerCsv(async (csv) => {
+      const url = URL.createObjectURL(new Blob([csv], { type: 'text/csv;charset=utf-8' }));
+      const link = document.createElement('a');
+      link.href = url;
+      link.download = `${fileNameOf(design.name)}-fret-table.csv`;
+      link.click();
+      setTimeout(() => URL.revokeObjectURL(url), 0);
+      return 'Fret table downloaded as CSV.';
+    });
+
+  return (
+    <div className="space-y-2">
+      <div className="flex flex-wrap items-center gap-2">
+        <button type="button" className={BUTTON} onClick={copy} disabled={busy}>Copy CSV</button>
+        <button type="button" className={BUTTON} onClick={download} disabled={busy}>Download CSV</button>
+        <span className="text-xs text-ink-soft" role="status">{notice}</span>
+      </div>
+      <p className="text-xs text-ink-soft">
+        Distances along each string from its nut end (uncompensated); x and y in board coordinates from where
+        the nut line crosses the centre line. Shown rounded; the CSV carries the unrounded numbers.
+      </p>
+      <div className="max-h-80 overflow-auto rounded border border-paper-line bg-white">
+        <table className="w-full font-mono text-xs" aria-label="Fret table">
+          <thead className="sticky top-0 bg-paper-shade">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  return (
+                    <th
+                      key={header.id}
+                      scope="col"
+                      className="px-2 py-1 text-right font-sans font-semibold"
+                      aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}
+                    >
+                      <button type="button" className="underline-offset-2 hover:underline" onClick={header.column.getToggleSortingHandler()}>
+                        {flexRender(header.column.columnDef.header, header.getContext())}
+                        {sorted === 'asc' ? ' ▲ (ascending)' : sorted === 'desc' ? ' ▼ (descending)' : ''}
+                      </button>
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {table.getRowModel().rows.map((row) => (
+              <tr key={row.id} className="odd:bg-paper">
+                {row.getVisibleCells().map((cell) => (
+                  <td key={cell.id} className="px-2 py-0.5 text-right">
+                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+});
+
+async function serverCsv(design: Design): Promise<string> {
+  const response = await fetch('/api/layout?format=csv', {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', accept: 'text/csv' },
+    body: JSON.stringify(design),
+  });
+  if (!response.ok) throw new Error(`the server answered ${response.status}`);
+  return response.text();
+}
+
+/** A safe file name from the design's name. */
+export function fileNameOf(name: string): string {
+  const slug = name
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '');
+  return slug === '' ? 'design' : slug.slice(0, 60);
+}

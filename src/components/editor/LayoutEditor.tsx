@@ -1,0 +1,243 @@
+/**
+ * The Layout screen's island: parameter form beside a live drawing, readouts, fret table and the
+ * server cross-check. In 'view' mode (e.g. a client's Proof) the form is left out: the drawing,
+ * navigation, readouts and fret table stay.
+ *
+ * The preview is computed here with the shared geometry module at every change; POST /api/layout
+ * checks it (see use-server-check.ts) and wins if it ever disagrees.
+ */
+import { Suspense, lazy, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
+import { computeLayout, type Layout } from '~/lib/geometry/layout';
+import { blankDesign } from '~/lib/presets/blank-design';
+import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import type { Design } from '~/lib/schemas/design';
+import { BoardDrawing } from './BoardDrawing';
+import { describeBoard } from './board-summary';
+import { CalibrationPanel } from './CalibrationPanel';
+import { BUTTON } from './control-styles';
+import { createDesignStore, type DesignStorage, type SaveStatus } from './design-store';
+import { draftFromDesign, validateDraft, type DesignDraft } from './design-draft';
+import { DesignForm, type PresetChoice } from './DesignForm';
+import { FretReadout } from './FretReadout';
+import { FretTablePanel } from './FretTablePanel';
+import { redrawStarted } from './redraw-timing';
+import { loadScreenPxPerMm, saveScreenPxPerMm } from './screen-calibration';
+import { useServerCheck, type ServerCheck } from './use-server-check';
+
+export interface LayoutEditorProps {
+  /** 'edit' (default) shows the form; 'view' is read-only: drawing, readouts and fret table. */
+  mode?: 'edit' | 'view';
+  /** The design to open; without it the editor opens the kept design, or the blank preset. */
+  initialDesign?: Design | undefined;
+  /** Where the design is kept in edit mode; the scratch design in this browser by default. */
+  storage?: DesignStorage;
+}
+
+// Loaded when the Exports tab first opens, so the drawing's own script stays small.
+const ExportPanel = lazy(() => import('~/components/export/ExportPanel'));
+
+const BLANK_PRESET_ID = 'blank';
+const PRESETS: readonly PresetChoice[] = [
+  { id: BLANK_PRESET_ID, label: 'Blank design' },
+  ...DEMO_DESIGNS.map((demo) => ({ id: demo.id, label: demo.design.name })),
+];
+/** Wait after the last valid change before keeping the design, in milliseconds. */
+const SAVE_DELAY_MS = 500;
+const SUMMARY_ID = 'board-summary';
+
+function presetDesign(id: string): Design {
+  return DEMO_DESIGNS.find((demo) => demo.id === id)?.design ?? blankDesign();
+}
+
+export default function LayoutEditor({ mode = 'edit', initialDesign, storage = { kind: 'scratch' } }: LayoutEditorProps) {
+  const editing = mode === 'edit';
+  const store = useMemo(() => createDesignStore(storage), [storage.kind]);
+  const [draft, setDraft] = useState<DesignDraft>(() => draftFromDesign(initialDesign ?? blankDesign()));
+  const [loaded, setLoaded] = useState(initialDesign !== undefined || !editing);
+  const [fitRequest, setFitRequest] = useState(0);
+  const [saveStatus, setSaveStatus] = useState<SaveStatus>({ state: 'idle' });
+  const [hoveredFret, setHoveredFret] = useState<number | null>(null);
+  const [pickedFret, setPickedFret] = useState<number | null>(null);
+  const [screen, setScreen] = useState(() => loadScreenPxPerMm(globalThis.localStorage));
+  const [calibrating, setCalibrating] = useState(false);
+  const [tab, setTab] = useState<'table' | 'exports'>('table');
+
+  const validation = useMemo(() => {
+    redrawStarted();
+    return validateDraft(draft);
+  }, [draft]);
+  // While the form is invalid the drawing keeps the last valid design.
+  const lastValid = useRef<Design>(initialDesign ?? blankDesign());
+  if (validation.ok) lastValid.current = validation.design;
+  const design = lastValid.current;
+  const preview = useMemo(() => computeLayout(design), [design]);
+  const serverCheck = useServerCheck(design, preview);
+  const layout: Layout = serverCheck.state === 'mismatch' && serverCheck.layout ? serverCheck.layout : preview;
+  // The table, summary and warnings follow in a later, interruptible render, keeping typing and
+  // redrawing quick.
+  const settledLayout = useDeferredValue(layout);
+  const settledDesign = useDeferredValue(design);
+
+  useEffect(() => {
+    if (loaded) return;
+    let cancelled = false;
+    store.load().then((kept) => {
+      if (cancelled) return;
+      if (kept) {
+        setDraft(draftFromDesign(kept));
+        setFitRequest((n) => n + 1);
+      }
+      setLoaded(true);
+    });
+    return () => {
+      cancelled = true;
+    };
+  }, [loaded, store]);
+
+  useEffect(() => {
+    if (!editing || !loaded || !validation.ok) return;
+    const timer = setTimeout(() => {
+      setSaveStatus({ state: 'saving' });
+      store.save(design).then(setSaveStatus);
+    }, SAVE_DELAY_MS);
+    return () => clearTimeout(timer);
+  }, [editing, loaded, design, validation.ok, store]);
+
+  const startFrom = (presetId: string) => {
+    setDraft(draftFromDesign(presetId === BLANK_PRESET_ID ? blankDesign() : presetDesign(presetId)));
+    setPickedFret(null);
+    setFitRequest((n) => n + 1);
+  };
+
+  const drawing = (
+    <BoardDrawing
+      layout={layout}
+      outOfDate={!validation.ok}
+      fitRequest={fitRequest}
+      highlightedFret={hoveredFret ?? pickedFret}
+      onHoverFret={setHoveredFret}
+      onPickFret={setPickedFret}
+      screenPxPerMm={screen.pxPerMm}
+      describedBy={SUMMARY_ID}
+    />
+  );
+
+  return (
+    <div className="space-y-3">
+      <div role="toolbar" aria-label="Layout tools" className="flex flex-wrap items-center gap-x-4 gap-y-2 rounded border border-paper-line bg-white px-3 py-2 text-sm">
+        <h1 className="mr-auto text-lg font-bold">{editing ? 'Layout' : design.name}</h1>
+        <ServerCheckStatus check={serverCheck} />
+        {editing && (
+          // Saving to the shop's Boards puts its status and save button in this area.
+          <div aria-label="Where this design is kept" role="group" className="flex items-center gap-2 text-xs">
+            <span>{store.place}</span>
+            <span role="status" className="text-ink-soft">{describeSave(saveStatus)}</span>
+          </div>
+        )}
+        <button type="button" className={BUTTON} aria-expanded={calibrating} onClick={() => setCalibrating(!calibrating)}>
+          Screen calibration
+        </button>
+        <a href="/safety" className="text-sm">Safety note: these layouts drive real saws and machines</a>
+      </div>
+
+      {calibrating && (
+        <CalibrationPanel
+          pxPerMm={screen.pxPerMm}
+          calibrated={screen.calibrated}
+          onClose={() => setCalibrating(false)}
+          onSave={(pxPerMm) => {
+            saveScreenPxPerMm(globalThis.localStorage, pxPerMm);
+            setScreen({ pxPerMm, calibrated: true });
+          }}
+        />
+      )}
+
+      <div className={editing ? 'grid gap-4 lg:grid-cols-[22rem_minmax(0,1fr)]' : 'grid gap-4'}>
+        {editing && (
+          <aside aria-label="Design parameters" className="order-2 lg:order-1 lg:max-h-[calc(100vh-8rem)] lg:overflow-y-auto lg:pr-1">
+            <DesignForm draft={draft} onChange={setDraft} issues={validation.ok ? [] : validation.issues} presets={PRESETS} onStartFrom={startFrom} />
+          </aside>
+        )}
+        <div className="order-1 min-w-0 space-y-3 lg:order-2">
+          {drawing}
+          <p id={SUMMARY_ID} className="text-xs text-ink-soft">{describeBoard(settledDesign, settledLayout)}</p>
+          {settledLayout.warnings.length > 0 && (
+            <section aria-label="Check before cutting" className="rounded border border-caution bg-caution-light p-2 text-sm">
+              <h2 className="font-semibold">Check before cutting</h2>
+              <ul className="list-disc pl-5">
+                {settledLayout.warnings.map((warning) => <li key={`${warning.code}-${warning.fret}`}>{warning.message}</li>)}
+              </ul>
+            </section>
+          )}
+          <FretReadout layout={layout} fret={hoveredFret ?? pickedFret} />
+          <section aria-label="Fret table and exports" className="space-y-2">
+            <div role="tablist" aria-label="Board outputs" className="flex gap-1 border-b border-paper-line">
+              <TabButton id="table" selected={tab === 'table'} onSelect={() => setTab('table')}>Fret table</TabButton>
+              {editing && <TabButton id="exports" selected={tab === 'exports'} onSelect={() => setTab('exports')}>Exports</TabButton>}
+            </div>
+            <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`}>
+              {tab === 'table' || !editing ? (
+                <FretTablePanel layout={settledLayout} design={settledDesign} />
+              ) : (
+                <div className="space-y-2">
+                  {!validation.ok && (
+                    <p className="rounded border border-caution bg-caution-light p-2 text-sm" role="status">
+                      The form has errors: these exports are of the last valid layout, not what the form shows.
+                    </p>
+                  )}
+                  <Suspense fallback={<p className="text-sm" role="status">Loading the exports…</p>}>
+                    <ExportPanel design={design} />
+                  </Suspense>
+                </div>
+              )}
+            </div>
+          </section>
+        </div>
+      </div>
+    </div>
+  );
+}
+
+function TabButton({ id, selected, onSelect, children }: { id: string; selected: boolean; onSelect: () => void; children: string }) {
+  return (
+    <button
+      type="button"
+      role="tab"
+      id={`tab-${id}`}
+      aria-selected={selected}
+      aria-controls={`panel-${id}`}
+      onClick={onSelect}
+      className={`-mb-px rounded-t border px-3 py-1 text-sm ${selected ? 'border-paper-line border-b-white bg-white font-semibold' : 'border-transparent text-ink-soft'}`}
+    >
+      {children}
+    </button>
+  );
+}
+
+function ServerCheckStatus({ check }: { check: ServerCheck }) {
+  const text: Record<ServerCheck['state'], string> = {
+    waiting: 'Checking the preview with the server…',
+    match: 'Server check: the preview matches the server’s layout.',
+    mismatch: 'Server check: MISMATCH. The drawing and table show the server’s numbers.',
+    unavailable: 'Server check unavailable: the preview is not confirmed yet.',
+  };
+  return (
+    <p role="status" aria-live="polite" data-check={check.state} className={check.state === 'mismatch' ? 'font-semibold text-rosewood' : 'text-ink-soft'}>
+      {text[check.state]}
+      {(check.state === 'mismatch' || check.state === 'unavailable') && <span className="block text-xs">{check.detail}</span>}
+    </p>
+  );
+}
+
+function describeSave(status: SaveStatus): string {
+  switch (status.state) {
+    case 'idle':
+      return '';
+    case 'saving':
+      return 'keeping…';
+    case 'saved':
+      return `kept at ${status.at.toLocaleTimeString()}`;
+    case 'error':
+      return `not kept: ${status.message}`;
+  }
+}

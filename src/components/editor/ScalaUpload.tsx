@@ -1,0 +1,86 @@
+/**
+ * Loading a Scala .scl file: the server's /api/scala parses it and the form shows its description
+ * and pitches; the design keeps the file's text (validated again by the design schema).
+ */
+import { useId, useState, type ChangeEvent } from 'react';
+import { scalaScaleResponseSchema, type ScalaScaleResponse } from '~/lib/schemas/scala-scale';
+import { FIELD_ERROR } from './control-styles';
+
+/** Largest .scl file sent to the server, in bytes (the server's own limit is 64 KiB). */
+const SCL_MAX_BYTES = 64 * 1024;
+
+export function ScalaUpload({ scl, errors, onLoaded }: { scl: string; errors: readonly string[]; onLoaded: (scl: string) => void }) {
+  const inputId = useId();
+  const [parsed, setParsed] = useState<ScalaScaleResponse | null>(null);
+  const [problem, setProblem] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  const onFile = async (event: ChangeEvent<HTMLInputElement>) => {
+    const file = event.target.files?.[0];
+    if (!file) return;
+    if (file.size > SCL_MAX_BYTES) {
+      setProblem(`the file is larger than ${SCL_MAX_BYTES / 1024} KiB`);
+      return;
+    }
+    setBusy(true);
+    setProblem(null);
+    try {
+      const text = await file.text();
+      const response = await fetch('/api/scala', { method: 'POST', headers: { 'content-type': 'text/plain' }, body: text });
+      const body: unknown = await response.json();
+      if (!response.ok) {
+        setParsed(null);
+        setProblem(errorText(body));
+        return;
+      }
+      const scale = scalaScaleResponseSchema.safeParse(body);
+      if (!scale.success) {
+        setProblem('the server sent an answer this page does not understand');
+        return;
+      }
+      setParsed(scale.data);
+      onLoaded(text);
+    } catch (error) {
+      setProblem(`could not read the file (${String(error)})`);
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  const shownErrors = [...(problem ? [problem] : []), ...errors];
+  return (
+    <div className="space-y-1">
+      <label htmlFor={inputId} className="block text-sm">Scala file (.scl)</label>
+      <input
+        id={inputId}
+        type="file"
+        accept=".scl,text/plain"
+        className="block w-full text-sm"
+        onChange={onFile}
+        aria-invalid={shownErrors.length > 0}
+        aria-describedby={shownErrors.length > 0 ? 'error-temperament.scl' : undefined}
+      />
+      {busy && <p className="text-xs" role="status">Reading the file…</p>}
+      {shownErrors.length > 0 && (
+        <p id="error-temperament.scl" className={FIELD_ERROR}>{shownErrors.join('; ')}</p>
+      )}
+      {parsed ? (
+        <div className="text-xs">
+          <p><span className="font-semibold">Description:</span> {parsed.description || '(none)'}</p>
+          <p className="font-semibold">Pitches (cents above the open string):</p>
+          <ol className="max-h-32 list-decimal overflow-auto pl-6 font-mono">
+            {parsed.pitches.map((pitch, index) => (
+              <li key={index}>{pitch.text} = {pitch.cents.toFixed(3)} cents</li>
+            ))}
+          </ol>
+        </div>
+      ) : (
+        scl !== '' && <p className="text-xs text-ink-soft">A Scala scale is loaded; choose a file to replace it.</p>
+      )}
+    </div>
+  );
+}
+
+function errorText(body: unknown): string {
+  return typeof body === 'object' && body !== null && 'error' in body ? String(body.error) : 'the server could not read this file';
+}

@@ -1,0 +1,20 @@
+/** Words and small pieces shown for a template in several places. */
+import type { TemplateCondition, TemplateView } from '~/lib/schemas/template';
+
+export const CONDITION_LABELS: Record<TemplateCondition, string> = {
+  in_use: 'In use',
+  worn: 'Worn',
+  retired: 'Retired',
+};
+
+/** The last Template check's date and result, in words (not colour alone). */
+export function LastCheck({ template }: { template: Pick<TemplateView, 'lastCheckedOn' | 'lastCheckPassed'> }) {
+  if (!template.lastCheckedOn) return <span className="text-ink-faint">Not checked</span>;
+  const passed = template.lastCheckPassed === true;
+  return (
+    <span>
+      <span className="font-mono">{template.lastCheckedOn.slice(0, 10)}</span>{' '}
+      <strong className={passed ? 'text-spruce' : 'text-rosewood'}>{passed ? 'Pass' : 'Fail'}</strong>
+    </span>
+  );
+}

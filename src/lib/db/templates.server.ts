@@ -1,0 +1,255 @@
+/**
+ * Template shelf queries. Every function takes the caller's shopId and never reads or writes
+ * another shop's rows: a template or design of another shop is simply "not found".
+ */
+import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
+import type { Db } from '~/lib/db/client.server';
+import { designRevisions, designs, templateChecks, templates } from '~/lib/db/schema';
+import type { CheckResult } from '~/lib/template-check/compare';
+import { standInDesign } from '~/lib/template-check/template-design';
+import { validateDesign, type Design } from '~/lib/schemas/design';
+import type { TemplateCreate, TemplateListQuery, TemplatePage, TemplateUpdate, TemplateView } from '~/lib/schemas/template';
+
+type TemplateRow = typeof templates.$inferSelect;
+
+export type ShelfError = { kind: 'not_found'; field?: string; message: string } | { kind: 'conflict'; field?: string; message: string };
+export type ShelfResult<T> = { ok: true; value: T } | { ok: false; error: ShelfError };
+
+const notFound = (message: string, field?: string): { ok: false; error: ShelfError } => ({
+  ok: false,
+  error: { kind: 'not_found', message, ...(field ? { field } : {}) },
+});
+
+const viewColumns = { template: templates, designName: designs.name };
+
+function toView(row: { template: TemplateRow; designName: string | null }): TemplateView {
+  const t = row.template;
+  return {
+    id: t.id,
+    name: t.name,
+    designId: t.designId,
+    designName: row.designName,
+    revision: t.revision,
+    units: t.units,
+    trebleScale: t.trebleScale,
+    bassScale: t.bassScale,
+    frets: t.frets,
+    slotWidth: t.slotWidth,
+    keyWidth: t.keyWidth,
+    material: t.material,
+    storagePlace: t.storagePlace,
+    condition: t.condition,
+    madeOn: t.madeOn,
+    lastCheckedOn: t.lastCheckedOn?.toISOString() ?? null,
+    lastCheckPassed: t.lastCheckPassed,
+    notes: t.notes,
+    updatedAt: t.updatedAt.toISOString(),
+  };
+}
+
+/** Scale lengths compared in mm so inch and mm templates sort together. */
+const trebleScaleMm = sql`(CASE WHEN ${templates.units} = 'in' THEN ${templates.trebleScale} * 25.4 ELSE ${templates.trebleScale} END)`;
+
+const SORT_COLUMNS: Record<TemplateListQuery['sort'], SQL | typeof templates.name> = {
+  name: templates.name,
+  scale: trebleScaleMm,
+  madeOn: sql`${templates.madeOn}`,
+  lastChecked: sql`${templates.lastCheckedOn}`,
+  updated: sql`${templates.updatedAt}`,
+};
+
+/** Escapes LIKE wildcards so a search for "50%" means the text "50%". */
+function likePattern(text: string): string {
+  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+export async function listTemplates(db: Db, shopId: number, query: TemplateListQuery): Promise<TemplatePage> {
+  const filters: SQL[] = [eq(templates.shopId, shopId)];
+  if (query.condition) filters.push(eq(templates.condition, query.condition));
+  if (query.q) {
+    const pattern = likePattern(query.q);
+    filters.push(
+      or(
+        like(templates.name, pattern),
+        like(templates.material, pattern),
+        like(templates.storagePlace, pattern),
+        like(templates.notes, pattern),
+        like(designs.name, pattern),
+      )!,
+    );
+  }
+  const where = and(...filters);
+  const order = query.dir === 'asc' ? asc : desc;
+  const [rows, [total]] = await Promise.all([
+    db
+      .select(viewColumns)
+      .from(templates)
+      .leftJoin(designs, and(eq(designs.id, templates.designId), eq(designs.shopId, templates.shopId)))
+      .where(where)
+      .orderBy(order(SORT_COLUMNS[query.sort]), order(templates.id))
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize),
+    db
+      .select({ n: count() })
+      .from(templates)
+      .leftJoin(designs, and(eq(designs.id, templates.designId), eq(designs.shopId, templates.shopId)))
+      .where(where),
+  ]);
+  return { items: rows.map(toView), total: total?.n ?? 0, page: query.page, pageSize: query.pageSize };
+}
+
+export async function getTemplate(db: Db, shopId: number, id: number): Promise<TemplateView | null> {
+  const [row] = await db
+    .select(viewColumns)
+    .from(templates)
+    .leftJoin(designs, and(eq(designs.id, templates.designId), eq(designs.shopId, templates.shopId)))
+    .where(and(eq(templates.shopId, shopId), eq(templates.id, id)))
+    .limit(1);
+  return row ? toView(row) : null;
+}
+
+/** A design revision of this shop, validated; null when the design or revision does not exist. */
+export async function loadDesignRevision(
+  db: Db,
+  shopId: number,
+  designId: number,
+  revision?: number,
+): Promise<{ design: Design; designId: number; revision: number; name: string } | null> {
+  const [head] = await db
+    .select({ id: designs.id, name: designs.name, currentRevision: designs.currentRevision })
+    .from(designs)
+    .where(and(eq(designs.shopId, shopId), eq(designs.id, designId)))
+    .limit(1);
+  if (!head) return null;
+  const wanted = revision ?? head.currentRevision;
+  const [row] = await db
+    .select({ data: designRevisions.data })
+    .from(designRevisions)
+    .where(and(eq(designRevisions.designId, head.id), eq(designRevisions.revision, wanted)))
+    .limit(1);
+  if (!row) return null;
+  const validation = validateDesign(row.data);
+  if (!validation.ok) return null;
+  return { design: validation.design, designId: head.id, revision: wanted, name: head.name };
+}
+
+/** The shop's designs a template can be made from (newest first). */
+export async function listDesignChoices(db: Db, shopId: number): Promise<{ id: number; name: string; revision: number; units: 'mm' | 'in' }[]> {
+  const rows = await db
+    .select({ id: designs.id, name: designs.name, revision: designs.currentRevision, units: designs.units })
+    .from(designs)
+    .where(and(eq(designs.shopId, shopId), sql`${designs.archivedAt} IS NULL`))
+    .orderBy(desc(designs.updatedAt))
+    .limit(200);
+  return rows;
+}
+
+export async function createTemplate(db: Db, shopId: number, input: TemplateCreate): Promise<ShelfResult<TemplateView>> {
+  const shelf = {
+    keyWidth: input.keyWidth,
+    material: input.material,
+    storagePlace: input.storagePlace,
+    condition: input.condition,
+    madeOn: input.madeOn,
+    notes: input.notes,
+  };
+  let values: typeof templates.$inferInsert;
+  if (input.source === 'design') {
+    const found = await loadDesignRevision(db, shopId, input.designId, input.revision);
+    if (!found) return notFound(input.revision ? 'No such design revision in this shop' : 'No such design in this shop', input.revision ? 'revision' : 'designId');
+    const { design } = found;
+    values = {
+      ...shelf,
+      shopId,
+      name: input.name ?? found.name,
+      designId: found.designId,
+      revision: found.revision,
+      units: design.units,
+      trebleScale: design.scale.treble,
+      bassScale: design.scale.bass,
+      frets: design.frets,
+      slotWidth: input.slotWidth ?? design.slot.width,
+    };
+  } else {
+    values = {
+      ...shelf,
+      shopId,
+      name: input.name,
+      units: input.units,
+      trebleScale: input.trebleScale,
+      bassScale: input.bassScale,
+      frets: input.frets,
+      slotWidth: input.slotWidth,
+    };
+  }
+  const [inserted] = await db.insert(templates).values(values).$returningId();
+  const view = await getTemplate(db, shopId, inserted!.id);
+  return { ok: true, value: view! };
+}
+
+export async function updateTemplate(db: Db, shopId: number, id: number, patch: TemplateUpdate): Promise<TemplateView | null> {
+  const result = await db
+    .update(templates)
+    .set({ ...patch, updatedAt: new Date() })
+    .where(and(eq(templates.shopId, shopId), eq(templates.id, id)));
+  if (result[0].affectedRows === 0) return null;
+  return getTemplate(db, shopId, id);
+}
+
+/** Templates are retired, not deleted: their checks stay on record. */
+export async function retireTemplate(db: Db, shopId: number, id: number): Promise<TemplateView | null> {
+  return updateTemplate(db, shopId, id, { condition: 'retired' });
+}
+
+/** The design a template is checked against (its revision, or a stand-in from typed scales). */
+export async function templateDesign(db: Db, shopId: number, template: TemplateView): Promise<{ design: Design; standIn: boolean } | null> {
+  if (template.designId !== null && template.revision !== null) {
+    const found = await loadDesignRevision(db, shopId, template.designId, template.revision);
+    if (found) return { design: found.design, standIn: false };
+  }
+  const design = standInDesign(template);
+  return design ? { design, standIn: true } : null;
+}
+
+export interface SavedCheck {
+  id: number;
+  checkedBy: string;
+  tolerance: number;
+  passed: boolean;
+  result: CheckResult;
+  createdAt: string;
+}
+
+/** Saves a check and records its date and verdict on the template, together. */
+export async function saveCheck(db: Db, shopId: number, templateId: number, userId: string, result: CheckResult): Promise<SavedCheck> {
+  const now = new Date();
+  const id = await db.transaction(async (tx) => {
+    const [inserted] = await tx
+      .insert(templateChecks)
+      .values({ shopId, templateId, checkedBy: userId, tolerance: result.tolerance, passed: result.passed, result, createdAt: now })
+      .$returningId();
+    await tx
+      .update(templates)
+      .set({ lastCheckedOn: now, lastCheckPassed: result.passed, updatedAt: now })
+      .where(and(eq(templates.shopId, shopId), eq(templates.id, templateId)));
+    return inserted!.id;
+  });
+  return { id, checkedBy: userId, tolerance: result.tolerance, passed: result.passed, result, createdAt: now.toISOString() };
+}
+
+export async function listChecks(db: Db, shopId: number, templateId: number): Promise<SavedCheck[]> {
+  const rows = await db
+    .select()
+    .from(templateChecks)
+    .where(and(eq(templateChecks.shopId, shopId), eq(templateChecks.templateId, templateId)))
+    .orderBy(desc(templateChecks.createdAt), desc(templateChecks.id))
+    .limit(100);
+  return rows.map((row) => ({
+    id: row.id,
+    checkedBy: row.checkedBy,
+    tolerance: row.tolerance,
+    passed: row.passed,
+    result: row.result as CheckResult,
+    createdAt: row.createdAt.toISOString(),
+  }));
+}

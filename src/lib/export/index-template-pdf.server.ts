@@ -1,0 +1,76 @@
+/**
+ * The index template strip as a 1:1 PDF on one page sized to fit it (for a roll or large-format
+ * printer, or to glue onto template stock), with the calibration bars, the print-at-100 % caution
+ * and the machine cautions. The strip is drawn in board coordinates with y (bass side) down.
+ */
+import { PDFDocument, degrees, rgb, type PDFPage } from 'pdf-lib';
+import type { Point } from '~/lib/geometry/plane';
+import { drawCalibrationBars, embedMonoFont, FAINT, INK, PT_PER_MM, ptPerUnit } from './index-template-pdf-kit.server';
+import type { IndexTemplateStrip } from './index-template';
+
+const MARGIN_PT = 15 * PT_PER_MM;
+const HEADER_PT = 62 * PT_PER_MM;
+const MIN_WIDTH_PT = 200 * PT_PER_MM;
+
+export const PRINT_CAUTION = 'Print at 100 % / actual size; measure the bar before cutting.';
+
+/** Where board point (0, 0) lands on the page and how many points one design unit is. */
+export interface StripPlacement {
+  originX: number;
+  originY: number;
+  scale: number;
+}
+
+export async function indexTemplatePdf(strip: IndexTemplateStrip): Promise<{ bytes: Uint8Array; placement: StripPlacement; pageSize: [number, number] }> {
+  const scale = ptPerUnit(strip.units);
+  const xs = strip.outline.map((p) => p.x);
+  const ys = strip.outline.map((p) => p.y);
+  const minX = Math.min(...xs);
+  const maxY = Math.max(...ys);
+  const stripWidthPt = (Math.max(...xs) - minX) * scale;
+  const stripHeightPt = (maxY - Math.min(...ys)) * scale;
+  const width = Math.max(stripWidthPt + 2 * MARGIN_PT, MIN_WIDTH_PT);
+  const height = stripHeightPt + 2 * MARGIN_PT + HEADER_PT;
+  const placement: StripPlacement = { originX: MARGIN_PT - minX * scale, originY: MARGIN_PT + maxY * scale, scale };
+  const at = (p: Point) => ({ x: placement.originX + p.x * scale, y: placement.originY - p.y * scale });
+
+  const doc = await PDFDocument.create();
+  doc.setTitle(`Index template: ${strip.name}`);
+  doc.setCreator('Kerfline');
+  const font = await embedMonoFont(doc);
+  const page = doc.addPage([width, height]);
+
+  const polygon = (points: readonly Point[], thickness: number, target: PDFPage = page) => {
+    points.forEach((p, i) => {
+      target.drawLine({ start: at(p), end: at(points[(i + 1) % points.length]!), thickness, color: INK });
+    });
+  };
+  polygon(strip.outline, 0.6);
+  for (const slot of [strip.nutSlot, ...strip.slots]) {
+    polygon(slot.outline, 0.3);
+    // Hairline on the slot's centre line: the exact fret position.
+    page.drawLine({ start: at(slot.cut.start), end: at(slot.cut.end), thickness: 0.1, color: rgb(0.75, 0.1, 0.1) });
+  }
+  for (const text of strip.engraving) {
+    const size = text.height * scale;
+    const start = at(text.start);
+    const end = at(text.end);
+    const angle = Math.atan2(end.y - start.y, end.x - start.x);
+    const textWidth = font.widthOfTextAtSize(text.text, size);
+    const midX = (start.x + end.x) / 2 - (Math.cos(angle) * textWidth) / 2;
+    const midY = (start.y + end.y) / 2 - (Math.sin(angle) * textWidth) / 2;
+    page.drawText(text.text, { x: midX, y: midY, size, font, color: INK, rotate: degrees((angle * 180) / Math.PI) });
+  }
+
+  let line = height - MARGIN_PT;
+  const write = (text: string, size: number, color = INK) => {
+    line -= size * 1.5;
+    page.drawText(text, { x: MARGIN_PT, y: line, size, font, color });
+  };
+  write(`Index template: ${strip.name}`, 11);
+  write(PRINT_CAUTION, 9);
+  for (const note of strip.notes) write(note, 7, FAINT);
+  drawCalibrationBars(page, font, MARGIN_PT, line - 30);
+
+  return { bytes: await doc.save(), placement, pageSize: [width, height] };
+}

@@ -1,0 +1,31 @@
+/** What every Template shelf route does first: the role check, then the template of this shop. */
+import { CAN, requireRole, type SessionUser } from '~/lib/auth/index.server';
+import { db } from '~/lib/db/client.server';
+import { getTemplate } from '~/lib/db/templates.server';
+import { problem } from '~/lib/http/problem';
+import type { TemplateView } from '~/lib/schemas/template';
+
+export type Allowed<T> = { ok: true; value: T } | { ok: false; response: Response };
+
+/** Builders and owners only (clients get 403, visitors 401). */
+export function shelfUser(user: SessionUser | null): Allowed<SessionUser> {
+  const guard = requireRole(user, CAN.design);
+  return guard.ok ? { ok: true, value: guard.user } : { ok: false, response: guard.response };
+}
+
+/** Parses a positive whole id from a route parameter; anything else is "not found". */
+export function parseId(raw: string | undefined): number | null {
+  if (!raw || !/^[1-9]\d{0,15}$/.test(raw)) return null;
+  const id = Number(raw);
+  return Number.isSafeInteger(id) ? id : null;
+}
+
+/** The signed-in shop member and the template `rawId` of their shop; 404 for any other id. */
+export async function shelfTemplate(user: SessionUser | null, rawId: string | undefined): Promise<Allowed<{ user: SessionUser; template: TemplateView }>> {
+  const allowed = shelfUser(user);
+  if (!allowed.ok) return allowed;
+  const id = parseId(rawId);
+  const template = id === null ? null : await getTemplate(db(), allowed.value.shopId, id);
+  if (!template) return { ok: false, response: problem(404, 'No such template') };
+  return { ok: true, value: { user: allowed.value, template } };
+}

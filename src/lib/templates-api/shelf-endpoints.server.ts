@@ -1,0 +1,54 @@
+/** GET/POST /api/templates and GET/PATCH/DELETE /api/templates/{id}. */
+import { db } from '~/lib/db/client.server';
+import { createTemplate, listTemplates, retireTemplate, updateTemplate } from '~/lib/db/templates.server';
+import { readJson } from '~/lib/http/body.server';
+import { invalid, json, problem, zodIssues } from '~/lib/http/problem';
+import type { SessionUser } from '~/lib/auth/index.server';
+import { templateCreateSchema, templateListQuerySchema, templateUpdateSchema } from '~/lib/schemas/template';
+import { shelfTemplate, shelfUser } from './route-context.server';
+
+const BODY_MAX_BYTES = 16 * 1024;
+
+export async function listRoute(user: SessionUser | null, url: URL): Promise<Response> {
+  const allowed = shelfUser(user);
+  if (!allowed.ok) return allowed.response;
+  const query = templateListQuerySchema.safeParse(Object.fromEntries(url.searchParams));
+  if (!query.success) return invalid(zodIssues(query.error));
+  return json(await listTemplates(db(), allowed.value.shopId, query.data));
+}
+
+export async function createRoute(user: SessionUser | null, request: Request): Promise<Response> {
+  const allowed = shelfUser(user);
+  if (!allowed.ok) return allowed.response;
+  const body = await readJson(request, BODY_MAX_BYTES);
+  if (!body.ok) return body.response;
+  const input = templateCreateSchema.safeParse(body.value);
+  if (!input.success) return invalid(zodIssues(input.error));
+  const created = await createTemplate(db(), allowed.value.shopId, input.data);
+  if (!created.ok) return problem(404, created.error.message, { field: created.error.field });
+  return json(created.value, 201, { location: `/api/templates/${created.value.id}` });
+}
+
+export async function readRoute(user: SessionUser | null, id: string | undefined): Promise<Response> {
+  const found = await shelfTemplate(user, id);
+  return found.ok ? json(found.value.template) : found.response;
+}
+
+export async function updateRoute(user: SessionUser | null, id: string | undefined, request: Request): Promise<Response> {
+  const found = await shelfTemplate(user, id);
+  if (!found.ok) return found.response;
+  const body = await readJson(request, BODY_MAX_BYTES);
+  if (!body.ok) return body.response;
+  const patch = templateUpdateSchema.safeParse(body.value);
+  if (!patch.success) return invalid(zodIssues(patch.error));
+  const updated = await updateTemplate(db(), found.value.user.shopId, found.value.template.id, patch.data);
+  return updated ? json(updated) : problem(404, 'No such template');
+}
+
+/** DELETE retires the template: it leaves the working shelf but its checks stay on record. */
+export async function retireRoute(user: SessionUser | null, id: string | undefined): Promise<Response> {
+  const found = await shelfTemplate(user, id);
+  if (!found.ok) return found.response;
+  const retired = await retireTemplate(db(), found.value.user.shopId, found.value.template.id);
+  return retired ? json(retired) : problem(404, 'No such template');
+}

@@ -1,0 +1,6 @@
+import type { APIRoute } from 'astro';
+import { indexTemplateRoute } from '~/lib/templates-api/export-endpoints.server';
+
+export const prerender = false;
+
+export const GET: APIRoute = ({ locals, params, url }) => indexTemplateRoute(locals.user, params.id, url);

@@ -1,0 +1,6 @@
+import type { APIRoute } from 'astro';
+import { labelRoute } from '~/lib/templates-api/export-endpoints.server';
+
+export const prerender = false;
+
+export const GET: APIRoute = ({ locals, params, url }) => labelRoute(locals.user, params.id, url);

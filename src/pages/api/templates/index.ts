@@ -1,0 +1,7 @@
+import type { APIRoute } from 'astro';
+import { createRoute, listRoute } from '~/lib/templates-api/shelf-endpoints.server';
+
+export const prerender = false;
+
+export const GET: APIRoute = ({ locals, url }) => listRoute(locals.user, url);
+export const POST: APIRoute = ({ locals, request }) => createRoute(locals.user, request);

@@ -1,0 +1,201 @@
+import { and, count, eq } from 'drizzle-orm';
+import DxfParser from 'dxf-parser';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { SessionUser } from '~/lib/auth/index.server';
+import { designRevisions, designs, templateChecks, templates, users } from '~/lib/db/schema';
+import { seedDemoShop } from '~/lib/db/seed/demo-shop.server';
+import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server';
+import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import type { TemplateView } from '~/lib/schemas/template';
+import { listChecksRoute, postCheckRoute } from '~/lib/templates-api/check-endpoints.server';
+import { indexTemplateRoute, labelRoute } from '~/lib/templates-api/export-endpoints.server';
+import { createRoute, listRoute, readRoute, retireRoute, updateRoute } from '~/lib/templates-api/shelf-endpoints.server';
+import { newShopUser, type TestUser } from '../support/sessions';
+import { closeDb, db } from '../support/test-db';
+
+afterAll(() => closeDb());
+
+const ORIGIN = 'http://127.0.0.1:4321';
+
+async function sessionUser(test: TestUser): Promise<SessionUser> {
+  const [row] = await db().select().from(users).where(eq(users.id, test.id));
+  return { id: row!.id, shopId: row!.shopId, email: row!.email, displayName: row!.displayName, role: row!.role, preferredUnits: row!.preferredUnits };
+}
+
+function jsonRequest(path: string, method: string, body: unknown): Request {
+  return new Request(`${ORIGIN}${path}`, { method, headers: { 'content-type': 'application/json', origin: ORIGIN }, body: JSON.stringify(body) });
+}
+
+function csvRequest(path: string, csv: string): Request {
+  return new Request(`${ORIGIN}${path}`, { method: 'POST', headers: { 'content-type': 'text/csv', origin: ORIGIN }, body: csv });
+}
+
+/** Saves a demo design as design + revision 1 in `shopId`, the way the Boards area stores them. */
+async function saveDesign(shopId: number, authorId: string, presetId: string): Promise<number> {
+  const design = DEMO_DESIGNS.find((d) => d.id === presetId)!.design;
+  const [head] = await db()
+    .insert(designs)
+    .values({ shopId, name: design.name, units: design.units, trebleScaleMm: design.scale.treble, bassScaleMm: design.scale.bass, createdBy: authorId, updatedBy: authorId })
+    .$returningId();
+  await db().insert(designRevisions).values({ designId: head!.id, revision: 1, data: design, authorId });
+  return head!.id;
+}
+
+const closedForm = (scale: number, fret: number) => scale * (1 - 2 ** (-fret / 12));
+const typed = { source: 'typed', units: 'mm', trebleScale: 635, bassScale: 635, frets: 20, slotWidth: 0.6, keyWidth: 0.55 };
+
+let builder: SessionUser;
+let client: SessionUser;
+let otherOwner: SessionUser;
+
+beforeAll(async () => {
+  const b = await newShopUser('builder');
+  builder = await sessionUser(b);
+  const c = await newShopUser('client');
+  client = await sessionUser(c);
+  otherOwner = await sessionUser(await newShopUser('owner'));
+});
+
+async function create(user: SessionUser, body: unknown): Promise<Response> {
+  return createRoute(user, jsonRequest('/api/templates', 'POST', body));
+}
+
+async function createdTemplate(user: SessionUser, body: unknown): Promise<TemplateView> {
+  const response = await create(user, body);
+  expect(response.status).toBe(201);
+  return (await response.json()) as TemplateView;
+}
+
+describe('Template shelf API', () => {
+  it('creates from typed scale lengths; refuses bad fields with 400 naming the field; clients 403, visitors 401', async () => {
+    const t = await createdTemplate(builder, { ...typed, name: 'Typed 635' });
+    expect(t).toMatchObject({ name: 'Typed 635', designId: null, trebleScale: 635, frets: 20, keyWidth: 0.55, condition: 'in_use' });
+    const bad = await create(builder, { ...typed, name: 'Bad', trebleScale: -1 });
+    expect(bad.status).toBe(400);
+    expect(await bad.json()).toMatchObject({ field: 'trebleScale' });
+    const badDate = await create(builder, { ...typed, name: 'Bad date', madeOn: '2025-02-30' });
+    expect((await badDate.json()) as object).toMatchObject({ field: 'madeOn' });
+    expect((await create(client, { ...typed, name: 'No' })).status).toBe(403);
+    expect((await create(null as unknown as SessionUser, { ...typed, name: 'No' })).status).toBe(401);
+  });
+
+  it("creates from a design's current revision, copying scale, frets and slot width; another shop's design is 404", async () => {
+    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const t = await createdTemplate(builder, { source: 'design', designId, keyWidth: 0.5 });
+    expect(t).toMatchObject({ designId, revision: 1, name: 'Demo: 650 mm classical guitar', trebleScale: 650, bassScale: 650, frets: 19, slotWidth: 0.55, units: 'mm' });
+    const foreign = await create(otherOwner, { source: 'design', designId, keyWidth: 0.5 });
+    expect(foreign.status).toBe(404);
+    expect(await foreign.json()).toMatchObject({ field: 'designId' });
+    const noRevision = await create(builder, { source: 'design', designId, revision: 9, keyWidth: 0.5 });
+    expect(await noRevision.json()).toMatchObject({ field: 'revision' });
+  });
+
+  it('lists with search, condition filter, sort by scale and pages; only the own shop', async () => {
+    const shop = await sessionUser(await newShopUser('owner'));
+    for (const [name, scale, material] of [['Alpha', 650, 'aluminium'], ['Beta', 628.65, 'phenolic'], ['Gamma', 25.5, 'acrylic']] as const) {
+      await createdTemplate(shop, { ...typed, name, trebleScale: scale, bassScale: scale, units: name === 'Gamma' ? 'in' : 'mm', slotWidth: 0.02, keyWidth: 0.02, material });
+    }
+    const list = async (query: string) => (await (await listRoute(shop, new URL(`${ORIGIN}/api/templates?${query}`))).json()) as { items: TemplateView[]; total: number };
+    expect((await list('sort=scale&dir=asc')).items.map((t) => t.name)).toEqual(['Beta', 'Gamma', 'Alpha']); // 25.5 in = 647.7 mm
+    expect((await list('q=phen')).items.map((t) => t.name)).toEqual(['Beta']);
+    const page2 = await list('sort=name&dir=asc&pageSize=2&page=2');
+    expect(page2.total).toBe(3);
+    expect(page2.items.map((t) => t.name)).toEqual(['Gamma']);
+    const retired = (await list('q=Alpha')).items[0]!;
+    expect((await retireRoute(shop, String(retired.id))).status).toBe(200);
+    expect((await list('condition=retired')).items.map((t) => t.name)).toEqual(['Alpha']);
+    expect((await list('condition=in_use')).total).toBe(2);
+    const badSort = await listRoute(shop, new URL(`${ORIGIN}/api/templates?sort=colour`));
+    expect(badSort.status).toBe(400);
+    expect(await badSort.json()).toMatchObject({ field: 'sort' });
+  });
+
+  it("updates shelf fields; another shop's id and a malformed id are 404", async () => {
+    const t = await createdTemplate(builder, { ...typed, name: 'To edit' });
+    const updated = await updateRoute(builder, String(t.id), jsonRequest(`/api/templates/${t.id}`, 'PATCH', { storagePlace: 'Rack C', condition: 'worn' }));
+    expect(await updated.json()).toMatchObject({ storagePlace: 'Rack C', condition: 'worn' });
+    const bad = await updateRoute(builder, String(t.id), jsonRequest(`/api/templates/${t.id}`, 'PATCH', { condition: 'lost' }));
+    expect(bad.status).toBe(400);
+    expect((await readRoute(otherOwner, String(t.id))).status).toBe(404);
+    expect((await updateRoute(otherOwner, String(t.id), jsonRequest(`/api/templates/${t.id}`, 'PATCH', { notes: 'x' }))).status).toBe(404);
+    expect((await readRoute(builder, 'abc')).status).toBe(404);
+    expect((await readRoute(client, String(t.id))).status).toBe(403);
+  });
+});
+
+describe('Template check API', () => {
+  it('saves a grid check with its verdict and records the last result on the template', async () => {
+    const t = await createdTemplate(builder, { ...typed, name: 'Grid check' });
+    const measurements = Array.from({ length: 20 }, (_, i) => ({ fret: i + 1, fromNut: closedForm(628.65, i + 1) }));
+    const response = await postCheckRoute(builder, String(t.id), jsonRequest(`/api/templates/${t.id}/checks`, 'POST', { units: 'mm', tolerance: 0.05, measurements }));
+    expect(response.status).toBe(201);
+    const saved = (await response.json()) as { passed: boolean; result: { fits: { scale: { scaleLength: number } }[] } };
+    expect(saved.passed).toBe(false);
+    expect(Math.abs(saved.result.fits[0]!.scale.scaleLength - 628.65)).toBeLessThan(0.01); // mm
+    const after = (await (await readRoute(builder, String(t.id))).json()) as TemplateView;
+    expect(after.lastCheckPassed).toBe(false);
+    expect(after.lastCheckedOn).not.toBeNull();
+    const listed = (await (await listChecksRoute(builder, String(t.id))).json()) as { items: unknown[] };
+    expect(listed.items).toHaveLength(1);
+  });
+
+  it('takes a CSV upload in inches; a bad CSV is 400 with the line and reason and saves nothing', async () => {
+    const t = await createdTemplate(builder, { ...typed, name: 'CSV check' });
+    const checksOf = async () => (await db().select({ n: count() }).from(templateChecks).where(eq(templateChecks.templateId, t.id)))[0]!.n;
+    const bad = await postCheckRoute(builder, String(t.id), csvRequest(`/api/templates/${t.id}/checks?units=mm&tolerance=0.1`, 'fret,from_nut\n1,35.6\n1,35.7\n'));
+    expect(bad.status).toBe(400);
+    expect(await bad.json()).toMatchObject({ field: 'csv', line: 3, error: 'CSV line 3: duplicate fret: fret 1 is already listed' });
+    const outOfRange = await postCheckRoute(builder, String(t.id), csvRequest(`/api/templates/${t.id}/checks?units=mm&tolerance=0.1`, 'fret,from_nut\n21,500\n'));
+    expect(await outOfRange.json()).toMatchObject({ line: 2 });
+    const noTolerance = await postCheckRoute(builder, String(t.id), csvRequest(`/api/templates/${t.id}/checks?units=mm`, '1,35.6\n'));
+    expect(await noTolerance.json()).toMatchObject({ field: 'tolerance' });
+    const tooBig = await postCheckRoute(builder, String(t.id), csvRequest(`/api/templates/${t.id}/checks?units=mm&tolerance=0.1`, '1,35.6\n'.repeat(10_000)));
+    expect(tooBig.status).toBe(413);
+    expect(await checksOf()).toBe(0);
+    const inches = Array.from({ length: 20 }, (_, i) => `${i + 1},${closedForm(635, i + 1) / 25.4}`).join('\n');
+    const good = await postCheckRoute(builder, String(t.id), csvRequest(`/api/templates/${t.id}/checks?units=in&tolerance=0.002`, `fret,from_nut\n${inches}\n`));
+    expect(good.status).toBe(201);
+    expect(await good.json()).toMatchObject({ passed: true });
+    expect(await checksOf()).toBe(1);
+    const wrongType = await postCheckRoute(builder, String(t.id), new Request(`${ORIGIN}/api/templates/${t.id}/checks`, { method: 'POST', headers: { 'content-type': 'image/png' }, body: 'x' }));
+    expect(wrongType.status).toBe(415);
+    expect((await postCheckRoute(otherOwner, String(t.id), csvRequest(`/api/templates/${t.id}/checks?units=mm&tolerance=0.1`, '1,35.6\n'))).status).toBe(404);
+  });
+});
+
+describe('label and index template downloads', () => {
+  it('label PDF for a known size; an unknown size is 400 naming size', async () => {
+    const t = await createdTemplate(builder, { ...typed, name: 'Labelled' });
+    const label = await labelRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/label?size=100x50`));
+    expect(label.status).toBe(200);
+    expect(label.headers.get('content-type')).toBe('application/pdf');
+    expect(new TextDecoder().decode((await label.arrayBuffer()).slice(0, 5))).toBe('%PDF-');
+    const bad = await labelRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/label?size=huge`));
+    expect(await bad.json()).toMatchObject({ field: 'size' });
+  });
+
+  it('index template DXF from a typed single-scale template; a typed fanned one is 409 (needs its design)', async () => {
+    const t = await createdTemplate(builder, { ...typed, name: 'Strip' });
+    const dxf = await indexTemplateRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/index-template?format=dxf`));
+    expect(dxf.status).toBe(200);
+    const parsed = new DxfParser().parseSync(await dxf.text());
+    expect(parsed?.header['$INSUNITS']).toBe(4);
+    const fan = await createdTemplate(builder, { ...typed, name: 'Typed fan', bassScale: 686 });
+    const refused = await indexTemplateRoute(builder, String(fan.id), new URL(`${ORIGIN}/api/templates/${fan.id}/index-template?format=pdf`));
+    expect(refused.status).toBe(409);
+  });
+});
+
+describe('demo seed: templates', () => {
+  it('puts three templates and one saved check on the demo shelf, idempotently', async () => {
+    const { shopId } = await seedDemoShop(db(), DEMO_SEED_STEPS);
+    await seedDemoShop(db(), DEMO_SEED_STEPS);
+    const rows = await db().select().from(templates).where(eq(templates.shopId, shopId));
+    const names = ['Classical 650 master', 'Old 628.65 mm steel-string master', 'Mandolin 13.875 in master'];
+    for (const name of names) expect(rows.filter((r) => r.name === name)).toHaveLength(1);
+    const old = rows.find((r) => r.name === names[1])!;
+    const checks = await db().select().from(templateChecks).where(and(eq(templateChecks.shopId, shopId), eq(templateChecks.templateId, old.id)));
+    expect(checks).toHaveLength(1);
+    expect(old.lastCheckPassed).toBe(checks[0]!.passed);
+  });
+});

@@ -1,0 +1,82 @@
+import { describe, expect, it } from 'vitest';
+import { draftFromDesign, switchUnits, typedLength, validateDraft, type DesignDraft } from '~/components/editor/design-draft';
+import { blankDesign } from '~/lib/presets/blank-design';
+import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import type { Design } from '~/lib/schemas/design';
+
+function demo(id: string): Design {
+  const found = DEMO_DESIGNS.find((d) => d.id === id);
+  if (!found) throw new Error(`no demo ${id}`);
+  return found.design;
+}
+
+function validDesign(draft: DesignDraft): Design {
+  const result = validateDraft(draft);
+  if (!result.ok) throw new Error(JSON.stringify(result.issues));
+  return result.design;
+}
+
+describe('form draft and the shared design schema', () => {
+  it('a draft made from a design validates back to the same design', () => {
+    for (const { design } of DEMO_DESIGNS) expect(validDesign(draftFromDesign(design))).toEqual(design);
+    expect(validDesign(draftFromDesign(blankDesign()))).toEqual(blankDesign());
+  });
+
+  it('reports text that is not a number on its own field, and schema errors with the schema path', () => {
+    const draft = draftFromDesign(blankDesign());
+    const typed = { ...draft, lengths: { ...draft.lengths, 'scale.bass': typedLength('six hundred') } };
+    const result = validateDraft({ ...typed, numbers: { ...typed.numbers, frets: '40' } });
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    expect(result.issues).toContainEqual({ path: 'scale.bass', message: 'enter a number' });
+    expect(result.issues.find((issue) => issue.path === 'frets')?.message).toMatch(/whole number from 1 to 36/);
+  });
+
+  it('builds markers from the single and double lists', () => {
+    const draft = { ...draftFromDesign(blankDesign()), singleMarkers: '5, 3 7', doubleMarkers: '12' };
+    expect(validDesign(draft).markers).toEqual([
+      { fret: 3, kind: 'single' },
+      { fret: 5, kind: 'single' },
+      { fret: 7, kind: 'single' },
+      { fret: 12, kind: 'double' },
+    ]);
+    const bad = validateDraft({ ...draft, singleMarkers: '3 x' });
+    expect(bad.ok ? [] : bad.issues).toContainEqual({ path: 'markers', message: '"x" is not a fret number' });
+  });
+});
+
+describe('unit switching', () => {
+  it('converts every length exactly at 25.4 mm per inch (international inch, 1959)', () => {
+    const mm = demo('seven-string-fan');
+    const inches = validDesign(switchUnits(draftFromDesign(mm), 'in'));
+    expect(inches.units).toBe('in');
+    expect(inches.scale.treble).toBe(648 / 25.4);
+    expect(inches.scale.bass).toBe(686 / 25.4);
+    expect(inches.stringSpacing.bridge).toBe(63 / 25.4);
+    expect(inches.compensation.saddleBass).toBe(4 / 25.4);
+    // Counts are not lengths and stay as they are.
+    expect(inches.frets).toBe(mm.frets);
+    expect(inches.perpendicularFret).toBe(mm.perpendicularFret);
+  });
+
+  it('round-trips mm -> in -> mm and in -> mm -> in to the same numbers, bit for bit', () => {
+    for (const { design } of DEMO_DESIGNS) {
+      const other = design.units === 'mm' ? 'in' : 'mm';
+      const draft = draftFromDesign(design);
+      const there = switchUnits(draft, other);
+      const back = switchUnits(there, design.units);
+      expect(back).toEqual(draft);
+      expect(validDesign(back)).toEqual(design);
+    }
+  });
+
+  it('shows converted values rounded but computes with the exact value; an edited field converts from what was typed', () => {
+    const draft = switchUnits(draftFromDesign(demo('seven-string-fan')), 'in');
+    expect(draft.lengths['scale.treble'].text).toBe('25.51181');
+    const edited = { ...draft, lengths: { ...draft.lengths, 'scale.treble': typedLength('25.5') } };
+    const back = switchUnits(edited, 'mm');
+    expect(back.lengths['scale.treble'].text).toBe('647.7');
+    expect(back.lengths['scale.bass'].text).toBe('686');
+    expect(validDesign(back).scale.treble).toBe(25.5 * 25.4);
+  });
+});
