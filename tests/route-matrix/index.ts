@@ -1,4 +1,5 @@
 import { ACCOUNT_ROUTES } from './accounts.ts';
+import { BOARDS_ROUTES } from './boards.ts';
 import { EXPORT_ROUTES } from './exports.ts';
 import { PROOF_ROUTES } from './proof.ts';
 import { SITE_ROUTES } from './site.ts';
@@ -12,4 +13,5 @@ export const ROUTE_CASES: readonly RouteCase[] = [
   ...EXPORT_ROUTES,
   ...PROOF_ROUTES,
   ...TEMPLATE_ROUTES,
+  ...BOARDS_ROUTES,
 ];

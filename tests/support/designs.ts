@@ -3,7 +3,7 @@
  * them, from the demo fixtures in fixtures/designs.
  */
 import { readFileSync } from 'node:fs';
-import { and, eq, like } from 'drizzle-orm';
+import { and, asc, eq, like } from 'drizzle-orm';
 import { toMm } from '~/lib/format/units.ts';
 import { db } from '~/lib/db/client.server.ts';
 import { designRevisions, designs } from '~/lib/db/schema.ts';
@@ -57,6 +57,8 @@ export async function ensureDesign(shopId: number, userId: string, text: string,
     .select({ id: designs.id })
     .from(designs)
     .where(and(eq(designs.shopId, shopId), like(designs.name, `%${text}%`)))
+    // The oldest match: the seeded one, not a copy another test made ("Copy of …").
+    .orderBy(asc(designs.id))
     .limit(1);
   return found?.id ?? insertDesign(shopId, userId, fixtureDesign(fixture));
 }

@@ -1,0 +1,49 @@
+/**
+ * The Boards API as the browser calls it. Every function resolves with the parsed JSON of a 2xx
+ * answer and rejects with a BoardRequestError carrying the status and the server's message.
+ */
+import type { BoardDetail, BoardList, BoardListQuery, BoardRevision } from '~/lib/schemas/board.ts';
+import { searchFromListQuery } from './board-url-state.ts';
+
+export class BoardRequestError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+    /** The whole error body (a 409 carries `currentVersion` and `current`). */
+    readonly body: Record<string, unknown>,
+  ) {
+    super(message);
+  }
+}
+
+async function send<T>(path: string, init: RequestInit = {}): Promise<T> {
+  const response = await fetch(path, { credentials: 'same-origin', ...init, headers: { accept: 'application/json', ...init.headers } });
+  const body = (await response.json().catch(() => ({}))) as Record<string, unknown>;
+  if (!response.ok) {
+    const message = typeof body.error === 'string' ? body.error : `The server answered ${response.status}`;
+    throw new BoardRequestError(response.status, message, body);
+  }
+  return body as T;
+}
+
+function post<T>(path: string, body: unknown, method = 'POST'): Promise<T> {
+  return send<T>(path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+}
+
+export const fetchBoards = (query: BoardListQuery) => send<BoardList>(`/api/designs${searchFromListQuery(query)}`);
+export const fetchRevisions = (id: number) => send<{ items: BoardRevision[] }>(`/api/designs/${id}/revisions`).then((r) => r.items);
+export const createBoard = (design: unknown, extra: { clientName?: string; instrumentType?: string } = {}) =>
+  post<BoardDetail>('/api/designs', { design, ...extra });
+export const saveBoard = (id: number, version: number, design: unknown, note = '') =>
+  post<BoardDetail>(`/api/designs/${id}`, { version, design, note }, 'PATCH');
+export const duplicateBoard = (id: number) => send<BoardDetail>(`/api/designs/${id}/duplicate`, { method: 'POST' });
+export const archiveBoard = (id: number, archived: boolean) => post<BoardDetail>(`/api/designs/${id}/archive`, { archived });
+export const restoreBoardRevision = (id: number, revision: number, version: number) =>
+  post<BoardDetail>(`/api/designs/${id}/restore`, { revision, version });
+
+/** Uploads a chosen JSON file as a new board. */
+export function importBoardFile(file: File): Promise<BoardDetail> {
+  const form = new FormData();
+  form.set('file', file);
+  return send<BoardDetail>('/api/designs/import', { method: 'POST', body: form });
+}

@@ -1,0 +1,62 @@
+/**
+ * The pieces every Boards API route shares: the role check, the board id from the URL, design
+ * validation with field paths, and one mapping from a write's outcome to a status code.
+ */
+import { CAN, requireRole, type Guarded, type SessionUser } from '~/lib/auth/index.server.ts';
+import type { WriteResult } from '~/lib/db/designs.server.ts';
+import { json, problem, type FieldIssue } from '~/lib/http/problem.ts';
+import type { BoardDetail } from '~/lib/schemas/board.ts';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
+
+/** Owners and builders use Boards; clients get 403, visitors 401. */
+export function requireBoardsUser(user: SessionUser | null): Guarded {
+  return requireRole(user, CAN.design);
+}
+
+const NOT_FOUND = 'No such board in your shop';
+
+export function boardNotFound(): Response {
+  return problem(404, NOT_FOUND);
+}
+
+/** The `[id]` route parameter as a board id, or null (answered as 404, like any unknown id). */
+export function boardId(param: string | undefined): number | null {
+  if (!param || !/^[1-9][0-9]{0,15}$/.test(param)) return null;
+  const id = Number(param);
+  return Number.isSafeInteger(id) ? id : null;
+}
+
+/** Validates a design, reporting issues under `prefix` (e.g. "design.scale.treble"; '' for none). */
+export function checkDesign(value: unknown, prefix: string): { ok: true; design: Design } | { ok: false; issues: FieldIssue[] } {
+  const result = validateDesign(value);
+  if (result.ok) return result;
+  return {
+    ok: false,
+    issues: result.issues.map((issue) => ({ path: withPrefix(prefix, issue.path), message: issue.message })),
+  };
+}
+
+function withPrefix(prefix: string, path: string): string {
+  if (!prefix) return path;
+  return path === 'design' ? prefix : `${prefix}.${path}`;
+}
+
+/** 409 body: the version and board as they are now, so the client keeps its edit and can compare. */
+export function conflict(current: BoardDetail): Response {
+  return problem(409, 'This board was changed by someone else since you opened it', {
+    currentVersion: current.version,
+    current,
+  });
+}
+
+export function writeResponse(result: WriteResult<BoardDetail>, status = 200): Response {
+  if (result.ok) return json(result.value, status);
+  switch (result.reason) {
+    case 'not_found':
+      return boardNotFound();
+    case 'conflict':
+      return conflict(result.current);
+    case 'no_such_revision':
+      return problem(404, 'This board has no such revision', { field: 'revision' });
+  }
+}

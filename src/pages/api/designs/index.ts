@@ -1,0 +1,31 @@
+import type { APIRoute } from 'astro';
+import { checkDesign, requireBoardsUser } from '~/lib/boards/board-responses.server.ts';
+import { createDesign, listDesigns } from '~/lib/db/designs.server.ts';
+import { readJson } from '~/lib/http/body.server.ts';
+import { invalid, json, zodIssues } from '~/lib/http/problem.ts';
+import { BOARD_FILE_MAX_BYTES, boardCreateSchema, boardListQuerySchema } from '~/lib/schemas/board.ts';
+
+export const prerender = false;
+
+/** GET /api/designs?q=&status=&instrument=&units=&sort=&dir=&page=&pageSize= : one page of boards. */
+export const GET: APIRoute = async ({ locals, url }) => {
+  const guard = requireBoardsUser(locals.user);
+  if (!guard.ok) return guard.response;
+  const query = boardListQuerySchema.safeParse(Object.fromEntries(url.searchParams));
+  if (!query.success) return invalid(zodIssues(query.error));
+  return json(await listDesigns(guard.user.shopId, query.data));
+};
+
+/** POST /api/designs {design, instrumentType?, clientName?, note?}: a new board at revision 1. */
+export const POST: APIRoute = async ({ locals, request }) => {
+  const guard = requireBoardsUser(locals.user);
+  if (!guard.ok) return guard.response;
+  const body = await readJson(request, BOARD_FILE_MAX_BYTES);
+  if (!body.ok) return body.response;
+  const input = boardCreateSchema.safeParse(body.value);
+  if (!input.success) return invalid(zodIssues(input.error));
+  const design = checkDesign(input.data.design, 'design');
+  if (!design.ok) return invalid(design.issues);
+  const created = await createDesign(guard.user, { ...input.data, design: design.design });
+  return json(created, 201, { location: `/api/designs/${created.id}` });
+};

@@ -1,0 +1,44 @@
+/** Boards: every /api/designs route, for each kind of visitor (the page is in site.ts). */
+import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import type { Actor, RouteCase } from './types.ts';
+
+/** A name of its own, so boards the matrix saves are not mistaken for the seeded ones. */
+const design = { ...DEMO_DESIGNS[0]!.design, name: 'Route matrix board' };
+
+/** Owners and builders of the board's shop get `ok`; another shop's owner gets `other`. */
+function writers(ok: number | readonly number[], other: number | readonly number[] = ok): Record<Actor, number | readonly number[]> {
+  return { anonymous: 401, client: 403, builder: ok, owner: ok, otherOwner: other };
+}
+
+export const BOARDS_ROUTES: readonly RouteCase[] = [
+  { file: 'pages/api/designs/index.ts', method: 'GET', path: '/api/designs?sort=scale&pageSize=10', expect: writers(200) },
+  { file: 'pages/api/designs/index.ts', method: 'POST', path: '/api/designs', body: { design }, expect: writers(201) },
+  { file: 'pages/api/designs/import.ts', method: 'POST', path: '/api/designs/import', body: design, expect: writers(201) },
+  { file: 'pages/api/designs/[id].ts', method: 'GET', path: (ids) => `/api/designs/${ids.designId}`, expect: writers(200, 404) },
+  {
+    file: 'pages/api/designs/[id].ts',
+    method: 'PATCH',
+    path: (ids) => `/api/designs/${ids.designId}`,
+    // The version may be stale by the time the matrix runs: 409 also proves the write was allowed.
+    body: { version: 1, clientName: 'Ines Calloway' },
+    expect: writers([200, 409], 404),
+  },
+  { file: 'pages/api/designs/[id]/duplicate.ts', method: 'POST', path: (ids) => `/api/designs/${ids.designId}/duplicate`, expect: writers(201, 404) },
+  { file: 'pages/api/designs/[id]/revisions.ts', method: 'GET', path: (ids) => `/api/designs/${ids.designId}/revisions`, expect: writers(200, 404) },
+  {
+    file: 'pages/api/designs/[id]/restore.ts',
+    method: 'POST',
+    path: (ids) => `/api/designs/${ids.designId}/restore`,
+    body: { revision: 1, version: 1 },
+    expect: writers([200, 409], 404),
+  },
+  {
+    file: 'pages/api/designs/[id]/archive.ts',
+    method: 'POST',
+    path: (ids) => `/api/designs/${ids.designId}/archive`,
+    body: { archived: false },
+    expect: writers(200, 404),
+  },
+  { file: 'pages/api/designs/[id]/export.ts', method: 'GET', path: (ids) => `/api/designs/${ids.designId}/export?format=csv`, expect: writers(200, 404) },
+  { file: 'pages/api/designs/[id]/thumbnail.svg.ts', method: 'GET', path: (ids) => `/api/designs/${ids.designId}/thumbnail.svg`, expect: writers(200, 404) },
+];
