@@ -3,6 +3,7 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
+import { pagePointOf, readScene } from '../support/konva-scene.ts';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -13,46 +14,6 @@ afterAll(() => browser?.close());
 /** |a - b| <= tol, in the unit the caller names. */
 function expectNear(actual: number, expected: number, tol: number) {
   expect(Math.abs(actual - expected), `${actual} vs ${expected} (tolerance ${tol})`).toBeLessThanOrEqual(tol);
-}
-
-interface Scene {
-  frets: { fret: number; points: number[] }[];
-  strings: { string: number; points: number[] }[];
-  centre: number[];
-  zoom: number;
-}
-
-/** Reads the drawing's named Konva nodes (board coordinates are kept in each line's points). */
-function readScene(page: Page): Promise<Scene> {
-  return page.evaluate(() => {
-    type Node = { getAttr(name: string): unknown; points(): number[] };
-    const konva = (window as unknown as { Konva: { stages: { find(selector: string): Node[] }[] } }).Konva;
-    const stage = konva.stages[0];
-    if (!stage) throw new Error('no Konva stage');
-    const view = stage.find('.board-view')[0];
-    return {
-      frets: stage.find('.fret-line').map((n) => ({ fret: Number(n.getAttr('fret')), points: n.points() })),
-      strings: stage.find('.string-line').map((n) => ({ string: Number(n.getAttr('string')), points: n.points() })),
-      centre: stage.find('.centre-line')[0]?.points() ?? [],
-      zoom: Number(view?.getAttr('scaleX')),
-    };
-  });
-}
-
-/** Page coordinates of a board point, through the drawing's own transform. */
-function pagePointOf(page: Page, x: number, y: number): Promise<{ x: number; y: number }> {
-  return page.evaluate(
-    ([bx, by]) => {
-      type View = { getAbsoluteTransform(): { point(p: { x: number; y: number }): { x: number; y: number } } };
-      const stage = (window as unknown as { Konva: { stages: { find(s: string): View[]; container(): HTMLElement }[] } }).Konva.stages[0];
-      const view = stage?.find('.board-view')[0];
-      if (!stage || !view) throw new Error('no drawing');
-      const onStage = view.getAbsoluteTransform().point({ x: bx, y: by });
-      const box = stage.container().getBoundingClientRect();
-      return { x: box.left + onStage.x, y: box.top + onStage.y };
-    },
-    [x, y] as const,
-  );
 }
 
 const length = (p: number[]) => Math.hypot((p[2] ?? 0) - (p[0] ?? 0), (p[3] ?? 0) - (p[1] ?? 0));

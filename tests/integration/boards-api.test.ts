@@ -14,7 +14,7 @@ import * as restoreRoute from '~/pages/api/designs/[id]/restore.ts';
 import * as revisionsRoute from '~/pages/api/designs/[id]/revisions.ts';
 import * as thumbnailRoute from '~/pages/api/designs/[id]/thumbnail.svg.ts';
 import * as importRoute from '~/pages/api/designs/import.ts';
-import { callRoute } from '../support/api-route.ts';
+import { callRoute } from '../support/route-call.ts';
 import { addShopUser, newShopUser, type TestUser } from '../support/sessions.ts';
 import { closeDb, db } from '../support/test-db.ts';
 

@@ -1,4 +1,4 @@
-/** Boards: every /api/designs route, for each kind of visitor (the page is in site.ts). */
+/** Boards: every /api/designs route, and a board opened in Layout, for each kind of visitor (the Boards page is in site.ts). */
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
 import type { Actor, RouteCase } from './types.ts';
 
@@ -11,6 +11,14 @@ function writers(ok: number | readonly number[], other: number | readonly number
 }
 
 export const BOARDS_ROUTES: readonly RouteCase[] = [
+  // Layout itself is public (site.ts); a saved board opens only for its shop's builders and owners.
+  {
+    file: 'pages/layout.astro',
+    method: 'GET',
+    path: (ids) => `/layout?design=${ids.designId}`,
+    expect: { anonymous: 302, client: 403, builder: 200, owner: 200, otherOwner: 404 },
+  },
+  { file: 'pages/layout.astro', method: 'GET', path: '/layout?design=not-a-board', expect: { anonymous: 302, client: 403, builder: 404, owner: 404, otherOwner: 404 } },
   { file: 'pages/api/designs/index.ts', method: 'GET', path: '/api/designs?sort=scale&pageSize=10', expect: writers(200) },
   { file: 'pages/api/designs/index.ts', method: 'POST', path: '/api/designs', body: { design }, expect: writers(201) },
   { file: 'pages/api/designs/import.ts', method: 'POST', path: '/api/designs/import', body: design, expect: writers(201) },

@@ -1,7 +1,8 @@
 /**
- * Calls an Astro API route module's handler directly with the context fields routes read
- * (locals.user, params, url, clientAddress). Middleware is not involved: the signed-in user is
- * given as it would have resolved it, and the same-origin check is middleware's (tested there).
+ * Calls an Astro API route module's handler directly, with the request and the context fields
+ * routes read (locals.user, params, url, clientAddress). Middleware is not involved: the
+ * signed-in user is given as it would have resolved it, and the same-origin check is
+ * middleware's (tested there).
  */
 import type { APIContext, APIRoute } from 'astro';
 import type { SessionUser } from '~/lib/auth/index.server.ts';
@@ -11,24 +12,41 @@ export const TEST_ORIGIN = 'http://127.0.0.1:4321';
 
 export interface RouteCall {
   method?: string;
+  /** Path and query, e.g. '/api/designs?q=x'. */
   path: string;
-  user?: TestUser | null;
+  /** The signed-in user; null or left out for a visitor. */
+  user?: TestUser | SessionUser | null;
   params?: Record<string, string>;
-  /** JSON-encoded unless it is already a string. */
+  /** JSON-encoded (with a JSON Content-Type) unless it is already a string, FormData or bytes. */
   body?: unknown;
+  headers?: Record<string, string>;
   /** The visitor's address (rate limits count per address). */
   clientAddress?: string;
 }
 
-function sessionUser(user: TestUser): SessionUser {
-  return { id: user.id, shopId: user.shopId, email: user.email, role: user.role, displayName: `Test ${user.role}`, preferredUnits: 'mm' };
+export function sessionUser(user: TestUser | SessionUser): SessionUser {
+  return {
+    id: user.id,
+    shopId: user.shopId,
+    email: user.email,
+    role: user.role,
+    displayName: 'displayName' in user ? user.displayName : `Test ${user.role}`,
+    preferredUnits: 'preferredUnits' in user ? user.preferredUnits : 'mm',
+  };
 }
 
-export function callRoute(route: APIRoute | undefined, call: RouteCall): Promise<Response> {
+export async function callRoute(route: APIRoute | undefined, call: RouteCall): Promise<Response> {
   if (!route) throw new Error(`route module has no handler for ${call.method ?? 'GET'} ${call.path}`);
   const url = new URL(call.path, TEST_ORIGIN);
-  const body = call.body === undefined ? null : typeof call.body === 'string' ? call.body : JSON.stringify(call.body);
-  const headers = body === null ? {} : { 'content-type': 'application/json' };
+  const headers = new Headers(call.headers);
+  let body: BodyInit | null = null;
+  if (call.body instanceof FormData || typeof call.body === 'string' || call.body instanceof Uint8Array) {
+    body = call.body as BodyInit;
+    if (typeof call.body === 'string' && !headers.has('content-type')) headers.set('content-type', 'application/json');
+  } else if (call.body !== undefined) {
+    body = JSON.stringify(call.body);
+    if (!headers.has('content-type')) headers.set('content-type', 'application/json');
+  }
   const request = new Request(url, { method: call.method ?? 'GET', headers, body });
   const context = {
     request,
@@ -37,5 +55,5 @@ export function callRoute(route: APIRoute | undefined, call: RouteCall): Promise
     clientAddress: call.clientAddress ?? '192.0.2.1',
     locals: { user: call.user ? sessionUser(call.user) : null, sessionId: null },
   } as unknown as APIContext;
-  return Promise.resolve(route(context));
+  return route(context);
 }

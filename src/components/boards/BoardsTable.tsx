@@ -12,6 +12,13 @@ interface Props {
 }
 
 const column = createColumnHelper<BoardSummary>();
+const STATUS_TONES: Readonly<Record<BoardSummary['status'], string>> = {
+  draft: 'border-paper-line bg-white text-ink',
+  shared: 'border-paper-line bg-paper-shade text-ink',
+  approved: 'border-spruce bg-spruce-light text-spruce-dark',
+  changes_requested: 'border-caution bg-caution-light text-caution',
+  archived: 'border-paper-line bg-paper-shade text-ink-soft',
+};
 const button = 'rounded border border-paper-line bg-white px-2 py-0.5 text-sm hover:bg-paper-shade disabled:opacity-50';
 
 function RowActions({ board, onHistory }: { board: BoardSummary; onHistory: () => void }) {
@@ -73,7 +80,18 @@ export function BoardsTable({ query, onChange }: Props) {
         header: () => <SortHeader label="Scale length" sort="scale" query={query} onChange={onChange} />,
         cell: ({ row: { original: b } }) => <span className="font-mono">{scaleText(b)}</span>,
       }),
-      column.accessor('status', { header: 'Status', cell: (c) => STATUS_LABELS[c.getValue()] }),
+      column.accessor('status', {
+        header: 'Status',
+        // In words (never by colour alone); a proof's answer shows here as soon as the client gives it.
+        cell: ({ row: { original: b } }) => (
+          <span className="flex flex-col items-start gap-0.5">
+            <span data-label="status" data-status={b.status} className={`rounded border px-1.5 py-0.5 text-xs ${STATUS_TONES[b.status]}`}>{STATUS_LABELS[b.status]}</span>
+            {b.status !== 'draft' && b.status !== 'archived' && (
+              <a className="text-xs" href={`/boards/${b.id}/proofs`} aria-label={`Proofs of ${b.name}`}>Proofs</a>
+            )}
+          </span>
+        ),
+      }),
       column.accessor('updatedAt', {
         header: () => <SortHeader label="Last changed" sort="updated" query={query} onChange={onChange} />,
         cell: (c) => <time dateTime={c.getValue()}>{new Date(c.getValue()).toLocaleString()}</time>,

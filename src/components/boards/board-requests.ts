@@ -31,6 +31,7 @@ function post<T>(path: string, body: unknown, method = 'POST'): Promise<T> {
 }
 
 export const fetchBoards = (query: BoardListQuery) => send<BoardList>(`/api/designs${searchFromListQuery(query)}`);
+export const fetchBoard = (id: number) => send<BoardDetail>(`/api/designs/${id}`);
 export const fetchRevisions = (id: number) => send<{ items: BoardRevision[] }>(`/api/designs/${id}/revisions`).then((r) => r.items);
 export const createBoard = (design: unknown, extra: { clientName?: string; instrumentType?: string } = {}) =>
   post<BoardDetail>('/api/designs', { design, ...extra });

@@ -2,38 +2,50 @@
  * Autosave for a board open in the editor: debounced saves of the current design over the
  * version last seen, a visible status, conflict handling that keeps the user's edit, and a
  * prompt before leaving the page with unsaved work. The editor owns the design; this hook only
- * watches it and saves it.
+ * watches it and saves it through the editor's board store (design-store.ts).
  */
 import { useCallback, useEffect, useReducer, useRef } from 'react';
+import type { DesignStore } from '~/components/editor/design-store.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
+import type { Design } from '~/lib/schemas/design.ts';
 import { autosaveReducer, hasUnsavedWork, initialAutosave, type AutosaveState } from './autosave-state.ts';
-import { BoardRequestError, createBoard, saveBoard } from './board-requests.ts';
+import { createBoard } from './board-requests.ts';
 
 export interface BoardAutosaveOptions {
-  boardId: number;
+  /** The open board's store; null while the design is not a board (then the hook does nothing). */
+  store: DesignStore | null;
+  /** The open board; another id (a board just saved or copied) starts again from `version`. */
+  boardId: number | null;
   /** The board version the editor loaded. */
   version: number;
-  /** The design as the editor has it now (any JSON; the server validates it). */
-  design: unknown;
+  /** The design as the editor has it now. */
+  design: Design;
+  /** Told after every save the server acknowledged (new version, revision and status). */
+  onSaved?: (board: BoardDetail) => void;
   debounceMs?: number;
 }
 
 export interface BoardAutosave {
   state: AutosaveState;
-  /** Saves at once (e.g. Ctrl+S), skipping the debounce. */
+  /** Saves at once (e.g. a retry after a failure), skipping the debounce. */
   saveNow: () => void;
-  /** After a conflict: take the server's board; returns its design for the editor to show. */
-  reload: () => unknown;
+  /**
+   * The editor now shows `shown`, the design of `board` as saved (after a restore, or taking the
+   * server's board after a conflict): nothing is unsaved, and the next save names its version.
+   */
+  adopt: (board: BoardDetail, shown: Design) => void;
   /** After a conflict: keep the user's design as a new board; the editor then opens that one. */
   saveAsCopy: () => Promise<BoardDetail>;
 }
 
-export function useBoardAutosave({ boardId, version, design, debounceMs = 800 }: BoardAutosaveOptions): BoardAutosave {
+export function useBoardAutosave({ store, boardId, version, design, onSaved, debounceMs = 800 }: BoardAutosaveOptions): BoardAutosave {
   const [state, dispatch] = useReducer(autosaveReducer, version, initialAutosave);
   const latest = useRef(design);
   const seen = useRef(JSON.stringify(design));
   const stateRef = useRef(state);
   stateRef.current = state;
+  const savedRef = useRef(onSaved);
+  savedRef.current = onSaved;
 
   useEffect(() => dispatch({ type: 'resolved', version }), [boardId, version]);
 
@@ -42,24 +54,23 @@ export function useBoardAutosave({ boardId, version, design, debounceMs = 800 }:
     const text = JSON.stringify(design);
     if (text === seen.current) return;
     seen.current = text;
-    dispatch({ type: 'edit' });
-  }, [design]);
+    if (store) dispatch({ type: 'edit' });
+  }, [design, store]);
 
   const save = useCallback(async () => {
     const current = stateRef.current;
-    if (current.status === 'saving' || current.status === 'conflict') return;
+    if (!store || current.status === 'saving' || current.status === 'conflict') return;
     dispatch({ type: 'start' });
-    try {
-      const saved = await saveBoard(boardId, current.version, latest.current);
-      dispatch({ type: 'succeeded', version: saved.version });
-    } catch (error) {
-      if (error instanceof BoardRequestError && error.status === 409) {
-        dispatch({ type: 'conflict', currentVersion: Number(error.body.currentVersion), current: error.body.current });
-      } else {
-        dispatch({ type: 'failed', message: error instanceof Error ? error.message : 'The save failed' });
-      }
+    const result = await store.save(latest.current, current.version);
+    if (result.state === 'saved' && result.board) {
+      dispatch({ type: 'succeeded', version: result.board.version });
+      savedRef.current?.(result.board);
+    } else if (result.state === 'conflict') {
+      dispatch({ type: 'conflict', currentVersion: result.current.version, current: result.current });
+    } else {
+      dispatch({ type: 'failed', message: result.state === 'error' ? result.message : 'The save failed' });
     }
-  }, [boardId]);
+  }, [store]);
 
   useEffect(() => {
     if (state.status !== 'unsaved') return;
@@ -78,13 +89,10 @@ export function useBoardAutosave({ boardId, version, design, debounceMs = 800 }:
     return () => window.removeEventListener('beforeunload', ask);
   }, [state]);
 
-  const reload = useCallback(() => {
-    const conflict = stateRef.current.conflict;
-    if (!conflict) return latest.current;
-    const board = conflict.current as BoardDetail;
-    seen.current = JSON.stringify(board.design);
-    dispatch({ type: 'resolved', version: conflict.currentVersion });
-    return board.design;
+  const adopt = useCallback((board: BoardDetail, shown: Design) => {
+    latest.current = shown;
+    seen.current = JSON.stringify(shown);
+    dispatch({ type: 'resolved', version: board.version });
   }, []);
 
   const saveAsCopy = useCallback(async () => {
@@ -93,5 +101,5 @@ export function useBoardAutosave({ boardId, version, design, debounceMs = 800 }:
     return copy;
   }, []);
 
-  return { state, saveNow: () => void save(), reload, saveAsCopy };
+  return { state, saveNow: () => void save(), adopt, saveAsCopy };
 }

@@ -1,21 +1,32 @@
 /**
  * The Layout screen's island: parameter form beside a live drawing, readouts, fret table and the
  * server cross-check. In 'view' mode (e.g. a client's Proof) the form is left out: the drawing,
- * navigation, readouts and fret table stay.
+ * navigation, readouts and fret table stay, and nothing is kept or sent but the public layout check.
+ *
+ * A scratch design is kept in this browser; a signed-in builder or owner can save it to Boards.
+ * A board (opened from Boards, or just saved) autosaves through useBoardAutosave, and gets the
+ * History (compare, restore) and Proofs tabs.
  *
  * The preview is computed here with the shared geometry module at every change; POST /api/layout
  * checks it (see use-server-check.ts) and wins if it ever disagrees.
  */
-import { Suspense, lazy, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
+import { Suspense, lazy, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { STATUS_LABELS } from '~/components/boards/board-labels';
+import { ConflictNotice } from '~/components/boards/ConflictNotice';
+import { RevisionHistory } from '~/components/boards/RevisionHistory';
+import { SaveStatusBadge } from '~/components/boards/SaveStatusBadge';
+import { SaveToBoardsButton } from '~/components/boards/SaveToBoardsButton';
+import { useBoardAutosave } from '~/components/boards/useBoardAutosave';
 import { computeLayout, type Layout } from '~/lib/geometry/layout';
 import { blankDesign } from '~/lib/presets/blank-design';
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
-import type { Design } from '~/lib/schemas/design';
+import type { BoardDetail, BoardSummary } from '~/lib/schemas/board';
+import { validateDesign, type Design } from '~/lib/schemas/design';
 import { BoardDrawing } from './BoardDrawing';
 import { describeBoard } from './board-summary';
 import { CalibrationPanel } from './CalibrationPanel';
 import { BUTTON } from './control-styles';
-import { createDesignStore, type DesignStorage, type SaveStatus } from './design-store';
+import { createDesignStore, type SaveStatus } from './design-store';
 import { draftFromDesign, validateDraft, type DesignDraft } from './design-draft';
 import { DesignForm, type PresetChoice } from './DesignForm';
 import { FretReadout } from './FretReadout';
@@ -29,12 +40,29 @@ export interface LayoutEditorProps {
   mode?: 'edit' | 'view';
   /** The design to open; without it the editor opens the kept design, or the blank preset. */
   initialDesign?: Design | undefined;
-  /** Where the design is kept in edit mode; the scratch design in this browser by default. */
-  storage?: DesignStorage;
+  /**
+   * The saved board `initialDesign` is the current revision of (edit mode): the design is kept in
+   * Boards and autosaved. Without it the design is a scratch copy in this browser.
+   */
+  board?: OpenBoard | undefined;
+  /** A signed-in builder or owner: a scratch design can be saved to Boards. */
+  canSaveToBoards?: boolean;
+  /** Inside a page with its own title (e.g. a Proof): the toolbar leaves the design name out. */
+  embedded?: boolean;
 }
 
-// Loaded when the Exports tab first opens, so the drawing's own script stays small.
+/** What the editor shows of an open board beside its design. */
+export type OpenBoard = Pick<BoardSummary, 'id' | 'name' | 'status' | 'version' | 'currentRevision'>;
+
+function openBoard(board: BoardSummary): OpenBoard {
+  return { id: board.id, name: board.name, status: board.status, version: board.version, currentRevision: board.currentRevision };
+}
+
+// Loaded when their tab first opens, so the drawing's own script stays small.
 const ExportPanel = lazy(() => import('~/components/export/ExportPanel'));
+const ProofPanel = lazy(() => import('~/components/proof/ProofPanel'));
+
+type Tab = 'table' | 'exports' | 'history' | 'proofs';
 
 const BLANK_PRESET_ID = 'blank';
 const PRESETS: readonly PresetChoice[] = [
@@ -49,9 +77,21 @@ function presetDesign(id: string): Design {
   return DEMO_DESIGNS.find((demo) => demo.id === id)?.design ?? blankDesign();
 }
 
-export default function LayoutEditor({ mode = 'edit', initialDesign, storage = { kind: 'scratch' } }: LayoutEditorProps) {
+/** A saved design as the form will show it, or null when it no longer validates. */
+function showSaved(data: unknown): { draft: DesignDraft; design: Design } | null {
+  const saved = validateDesign(data);
+  if (!saved.ok) return null;
+  const draft = draftFromDesign(saved.design);
+  const shown = validateDraft(draft);
+  return shown.ok ? { draft, design: shown.design } : null;
+}
+
+export default function LayoutEditor({ mode = 'edit', initialDesign, board: initialBoard, canSaveToBoards = false, embedded = false }: LayoutEditorProps) {
   const editing = mode === 'edit';
-  const store = useMemo(() => createDesignStore(storage), [storage.kind]);
+  const [board, setBoard] = useState<OpenBoard | null>(editing ? initialBoard ?? null : null);
+  // The board the autosave started from; changes only when another board is opened (saved, copied).
+  const [opened, setOpened] = useState(() => (board ? { id: board.id, version: board.version } : null));
+  const store = useMemo(() => createDesignStore(opened ? { kind: 'board', boardId: opened.id } : { kind: 'scratch' }), [opened]);
   const [draft, setDraft] = useState<DesignDraft>(() => draftFromDesign(initialDesign ?? blankDesign()));
   const [loaded, setLoaded] = useState(initialDesign !== undefined || !editing);
   const [fitRequest, setFitRequest] = useState(0);
@@ -60,7 +100,7 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
   const [pickedFret, setPickedFret] = useState<number | null>(null);
   const [screen, setScreen] = useState(() => loadScreenPxPerMm(globalThis.localStorage));
   const [calibrating, setCalibrating] = useState(false);
-  const [tab, setTab] = useState<'table' | 'exports'>('table');
+  const [tab, setTab] = useState<Tab>('table');
 
   const validation = useMemo(() => {
     redrawStarted();
@@ -94,14 +134,39 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
     };
   }, [loaded, store]);
 
+  const autosave = useBoardAutosave({
+    store: opened ? store : null,
+    boardId: opened?.id ?? null,
+    version: opened?.version ?? 1,
+    design,
+    onSaved: useCallback((saved: BoardSummary) => setBoard(openBoard(saved)), []),
+  });
+
+  /** Shows a board as saved (just opened, restored, or taken after a conflict). */
+  const showBoard = (saved: BoardDetail) => {
+    const shown = showSaved(saved.design);
+    if (!shown) return;
+    autosave.adopt(saved, shown.design);
+    setDraft(shown.draft);
+    setBoard(openBoard(saved));
+  };
+
+  /** The editor now keeps `saved` (a scratch design just saved, or a copy after a conflict). */
+  const switchToBoard = (saved: BoardDetail) => {
+    setBoard(openBoard(saved));
+    setOpened({ id: saved.id, version: saved.version });
+    window.history.replaceState(null, '', `/layout?design=${saved.id}`);
+  };
+
   useEffect(() => {
-    if (!editing || !loaded || !validation.ok) return;
+    // A board autosaves through useBoardAutosave; only the scratch copy is kept here.
+    if (!editing || !loaded || !validation.ok || opened) return;
     const timer = setTimeout(() => {
       setSaveStatus({ state: 'saving' });
       store.save(design).then(setSaveStatus);
     }, SAVE_DELAY_MS);
     return () => clearTimeout(timer);
-  }, [editing, loaded, design, validation.ok, store]);
+  }, [editing, loaded, design, validation.ok, store, opened]);
 
   const startFrom = (presetId: string) => {
     setDraft(draftFromDesign(presetId === BLANK_PRESET_ID ? blankDesign() : presetDesign(presetId)));
@@ -125,13 +190,34 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
   return (
     <div className="space-y-3">
       <div role="toolbar" aria-label="Layout tools" className="flex flex-wrap items-center gap-x-4 gap-y-2 rounded border border-paper-line bg-white px-3 py-2 text-sm">
-        <h1 className="mr-auto text-lg font-bold">{editing ? 'Layout' : design.name}</h1>
+        {embedded ? <span className="mr-auto" /> : <h1 className="mr-auto text-lg font-bold">{editing ? 'Layout' : design.name}</h1>}
         <ServerCheckStatus check={serverCheck} />
         {editing && (
-          // Saving to the shop's Boards puts its status and save button in this area.
-          <div aria-label="Where this design is kept" role="group" className="flex items-center gap-2 text-xs">
+          <div aria-label="Where this design is kept" role="group" className="flex flex-wrap items-center gap-2 text-xs">
             <span>{store.place}</span>
-            <span role="status" className="text-ink-soft">{describeSave(saveStatus)}</span>
+            {board ? (
+              <>
+                <SaveStatusBadge state={autosave.state} />
+                {autosave.state.status === 'error' && (
+                  <button type="button" className={BUTTON} onClick={autosave.saveNow}>Try saving again</button>
+                )}
+                <span>
+                  Revision <span className="font-mono">{board.currentRevision}</span> · Status:{' '}
+                  <strong data-board-status={board.status}>{STATUS_LABELS[board.status]}</strong>
+                </span>
+              </>
+            ) : (
+              <>
+                <span role="status" className="text-ink-soft">{describeSave(saveStatus)}</span>
+                {canSaveToBoards ? (
+                  <SaveToBoardsButton design={design} onSaved={switchToBoard} />
+                ) : (
+                  <span className="text-ink-soft">
+                    <a href={`/sign-in?next=${encodeURIComponent('/layout')}`}>Sign in</a> as a builder or owner to save it to Boards.
+                  </span>
+                )}
+              </>
+            )}
           </div>
         )}
         <button type="button" className={BUTTON} aria-expanded={calibrating} onClick={() => setCalibrating(!calibrating)}>
@@ -149,6 +235,18 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
             saveScreenPxPerMm(globalThis.localStorage, pxPerMm);
             setScreen({ pxPerMm, calibrated: true });
           }}
+        />
+      )}
+
+      {board && (
+        <ConflictNotice
+          state={autosave.state}
+          mine={design}
+          onReload={() => {
+            const theirs = autosave.state.conflict?.current as BoardDetail | undefined;
+            if (theirs) showBoard(theirs);
+          }}
+          onSaveAsCopy={() => void autosave.saveAsCopy().then(switchToBoard)}
         />
       )}
 
@@ -174,10 +272,18 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
             <div role="tablist" aria-label="Board outputs" className="flex gap-1 border-b border-paper-line">
               <TabButton id="table" selected={tab === 'table'} onSelect={() => setTab('table')}>Fret table</TabButton>
               {editing && <TabButton id="exports" selected={tab === 'exports'} onSelect={() => setTab('exports')}>Exports</TabButton>}
+              {board && <TabButton id="history" selected={tab === 'history'} onSelect={() => setTab('history')}>History</TabButton>}
+              {board && <TabButton id="proofs" selected={tab === 'proofs'} onSelect={() => setTab('proofs')}>Proofs</TabButton>}
             </div>
             <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`}>
               {tab === 'table' || !editing ? (
                 <FretTablePanel layout={settledLayout} design={settledDesign} />
+              ) : tab === 'history' && board ? (
+                <RevisionHistory boardId={board.id} version={autosave.state.version} currentRevision={board.currentRevision} onRestored={showBoard} />
+              ) : tab === 'proofs' && board ? (
+                <Suspense fallback={<p className="text-sm" role="status">Loading the proofs…</p>}>
+                  <ProofPanel designId={board.id} />
+                </Suspense>
               ) : (
                 <div className="space-y-2">
                   {!validation.ok && (
@@ -198,7 +304,7 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, storage = {
   );
 }
 
-function TabButton({ id, selected, onSelect, children }: { id: string; selected: boolean; onSelect: () => void; children: string }) {
+function TabButton({ id, selected, onSelect, children }: { id: Tab; selected: boolean; onSelect: () => void; children: ReactNode }) {
   return (
     <button
       type="button"
@@ -239,5 +345,7 @@ function describeSave(status: SaveStatus): string {
       return `kept at ${status.at.toLocaleTimeString()}`;
     case 'error':
       return `not kept: ${status.message}`;
+    case 'conflict':
+      return 'changed elsewhere';
   }
 }

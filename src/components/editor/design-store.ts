@@ -1,17 +1,24 @@
 /**
  * Where the editor keeps its design. The Layout screen works without an account: the design is a
- * scratch copy in this browser's local storage. Saving to the shop's Boards adds another kind of
- * storage here (e.g. `{ kind: 'board', designId }`) with its own DesignStore; the editor only
- * talks to this interface and shows `place` and the last save's status in its toolbar.
+ * scratch copy in this browser's local storage. A design saved to the shop's Boards is kept on
+ * the server through the Boards API, over the board version the editor last saw, so a save never
+ * silently overwrites someone else's (a stale version comes back as a conflict). The editor only
+ * talks to this interface; for a board, useBoardAutosave (src/components/boards) decides when to
+ * save and keeps the version.
  */
+import { BoardRequestError, fetchBoard, saveBoard } from '~/components/boards/board-requests';
+import type { BoardDetail } from '~/lib/schemas/board';
 import { validateDesign, type Design } from '~/lib/schemas/design';
 
-export type DesignStorage = { kind: 'scratch' };
+export type DesignStorage = { kind: 'scratch' } | { kind: 'board'; boardId: number };
 
 export type SaveStatus =
   | { state: 'idle' }
   | { state: 'saving' }
-  | { state: 'saved'; at: Date }
+  /** `board`: the saved board as the server now has it (boards only). */
+  | { state: 'saved'; at: Date; board?: BoardDetail }
+  /** The board was saved elsewhere since `version`: the server's board, to compare and reload. */
+  | { state: 'conflict'; current: BoardDetail }
   | { state: 'error'; message: string };
 
 export interface DesignStore {
@@ -19,8 +26,11 @@ export interface DesignStore {
   readonly place: string;
   /** The kept design, or null when there is none (or it no longer validates). */
   load(): Promise<Design | null>;
-  /** Keeps a valid design; never throws, failures come back as an error status. */
-  save(design: Design): Promise<SaveStatus>;
+  /**
+   * Keeps a valid design; never throws, failures come back as an error status. `version` is the
+   * board version last seen (boards need it; the scratch copy ignores it).
+   */
+  save(design: Design, version?: number): Promise<SaveStatus>;
 }
 
 export const SCRATCH_STORAGE_KEY = 'kerfline.scratchDesign';
@@ -29,6 +39,8 @@ export function createDesignStore(storage: DesignStorage): DesignStore {
   switch (storage.kind) {
     case 'scratch':
       return scratchStore(globalThis.localStorage);
+    case 'board':
+      return boardStore(storage.boardId);
   }
 }
 
@@ -53,6 +65,37 @@ export function scratchStore(storage: Pick<Storage, 'getItem' | 'setItem'> | und
         return { state: 'saved', at: new Date() };
       } catch (error) {
         return { state: 'error', message: `could not keep the design in this browser (${String(error)})` };
+      }
+    },
+  };
+}
+
+/** The Boards API calls a board store makes (the real ones by default; tests pass fakes). */
+export interface BoardRequests {
+  fetchBoard: (id: number) => Promise<BoardDetail>;
+  saveBoard: (id: number, version: number, design: unknown) => Promise<BoardDetail>;
+}
+
+/** A board saved in the shop's Boards: its current revision, saved over the version last seen. */
+export function boardStore(boardId: number, requests: BoardRequests = { fetchBoard, saveBoard }): DesignStore {
+  return {
+    place: 'Saved in Boards',
+    async load() {
+      try {
+        const validation = validateDesign((await requests.fetchBoard(boardId)).design);
+        return validation.ok ? validation.design : null;
+      } catch {
+        return null;
+      }
+    },
+    async save(design, version) {
+      if (version === undefined) return { state: 'error', message: 'the board version is not known; reload the page' };
+      try {
+        return { state: 'saved', at: new Date(), board: await requests.saveBoard(boardId, version, design) };
+      } catch (error) {
+        if (error instanceof BoardRequestError && error.status === 409) return { state: 'conflict', current: error.body.current as BoardDetail };
+        if (error instanceof BoardRequestError) return { state: 'error', message: error.message };
+        return { state: 'error', message: 'the server could not be reached; your edit is kept here' };
       }
     },
   };

@@ -1,5 +1,6 @@
 /**
- * Saved designs (Boards) and their revisions. Every query is scoped by shop: a design of another
+ * Saved designs (Boards) and their revisions: the one module that reads and writes them (Boards,
+ * the editor's page and proofs all come here). Every query is scoped by shop: a design of another
  * shop is simply not found. Every write runs in one transaction, so a failure half-way leaves the
  * previous revision and the head row as they were. Revision rows are only ever inserted.
  */
@@ -15,9 +16,9 @@ import {
   type BoardSummary,
   type InstrumentType,
 } from '~/lib/schemas/board.ts';
-import { DESIGN_LIMITS, type Design } from '~/lib/schemas/design.ts';
+import { DESIGN_LIMITS, validateDesign, type Design } from '~/lib/schemas/design.ts';
 import { db, type Db } from './client.server.ts';
-import { designRevisions, designs, users } from './schema.ts';
+import { designRevisions, designs, users, type DesignStatus } from './schema.ts';
 
 /** Who writes: the signed-in user's id and shop. */
 export interface Writer {
@@ -32,6 +33,8 @@ export type WriteResult<T> =
   | { ok: false; reason: 'no_such_revision' };
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+/** The pool, or an open transaction of another module (proofs write their own rows beside these). */
+export type DesignReader = Db | Tx;
 type Head = typeof designs.$inferSelect;
 
 const summaryColumns = {
@@ -69,8 +72,8 @@ function toSummary(row: SummaryRow): BoardSummary {
   };
 }
 
-/** MariaDB stores JSON as text, so the driver may hand back a string. */
-function storedJson(value: unknown): unknown {
+/** A revision's stored JSON as a value: MariaDB stores JSON as text, so the driver may hand back a string. */
+export function storedJson(value: unknown): unknown {
   return typeof value === 'string' ? (JSON.parse(value) as unknown) : value;
 }
 
@@ -340,4 +343,46 @@ export async function listRevisions(shopId: number, id: number): Promise<BoardRe
     createdAt: row.createdAt.toISOString(),
     design: storedJson(row.data),
   }));
+}
+
+/** The few head-row fields another module needs to point at a design (e.g. a proof of its current revision). */
+export interface DesignHead {
+  id: number;
+  shopId: number;
+  name: string;
+  currentRevision: number;
+}
+
+/** The design's head row, or null when it is not in this shop. */
+export async function findShopDesign(reader: DesignReader, shopId: number, designId: number): Promise<DesignHead | null> {
+  const [row] = await reader
+    .select({ id: designs.id, shopId: designs.shopId, name: designs.name, currentRevision: designs.currentRevision })
+    .from(designs)
+    .where(and(eq(designs.id, designId), eq(designs.shopId, shopId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/**
+ * One revision's design, validated (defaults filled); null when missing or no longer valid. The
+ * caller has already scoped `designId` to a shop (a proof row, or findShopDesign).
+ */
+export async function findRevisionDesign(reader: DesignReader, designId: number, revision: number): Promise<Design | null> {
+  const [row] = await reader
+    .select({ data: designRevisions.data })
+    .from(designRevisions)
+    .where(and(eq(designRevisions.designId, designId), eq(designRevisions.revision, revision)))
+    .limit(1);
+  if (!row) return null;
+  const validation = validateDesign(storedJson(row.data));
+  return validation.ok ? validation.design : null;
+}
+
+/**
+ * Sets the design's status (a proof was sent, approved or answered with changes). The
+ * optimistic-concurrency version is left alone on purpose: a client's answer is not an edit, and
+ * must not turn the builder's next save into a conflict.
+ */
+export async function setDesignStatus(writer: DesignReader, shopId: number, designId: number, status: DesignStatus): Promise<void> {
+  await writer.update(designs).set({ status }).where(and(eq(designs.id, designId), eq(designs.shopId, shopId)));
 }

@@ -18,7 +18,7 @@ import type {
   SharedProof,
 } from '~/lib/schemas/proof.ts';
 import { db } from './client.server.ts';
-import { findRevisionDesign, findShopDesign, setDesignStatus } from './proof-design.server.ts';
+import { findRevisionDesign, findShopDesign, setDesignStatus, storedJson } from './designs.server.ts';
 import { designRevisions, designs, proofs, shops, users } from './schema.ts';
 import { mailBuilderDecision, mailClientProof } from '~/lib/mail/proof-mails.server.ts';
 
@@ -223,9 +223,9 @@ export async function listDesignProofs(shopId: number, designId: number, now: Da
   return rows.map((row) => toSummary(row, now));
 }
 
-/** MariaDB stores JSON as text, so the driver may hand back a string. */
+/** The design name a stored revision carries. */
 function revisionName(data: unknown): string {
-  const value = typeof data === 'string' ? (JSON.parse(data) as unknown) : data;
+  const value = storedJson(data);
   const name = (value as { name?: unknown } | null)?.name;
   return typeof name === 'string' ? name : '';
 }

@@ -1,0 +1,179 @@
+/**
+ * The Layout editor and Boards together, in Chromium on the built server: a builder saves a
+ * scratch design to Boards, finds it, edits it (autosave, a new revision), restores the first
+ * revision from the editor's history and archives it; a save that lost a race keeps the edit.
+ */
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
+import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import type { BoardDetail } from '~/lib/schemas/board.ts';
+import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
+import { readScene } from '../support/konva-scene.ts';
+import { signInAs, type TestUser } from '../support/sessions.ts';
+import { closeDb } from '../support/test-db.ts';
+
+let browser: Browser;
+let builder: TestUser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+  builder = await signInAs('builder@wrenfield.example');
+});
+afterAll(async () => {
+  await browser?.close();
+  await closeDb();
+});
+
+async function api<T>(path: string, method = 'GET', body?: unknown): Promise<T> {
+  const response = await fetch(`${BASE_URL}${path}`, {
+    method,
+    headers: { cookie: builder.cookie, origin: BASE_URL, 'content-type': 'application/json' },
+    body: body === undefined ? null : JSON.stringify(body),
+  });
+  expect(response.ok, `${method} ${path} answered ${response.status}`).toBe(true);
+  return (await response.json()) as T;
+}
+
+async function signedInContext(user: TestUser): Promise<BrowserContext> {
+  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+  await context.addCookies([{ name: SESSION_COOKIE, value: user.token, url: BASE_URL }]);
+  return context;
+}
+
+const savedBadge = (page: Page) => page.getByRole('status').filter({ hasText: /^Saved$/ });
+const keptGroup = (page: Page) => page.getByRole('group', { name: 'Where this design is kept' });
+
+function boardIdIn(url: string): number {
+  return Number(new URL(url).searchParams.get('design'));
+}
+
+describe('Layout editor and Boards in Chromium (built server)', () => {
+  it('saves the fanned 7-string to Boards, finds it, autosaves an edit, restores revision 1 from the history and archives it', async () => {
+    const name = `Fanned seven ${Date.now()}`;
+    const context = await signedInContext(builder);
+    const page = await context.newPage();
+    await page.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
+
+    // The fanned 7-string 648/686 mm, perpendicular at fret 8, from the blank preset by typing.
+    await page.getByLabel('Preset').selectOption({ label: 'Blank design' });
+    await page.getByRole('button', { name: 'Start', exact: true }).click();
+    await page.getByLabel('Design name').fill(name);
+    await page.getByLabel('Strings', { exact: true }).fill('7');
+    await page.getByLabel(/^Treble scale length/).fill('648');
+    await page.getByLabel(/^Bass scale length/).fill('686');
+    await page.getByLabel(/^Perpendicular fret/).fill('8');
+    await page.getByLabel('Frets', { exact: true }).fill('24');
+    await page.getByLabel(/^String spacing at the nut/).fill('41');
+    await page.getByLabel(/^String spacing at the bridge/).fill('63');
+    await page.getByText('Server check: the preview matches').waitFor();
+    expect((await readScene(page)).frets.length).toBe(24);
+
+    await page.getByRole('button', { name: 'Save to Boards' }).click();
+    await page.waitForURL(/\/layout\?design=\d+$/);
+    const id = boardIdIn(page.url());
+    await savedBadge(page).waitFor();
+    const first = await api<BoardDetail>(`/api/designs/${id}`);
+    expect(first).toMatchObject({ name, currentRevision: 1, status: 'draft', design: { strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8, frets: 24 } });
+
+    // Found in Boards by search, and opened from there.
+    await page.goto(`${BASE_URL}/boards`);
+    await page.getByLabel('Search name or client').fill(name);
+    await page.waitForFunction((n) => new URL(location.href).searchParams.get('q') === n, name);
+    const row = page.getByRole('row').filter({ has: page.getByRole('link', { name, exact: true }) });
+    await row.waitFor();
+    expect(await row.locator('[data-label="status"]').textContent()).toBe('Draft');
+    await row.getByRole('link', { name: `Open ${name}` }).click();
+    await page.waitForURL(`${BASE_URL}/layout?design=${id}`);
+    await expect(page.getByLabel('Design name').inputValue()).resolves.toBe(name);
+    await savedBadge(page).waitFor();
+
+    // An edit shows as unsaved, and leaving the page then asks first (the edit stays).
+    await page.getByLabel(/^Perpendicular fret/).fill('7');
+    await page.getByRole('status').filter({ hasText: /^(Unsaved changes|Saving…)$/ }).waitFor();
+    const asked = page.waitForEvent('dialog');
+    await page.close({ runBeforeUnload: true });
+    const dialog = await asked;
+    expect(dialog.type()).toBe('beforeunload');
+    await dialog.dismiss();
+    expect(page.isClosed()).toBe(false);
+
+    // Autosave makes revision 2; the history lists both and compares them field by field.
+    await keptGroup(page).filter({ hasText: 'Revision 2' }).waitFor();
+    await savedBadge(page).waitFor();
+    await page.getByRole('tab', { name: 'History' }).click();
+    const history = page.getByRole('region', { name: 'Revision history' });
+    await history.getByRole('button', { name: 'Restore revision 1' }).waitFor();
+    expect(await history.getByRole('listitem').count()).toBe(2);
+    await history.getByRole('rowheader', { name: 'perpendicularFret' }).waitFor();
+    expect(await history.getByRole('rowheader').allInnerTexts()).toEqual(['perpendicularFret']);
+    await saveScreenshot(page, 'boards-editor-history');
+
+    // Restoring revision 1 makes it current again as revision 3, and the form shows it.
+    await history.getByRole('button', { name: 'Restore revision 1' }).click();
+    await keptGroup(page).filter({ hasText: 'Revision 3' }).waitFor();
+    await expect(page.getByLabel(/^Perpendicular fret/).inputValue()).resolves.toBe('8');
+    await history.getByText('“Restored revision 1”').waitFor();
+    const restored = await api<BoardDetail>(`/api/designs/${id}`);
+    expect(restored.currentRevision).toBe(3);
+    expect(restored.design).toEqual(first.design);
+    await savedBadge(page).waitFor();
+
+    // Archived from Boards.
+    await page.goto(`${BASE_URL}/boards?q=${encodeURIComponent(name)}`);
+    await row.getByRole('button', { name: `Archive ${name}` }).click();
+    await page.getByText('No boards match these filters.').waitFor();
+    expect((await api<BoardDetail>(`/api/designs/${id}`)).status).toBe('archived');
+    expect((await api<{ items: unknown[] }>(`/api/designs/${id}/revisions`)).items.length).toBe(3);
+    await context.close();
+  });
+
+  it('a save that lost a race keeps the edit, shows what changed, and saves it as a copy', async () => {
+    const design = { ...structuredClone(DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan')!.design), name: `Raced seven ${Date.now()}` };
+    const board = await api<BoardDetail>('/api/designs', 'POST', { design });
+    const context = await signedInContext(builder);
+    const page = await context.newPage();
+    await page.goto(`${BASE_URL}/layout?design=${board.id}`, { waitUntil: 'networkidle' });
+    await savedBadge(page).waitFor();
+
+    // Someone else saves first (as a second session would).
+    await api(`/api/designs/${board.id}`, 'PATCH', { version: board.version, design: { ...design, perpendicularFret: 7 } });
+    await page.getByLabel(/^String spacing at the nut/).fill('42');
+
+    const notice = page.getByRole('alert').filter({ hasText: 'This board was saved elsewhere while you edited it' });
+    await notice.waitFor();
+    await page.getByRole('status').filter({ hasText: 'Changed elsewhere' }).waitFor();
+    expect((await notice.getByRole('rowheader').allInnerTexts()).sort()).toEqual(['perpendicularFret', 'stringSpacing.nut']);
+    await expect(page.getByLabel(/^String spacing at the nut/).inputValue()).resolves.toBe('42');
+    await saveScreenshot(page, 'boards-editor-conflict');
+
+    await notice.getByRole('button', { name: 'Save mine as a copy' }).click();
+    await page.waitForURL((url) => url.searchParams.get('design') !== String(board.id));
+    await savedBadge(page).waitFor();
+    const copy = await api<BoardDetail>(`/api/designs/${boardIdIn(page.url())}`);
+    expect(copy.design).toMatchObject({ stringSpacing: { nut: 42 }, perpendicularFret: 8 });
+    // Both edits are kept: the other save stays on the original board.
+    expect((await api<BoardDetail>(`/api/designs/${board.id}`)).design).toMatchObject({ stringSpacing: { nut: 41 }, perpendicularFret: 7 });
+    expect(await notice.count()).toBe(0);
+    await context.close();
+  });
+
+  it('visitors and clients keep the scratch design: no Save to Boards, and a saved board is not theirs to open', async () => {
+    const visitor = await browser.newPage();
+    await visitor.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
+    await keptGroup(visitor).getByText('Scratch design, kept in this browser only').waitFor();
+    expect(await visitor.getByRole('button', { name: 'Save to Boards' }).count()).toBe(0);
+    await keptGroup(visitor).getByRole('link', { name: 'Sign in' }).waitFor();
+    await visitor.close();
+
+    const client = await signInAs('client@wrenfield.example');
+    const context = await signedInContext(client);
+    const page = await context.newPage();
+    await page.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
+    await keptGroup(page).getByText('Scratch design, kept in this browser only').waitFor();
+    expect(await page.getByRole('button', { name: 'Save to Boards' }).count()).toBe(0);
+    const [someBoard] = (await api<{ items: BoardDetail[] }>('/api/designs?pageSize=1')).items;
+    const response = await page.goto(`${BASE_URL}/layout?design=${someBoard!.id}`);
+    expect(response?.status()).toBe(403);
+    await context.close();
+  });
+});
