@@ -3,17 +3,13 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
+import { expectNear } from '../support/expect-near.ts';
 
 let browser: Browser;
 beforeAll(async () => {
   browser = await launchBrowser();
 });
 afterAll(() => browser?.close());
-
-/** |a - b| <= tol, in the unit the caller names. */
-function expectNear(actual: number, expected: number, tol: number) {
-  expect(Math.abs(actual - expected), `${actual} vs ${expected} (tolerance ${tol})`).toBeLessThanOrEqual(tol);
-}
 
 interface Scene {
   frets: { fret: number; points: number[] }[];
