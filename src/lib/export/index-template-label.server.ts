@@ -7,7 +7,8 @@ import { PDFDocument, type PDFFont, type PDFPage } from 'pdf-lib';
 import QRCode from 'qrcode';
 import { convertLength, formatLength } from '~/lib/format/units';
 import type { TemplateSpec } from '~/lib/schemas/template';
-import { embedMonoFont, INK, PT_PER_IN, PT_PER_MM } from './index-template-pdf-kit.server';
+import { PT_PER_IN, PT_PER_MM } from './paper-sizes';
+import { embedMonoFont, INK } from './pdf-kit.server';
 
 interface SheetLayout {
   page: [number, number];

@@ -121,7 +121,7 @@ describe('index template PDF (read back with pdfjs-dist)', () => {
     }
     // The strip's nut end sits 15 mm behind the nut line, drawn to scale.
     expect(vertical.some((s) => Math.abs(s.x1 - (out.placement.originX - 15 * PT_PER_MM)) < 0.01)).toBe(true);
-    expect(page!.text).toMatch(/Print at 100 % \/ actual size; measure the bar before cutting/);
+    expect(page!.text).toMatch(/Print at 100 % \/ actual size\. Measure both bars before cutting/);
     expect(page!.text).toMatch(/100 mm/);
   });
 });
