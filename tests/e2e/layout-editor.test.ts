@@ -3,6 +3,7 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
+import { expectNear } from '../support/expect-near.ts';
 import { pagePointOf, readScene } from '../support/konva-scene.ts';
 
 let browser: Browser;
@@ -10,11 +11,6 @@ beforeAll(async () => {
   browser = await launchBrowser();
 });
 afterAll(() => browser?.close());
-
-/** |a - b| <= tol, in the unit the caller names. */
-function expectNear(actual: number, expected: number, tol: number) {
-  expect(Math.abs(actual - expected), `${actual} vs ${expected} (tolerance ${tol})`).toBeLessThanOrEqual(tol);
-}
 
 const length = (p: number[]) => Math.hypot((p[2] ?? 0) - (p[0] ?? 0), (p[3] ?? 0) - (p[1] ?? 0));
 

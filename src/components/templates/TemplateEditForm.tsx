@@ -2,7 +2,7 @@
 import { useState, type SyntheticEvent } from 'react';
 import type { TemplateView } from '~/lib/schemas/template';
 import { ApiError, patchTemplate } from './shelf-api';
-import { CONDITION_LABELS } from './template-labels';
+import { ConditionOptions } from './template-labels';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
 
 const input = 'rounded border border-paper-line px-2 py-1';
@@ -46,11 +46,7 @@ export default function TemplateEditForm({ template }: { template: TemplateView 
           <label className="flex flex-col gap-1 text-sm">
             Condition
             <select name="condition" defaultValue={template.condition} className={input}>
-              {Object.entries(CONDITION_LABELS).map(([value, label]) => (
-                <option key={value} value={value}>
-                  {label}
-                </option>
-              ))}
+              <ConditionOptions />
             </select>
           </label>
           <label className="flex flex-col gap-1 text-sm">

@@ -8,7 +8,7 @@ import { useState } from 'react';
 import { formatLength } from '~/lib/format/units';
 import { TEMPLATE_SORTS, type TemplateView } from '~/lib/schemas/template';
 import { AddTemplateForm, type DesignChoice } from './AddTemplateForm';
-import { CONDITION_LABELS, LastCheck } from './template-labels';
+import { CONDITION_LABELS, ConditionOptions, LastCheck } from './template-labels';
 import { fetchTemplates } from './shelf-api';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
 
@@ -126,11 +126,7 @@ function Shelf({ designs, initialSearch }: ShelfProps) {
             className="rounded border border-paper-line px-2 py-1"
           >
             <option value="">Any</option>
-            {Object.entries(CONDITION_LABELS).map(([value, label]) => (
-              <option key={value} value={value}>
-                {label}
-              </option>
-            ))}
+            <ConditionOptions />
           </select>
         </label>
         <p className="text-sm text-ink-soft" aria-live="polite">

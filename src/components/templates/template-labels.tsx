@@ -7,6 +7,15 @@ export const CONDITION_LABELS: Record<TemplateCondition, string> = {
   retired: 'Retired',
 };
 
+/** One <option> per condition, in the order above, for a condition <select>. */
+export function ConditionOptions() {
+  return Object.entries(CONDITION_LABELS).map(([value, label]) => (
+    <option key={value} value={value}>
+      {label}
+    </option>
+  ));
+}
+
 /** The last Template check's date and result, in words (not colour alone). */
 export function LastCheck({ template }: { template: Pick<TemplateView, 'lastCheckedOn' | 'lastCheckPassed'> }) {
   if (!template.lastCheckedOn) return <span className="text-ink-faint">Not checked</span>;

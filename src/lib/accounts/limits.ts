@@ -47,3 +47,10 @@ export function tooManyMessage(retryAfterSeconds: number): string {
   const minutes = Math.ceil(retryAfterSeconds / 60);
   return `Too many attempts. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`;
 }
+
+/** Makes a page's response a 429 with Retry-After, and returns the message to show on the page. */
+export function refuseTooMany(response: ResponseInit & { readonly headers: Headers }, retryAfterSeconds: number): string {
+  response.status = 429;
+  response.headers.set('retry-after', String(retryAfterSeconds));
+  return tooManyMessage(retryAfterSeconds);
+}

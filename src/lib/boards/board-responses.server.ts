@@ -1,9 +1,10 @@
 /**
- * The pieces every Boards API route shares: the role check, the board id from the URL, design
- * validation with field paths, and one mapping from a write's outcome to a status code.
+ * The pieces every Boards API route shares: the role check, the board id from the URL (and the
+ * board it names), design validation with field paths, and one mapping from a write's outcome to
+ * a status code.
  */
 import { CAN, requireRole, type Guarded, type SessionUser } from '~/lib/auth/index.server.ts';
-import type { WriteResult } from '~/lib/db/designs.server.ts';
+import { getDesign, type WriteResult } from '~/lib/db/designs.server.ts';
 import { json, problem, type FieldIssue } from '~/lib/http/problem.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
@@ -26,6 +27,33 @@ export function boardId(param: string | undefined): number | null {
   return Number.isSafeInteger(id) ? id : null;
 }
 
+export type BoardTarget = { ok: true; user: SessionUser; id: number } | { ok: false; response: Response };
+
+/** What every `/api/designs/{id}` route starts with: the role check, then the board id (bad = 404). */
+export function boardTarget(user: SessionUser | null, param: string | undefined): BoardTarget {
+  const guard = requireBoardsUser(user);
+  if (!guard.ok) return guard;
+  const id = boardId(param);
+  return id === null ? { ok: false, response: boardNotFound() } : { ok: true, user: guard.user, id };
+}
+
+export type RequestedBoard =
+  | { ok: true; user: SessionUser; board: BoardDetail; revision: number | undefined }
+  | { ok: false; response: Response };
+
+/**
+ * For the routes that read one board: the guard, the board id, the optional `revision` query
+ * parameter (undefined = current; a bad one is a 400 naming it) and the board in the user's shop.
+ */
+export async function requestedBoard(user: SessionUser | null, idParam: string | undefined, revisionParam: string | null | undefined): Promise<RequestedBoard> {
+  const target = boardTarget(user, idParam);
+  if (!target.ok) return target;
+  const revision = revisionParam === null || revisionParam === undefined ? undefined : boardId(revisionParam);
+  if (revision === null) return { ok: false, response: problem(400, 'revision must be a whole number from 1', { field: 'revision' }) };
+  const board = await getDesign(target.user.shopId, target.id, revision);
+  return board ? { ok: true, user: target.user, board, revision } : { ok: false, response: boardNotFound() };
+}
+
 /** Validates a design, reporting issues under `prefix` (e.g. "design.scale.treble"; '' for none). */
 export function checkDesign(value: unknown, prefix: string): { ok: true; design: Design } | { ok: false; issues: FieldIssue[] } {
   const result = validateDesign(value);
@@ -34,6 +62,16 @@ export function checkDesign(value: unknown, prefix: string): { ok: true; design:
     ok: false,
     issues: result.issues.map((issue) => ({ path: withPrefix(prefix, issue.path), message: issue.message })),
   };
+}
+
+/**
+ * A saved revision's design, typed. Stored designs were validated when saved, so a failure here
+ * is a server fault (500), not bad input.
+ */
+export function storedDesign(value: unknown): Design {
+  const result = validateDesign(value);
+  if (!result.ok) throw new Error(`stored design no longer validates: ${result.issues[0]?.path}`);
+  return result.design;
 }
 
 function withPrefix(prefix: string, path: string): string {

@@ -4,6 +4,7 @@
  */
 import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '~/lib/db/client.server';
+import { MM_PER_INCH } from '~/lib/format/units';
 import { designRevisions, designs, templateChecks, templates } from '~/lib/db/schema';
 import type { CheckResult } from '~/lib/template-check/compare';
 import { standInDesign } from '~/lib/template-check/template-design';
@@ -48,7 +49,7 @@ function toView(row: { template: TemplateRow; designName: string | null }): Temp
 }
 
 /** Scale lengths compared in mm so inch and mm templates sort together. */
-const trebleScaleMm = sql`(CASE WHEN ${templates.units} = 'in' THEN ${templates.trebleScale} * 25.4 ELSE ${templates.trebleScale} END)`;
+const trebleScaleMm = sql`(CASE WHEN ${templates.units} = 'in' THEN ${templates.trebleScale} * ${sql.raw(String(MM_PER_INCH))} ELSE ${templates.trebleScale} END)`;
 
 const SORT_COLUMNS: Record<TemplateListQuery['sort'], SQL | typeof templates.name> = {
   name: templates.name,

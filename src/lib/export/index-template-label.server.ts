@@ -5,8 +5,10 @@
  */
 import { PDFDocument, type PDFFont, type PDFPage } from 'pdf-lib';
 import QRCode from 'qrcode';
-import { convertLength, formatLength, type LengthUnit } from '~/lib/format/units';
-import { embedMonoFont, INK, PT_PER_IN, PT_PER_MM } from './index-template-pdf-kit.server';
+import { convertLength, formatLength } from '~/lib/format/units';
+import type { TemplateSpec } from '~/lib/schemas/template';
+import { PT_PER_IN, PT_PER_MM } from './paper-sizes';
+import { embedMonoFont, INK } from './pdf-kit.server';
 
 interface SheetLayout {
   page: [number, number];
@@ -55,13 +57,7 @@ export function labelSize(id: string): LabelSize | undefined {
   return LABEL_SIZES.find((size) => size.id === id);
 }
 
-export interface LabelContent {
-  name: string;
-  units: LengthUnit;
-  trebleScale: number;
-  bassScale: number;
-  frets: number;
-  slotWidth: number;
+export interface LabelContent extends TemplateSpec {
   /** YYYY-MM-DD or null. */
   madeOn: string | null;
   /** The template's page, opened by the QR code. */

@@ -5,14 +5,14 @@
  */
 import { PDFDocument, degrees, rgb, type PDFPage } from 'pdf-lib';
 import type { Point } from '~/lib/geometry/plane';
-import { drawCalibrationBars, embedMonoFont, FAINT, INK, PT_PER_MM, ptPerUnit } from './index-template-pdf-kit.server';
+import { PT_PER_MM, ptPerUnit } from './paper-sizes';
+import { CALIBRATION_BARS_TOP_PT, drawCalibrationBars, embedMonoFont, FAINT, INK } from './pdf-kit.server';
+import { PRINT_CAUTION } from './safety-note';
 import type { IndexTemplateStrip } from './index-template';
 
 const MARGIN_PT = 15 * PT_PER_MM;
-const HEADER_PT = 62 * PT_PER_MM;
+const HEADER_PT = 68 * PT_PER_MM;
 const MIN_WIDTH_PT = 200 * PT_PER_MM;
-
-export const PRINT_CAUTION = 'Print at 100 % / actual size; measure the bar before cutting.';
 
 /** Where board point (0, 0) lands on the page and how many points one design unit is. */
 export interface StripPlacement {
@@ -70,7 +70,7 @@ export async function indexTemplatePdf(strip: IndexTemplateStrip): Promise<{ byt
   write(`Index template: ${strip.name}`, 11);
   write(PRINT_CAUTION, 9);
   for (const note of strip.notes) write(note, 7, FAINT);
-  drawCalibrationBars(page, font, MARGIN_PT, line - 30);
+  drawCalibrationBars(page, font, { x: MARGIN_PT, y: line - 10 - CALIBRATION_BARS_TOP_PT });
 
   return { bytes: await doc.save(), placement, pageSize: [width, height] };
 }

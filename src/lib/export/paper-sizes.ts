@@ -2,17 +2,23 @@
  * Paper sizes for the paper template, in PostScript points (72 pt = 1 in = 25.4 mm exactly,
  * ISO 32000-1). Sizes are given portrait (width < height).
  */
-import { MM_PER_INCH } from '~/lib/format/units';
+import { MM_PER_INCH, type LengthUnit } from '~/lib/format/units';
 
+export const PT_PER_IN = 72;
 /** Points per millimetre: 72 / 25.4. */
-export const PT_PER_MM = 72 / MM_PER_INCH;
+export const PT_PER_MM = PT_PER_IN / MM_PER_INCH;
+
+/** Points per one design unit. */
+export function ptPerUnit(units: LengthUnit): number {
+  return units === 'mm' ? PT_PER_MM : PT_PER_IN;
+}
 
 export function mmToPt(mm: number): number {
-  return (mm * 72) / MM_PER_INCH;
+  return (mm * PT_PER_IN) / MM_PER_INCH;
 }
 
 export function ptToMm(pt: number): number {
-  return (pt * MM_PER_INCH) / 72;
+  return (pt * MM_PER_INCH) / PT_PER_IN;
 }
 
 export type SheetPaperName = 'letter' | 'legal' | 'tabloid' | 'a4' | 'a3';
@@ -29,7 +35,7 @@ export interface PaperSize {
 }
 
 function inches(label: string, widthIn: number, heightIn: number): PaperSize {
-  return { label, widthPt: widthIn * 72, heightPt: heightIn * 72 };
+  return { label, widthPt: widthIn * PT_PER_IN, heightPt: heightIn * PT_PER_IN };
 }
 
 function millimetres(label: string, widthMm: number, heightMm: number): PaperSize {

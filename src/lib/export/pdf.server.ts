@@ -6,9 +6,6 @@
  * Lines a test or a person may want to find are wrapped in marked content (BMC) with plain tags:
  * Fret<n>, CalibrationBar100mm, CalibrationBar4in, AlignmentMark.
  */
-import { readFile } from 'node:fs/promises';
-import { createRequire } from 'node:module';
-import fontkit from '@pdf-lib/fontkit';
 import {
   beginMarkedContent,
   clip,
@@ -36,20 +33,11 @@ import type { Design } from '~/lib/schemas/design';
 import type { ExportOptions } from '~/lib/schemas/export-options';
 import { PAGE_FRAME_MM } from './page-frame';
 import { PAPER_LABELS, mmToPt } from './paper-sizes';
+import { drawCalibrationBars, embedMonoFont } from './pdf-kit.server';
 import { PRINT_CAUTION } from './safety-note';
 import { sheetDrawing, type LineStyle, type SheetItem } from './sheet-drawing';
 import { planTiles, type Tile, type TilePlan } from './tile-pages';
 import { titleBlockLines, type ExportContext } from './title-block';
-import { woffToSfnt } from './woff-to-sfnt.server';
-
-const FONT_FILE = '@fontsource/jetbrains-mono/files/jetbrains-mono-latin-400-normal.woff';
-let fontBytes: Promise<Uint8Array> | null = null;
-
-/** The font file is read and unpacked once per process. */
-function loadFont(): Promise<Uint8Array> {
-  fontBytes ??= readFile(createRequire(import.meta.url).resolve(FONT_FILE)).then(woffToSfnt);
-  return fontBytes;
-}
 
 type Rgb = [number, number, number];
 interface Pen {
@@ -96,11 +84,7 @@ export async function paperTemplatePdf(
   const drawing = sheetDrawing(layout, options);
   const plan = planTiles(drawing.bounds, options);
   const document = await PDFDocument.create();
-  document.registerFontkit(fontkit);
-  // No contextual alternates or ligatures: printed numbers and words show exactly as written.
-  const font = memoiseEncoding(
-    await document.embedFont(await loadFont(), { subset: true, features: { calt: false, liga: false } }),
-  );
+  const font = await embedMonoFont(document);
   document.setTitle(`${design.name} (paper template)`);
   document.setSubject(PRINT_CAUTION);
   document.setCreator('Kerfline');
@@ -284,8 +268,7 @@ function drawPageMap(
 function drawFooter(page: PDFPage, font: PDFFont, titleLines: readonly string[]): void {
   const { margin, footer } = PAGE_FRAME_MM;
   const left = mmToPt(margin + 1);
-  drawBar(page, font, { x: left, y: mmToPt(margin + 20) }, 100, 10, 'mm', 'CalibrationBar100mm');
-  drawBar(page, font, { x: left, y: mmToPt(margin + 7) }, 4, 1, 'in', 'CalibrationBar4in');
+  drawCalibrationBars(page, font, { x: left, y: mmToPt(margin + 7) });
   const textLeft = mmToPt(margin + 126);
   const size = 6.5;
   const maxChars = Math.floor((page.getWidth() - mmToPt(margin) - textLeft) / (size * 0.6));
@@ -300,43 +283,6 @@ function drawFooter(page: PDFPage, font: PDFFont, titleLines: readonly string[])
   });
 }
 
-/**
- * A calibration bar `length` units long from `start`, with tall end ticks and short ticks every
- * `step`, labelled with its length.
- */
-function drawBar(
-  page: PDFPage,
-  font: PDFFont,
-  start: Point,
-  length: number,
-  step: number,
-  unit: 'mm' | 'in',
-  tag: string,
-): void {
-  const toPt = (value: number) => (unit === 'mm' ? mmToPt(value) : value * 72);
-  const end = start.x + toPt(length);
-  const tall = mmToPt(3);
-  const short = mmToPt(1.5);
-  page.pushOperators(
-    beginMarkedContent(tag),
-    ...penOps({ widthPt: 0.5, colour: BLACK }),
-    moveTo(start.x, start.y),
-    lineTo(end, start.y),
-    stroke(),
-    endMarkedContent(),
-    moveTo(start.x, start.y - tall),
-    lineTo(start.x, start.y + tall),
-    moveTo(end, start.y - tall),
-    lineTo(end, start.y + tall),
-  );
-  for (let at = step; at < length - step / 2; at += step) {
-    const x = start.x + toPt(at);
-    page.pushOperators(moveTo(x, start.y), lineTo(x, start.y + short));
-  }
-  page.pushOperators(stroke());
-  page.drawText(`${length} ${unit}`, { x: end + mmToPt(2), y: start.y - 2.5, size: 8, font });
-}
-
 /** Characters the font lacks become "?" instead of blank boxes. */
 function fitsFont(font: PDFFont, text: string): string {
   const supported = characterSets.get(font) ?? new Set(font.getCharacterSet());
@@ -348,21 +294,4 @@ const characterSets = new WeakMap<PDFFont, Set<number>>();
 /** JetBrains Mono advances every character 600/1000 em. */
 function monoWidth(text: string, sizePt: number): number {
   return [...text].length * 0.6 * sizePt;
-}
-
-/**
- * fontkit shapes each string anew (about half a millisecond each); the template repeats the same
- * few strings on every page, so each document remembers its encodings.
- */
-function memoiseEncoding(font: PDFFont): PDFFont {
-  const encode = font.encodeText.bind(font);
-  const cache = new Map<string, ReturnType<PDFFont['encodeText']>>();
-  font.encodeText = (text: string) => {
-    const known = cache.get(text);
-    if (known) return known;
-    const encoded = encode(text);
-    cache.set(text, encoded);
-    return encoded;
-  };
-  return font;
 }

@@ -7,6 +7,7 @@ import { fromMm, toMm } from '~/lib/format/units';
 import type { Layout, Point, Segment } from '~/lib/geometry/layout';
 import type { ExportOptions } from '~/lib/schemas/export-options';
 import { kerfOutline } from './kerf-outline';
+import { ptToMm } from './paper-sizes';
 import type { Box } from './tile-pages';
 
 export type LineStyle =
@@ -126,7 +127,7 @@ function beyond(outer: Point, inner: Point, distanceMm: number): Point {
 
 /** Half the printed width of a monospaced label, in mm. */
 export function labelHalfWidthMm(text: string, sizePt: number): number {
-  return (text.length * MONO_ADVANCE_EM * sizePt * 25.4) / 72 / 2;
+  return ptToMm(text.length * MONO_ADVANCE_EM * sizePt) / 2;
 }
 
 function drawingBounds(items: readonly SheetItem[]): Box {
@@ -148,7 +149,7 @@ function drawingBounds(items: readonly SheetItem[]): Box {
       add(item.centre.x + item.radiusMm, item.centre.y + item.radiusMm);
     } else {
       const halfWidth = labelHalfWidthMm(item.text, item.sizePt);
-      const halfHeight = (item.sizePt * 25.4) / 72 / 2;
+      const halfHeight = ptToMm(item.sizePt) / 2;
       add(item.centre.x - halfWidth, item.centre.y - halfHeight);
       add(item.centre.x + halfWidth, item.centre.y + halfHeight);
     }

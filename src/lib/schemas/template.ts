@@ -159,6 +159,9 @@ export const templateViewSchema = z.object({
 });
 export type TemplateView = z.infer<typeof templateViewSchema>;
 
+/** What identifies a template's slots: printed on its label, and enough for a stand-in design. */
+export type TemplateSpec = Pick<TemplateView, 'name' | 'units' | 'trebleScale' | 'bassScale' | 'frets' | 'slotWidth'>;
+
 export interface TemplatePage {
   items: TemplateView[];
   total: number;

@@ -10,7 +10,7 @@ import { indexTemplateStrip } from '~/lib/export/index-template';
 import { indexTemplateDxf } from '~/lib/export/index-template-dxf';
 import { LABEL_SIZES, labelSize, templateLabelPdf } from '~/lib/export/index-template-label.server';
 import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server';
-import { pdfResponse } from '~/lib/export/index-template-pdf-kit.server';
+import { pdfResponse } from '~/lib/export/pdf-kit.server';
 import { problem } from '~/lib/http/problem';
 import { shelfTemplate } from './route-context.server';
 

@@ -4,7 +4,7 @@ import { fretTableCsv } from '~/lib/export/csv';
 import { computeLayout } from '~/lib/geometry/layout';
 import { handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server';
 import { invalidFieldArbitrary } from '../geometry/design-arbitraries';
-import { designInput, validDesign, withField } from '../geometry/design-builders';
+import { designInput, validDesign, withField } from '../../support/design-builders';
 
 const URL_BASE = 'http://127.0.0.1:4321/api/layout';
 const FAN = designInput({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8 });

@@ -7,7 +7,7 @@ import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
 import { parseCommand } from '~/lib/cli/parse-command';
 import { runKerfline } from '~/lib/cli/run-kerfline.server';
-import { expectNear } from '../geometry/design-builders';
+import { expectNear } from '../../support/expect-near';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const FAN_FILE = join(ROOT, 'fixtures/designs/seven-string-fan.json');

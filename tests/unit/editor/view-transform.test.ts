@@ -11,11 +11,7 @@ import {
   zoomBy,
   type View,
 } from '~/components/editor/view-transform';
-
-/** |a - b| <= tol, with the tolerance's unit named by the caller. */
-function expectNear(actual: number, expected: number, tol: number) {
-  expect(Math.abs(actual - expected), `${actual} vs ${expected} (tolerance ${tol})`).toBeLessThanOrEqual(tol);
-}
+import { expectNear } from '../../support/expect-near';
 
 const view: View = { zoom: 2.5, originX: 40, originY: 300 };
 

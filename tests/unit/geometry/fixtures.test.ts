@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { fretTableCsv } from '~/lib/export/csv';
 import { computeLayout } from '~/lib/geometry/layout';
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
-import { validDesign } from './design-builders';
+import { validDesign } from '../../support/design-builders';
 
 const FIXTURES = new URL('../../../fixtures/', import.meta.url);
 const designFiles = (await readdir(new URL('designs/', FIXTURES))).filter((f) => f.endsWith('.json')).sort();

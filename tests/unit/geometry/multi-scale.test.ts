@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { fretTableCsv } from '~/lib/export/csv';
 import { distance, type Point } from '~/lib/geometry/plane';
-import { expectNear, fretPoint, layoutOf } from './design-builders';
+import { expectNear } from '../../support/expect-near';
+import { fretPoint, layoutOf } from '../../support/design-builders';
 
 const FAN = {
   strings: 7,

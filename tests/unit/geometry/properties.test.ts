@@ -4,7 +4,7 @@ import { computeLayout } from '~/lib/geometry/layout';
 import { distance, type Point } from '~/lib/geometry/plane';
 import { validateDesign } from '~/lib/schemas/design';
 import { invalidFieldArbitrary, validDesignArbitrary } from './design-arbitraries';
-import { validDesign, withField } from './design-builders';
+import { validDesign, withField } from '../../support/design-builders';
 
 function offLine(point: Point, a: Point, b: Point): number {
   return Math.abs((b.x - a.x) * (point.y - a.y) - (b.y - a.y) * (point.x - a.x)) / distance(a, b);

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { parseScl } from '~/lib/geometry/scala';
 import { validateDesign } from '~/lib/schemas/design';
-import { designInput, expectNear, fretPoint, layoutOf } from './design-builders';
+import { expectNear } from '../../support/expect-near';
+import { designInput, fretPoint, layoutOf } from '../../support/design-builders';
 
 /** 12-tone equal temperament written as a .scl file in cents (Scala .scl format). */
 const TWELVE_TET_SCL = [

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { MM_PER_INCH, convertLength, formatLength, fromMm, inToMm, mmToIn, toMm } from '~/lib/format/units';
-import { expectNear, layoutOf } from './design-builders';
+import { expectNear } from '../../support/expect-near';
+import { layoutOf } from '../../support/design-builders';
 
 const MM_DESIGN = {
   units: 'mm' as const,

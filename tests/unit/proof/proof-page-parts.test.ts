@@ -3,7 +3,7 @@ import { proofDrawing } from '~/lib/export/proof-drawing';
 import { designSpecs } from '~/lib/format/design-specs';
 import { computeLayout } from '~/lib/geometry/layout';
 import { decisionSchema, PROOF_LIMITS } from '~/lib/schemas/proof';
-import { designInput, validDesign } from '../geometry/design-builders';
+import { designInput, validDesign } from '../../support/design-builders';
 
 const FAN = validDesign(designInput({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8, stringSpacing: { nut: 41, bridge: 63 } }));
 

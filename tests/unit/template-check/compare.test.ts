@@ -2,8 +2,8 @@ import { Interval, Midi, Note } from 'tonal';
 import { describe, expect, it } from 'vitest';
 import { centsError, compareTemplate, defaultTolerance, type Measurement } from '~/lib/template-check/compare';
 import { checkReference } from '~/lib/template-check/reference';
-import { designOf } from './designs';
-import { expectNear } from './near';
+import { designOf } from '../../support/design-builders';
+import { expectNear } from '../../support/expect-near';
 
 const FRETS = Array.from({ length: 20 }, (_, i) => i + 1);
 
@@ -25,7 +25,7 @@ function lcg(seed: number): () => number {
   };
 }
 
-const design635 = checkReference(designOf({ scale: { treble: 635, bass: 635 } }));
+const design635 = checkReference(designOf({ scale: { treble: 635, bass: 635 }, frets: 20, stringSpacing: { nut: 43, bridge: 56 } }));
 
 describe('Template check against a design', () => {
   it('a template made for 628.65 mm fails against 635 mm and the best fit recovers 628.65 mm within 0.01 mm', () => {
@@ -84,7 +84,7 @@ describe('Template check against a design', () => {
 
   it('per-edge measurements of a fanned design use string 1 and string N scale lengths from the layout', () => {
     const reference = checkReference(
-      designOf({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8, stringSpacing: { nut: 48, bridge: 75 } }),
+      designOf({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8, frets: 20, stringSpacing: { nut: 48, bridge: 75 } }),
     );
     const measured: Measurement[] = [
       ...FRETS.map((fret) => ({ fret, string: 1, fromNut: closedForm(648, fret) })),
@@ -102,7 +102,7 @@ describe('Template check against a design', () => {
 
   it('works in inches: default tolerances are the mm values converted', () => {
     expectNear(defaultTolerance('hand', 'in'), 0.1 / 25.4, 1e-15); // in
-    const reference = checkReference(designOf({ units: 'in', scale: { treble: 13.875, bass: 13.875 }, stringSpacing: { nut: 0.85, bridge: 1.45 } }));
+    const reference = checkReference(designOf({ units: 'in', scale: { treble: 13.875, bass: 13.875 }, frets: 20, stringSpacing: { nut: 0.85, bridge: 1.45 } }));
     const measured = FRETS.map((fret) => ({ fret, string: 1, fromNut: closedForm(13.875, fret) }));
     const outcome = compareTemplate(reference, measured, defaultTolerance('cnc', 'in'));
     expect(outcome.ok && outcome.result.passed).toBe(true);

@@ -4,8 +4,8 @@ import { indexTemplateStrip } from '~/lib/export/index-template';
 import { INDEX_TEMPLATE_LAYERS, indexTemplateDxf } from '~/lib/export/index-template-dxf';
 import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server';
 import { computeLayout } from '~/lib/geometry/layout';
-import { designOf } from '../template-check/designs';
-import { expectNear } from '../template-check/near';
+import { designOf } from '../../support/design-builders';
+import { expectNear } from '../../support/expect-near';
 import { readPdf } from './pdf-readback';
 
 /** Closed form for 12-tone equal temperament: d(n) = L (1 - 2^(-n/12)). */
@@ -67,7 +67,7 @@ describe('index template DXF (read back with dxf-parser)', () => {
   });
 
   it('declares inches ($INSUNITS 1) for a design in inches', () => {
-    const mandolin = designOf({ units: 'in', scale: { treble: 13.875, bass: 13.875 }, stringSpacing: { nut: 0.85, bridge: 1.45 } });
+    const mandolin = designOf({ units: 'in', scale: { treble: 13.875, bass: 13.875 }, frets: 20, stringSpacing: { nut: 0.85, bridge: 1.45 } });
     const parsed = parseDxf(indexTemplateDxf(indexTemplateStrip(mandolin, 0.024)));
     expect(parsed.header['$INSUNITS']).toBe(1);
     const fret12 = parsed.entities.find((e) => e.layer === 'SLOT_CENTRES' && Math.abs(e.vertices[0]!.x - 13.875 / 2) < 1e-6);
@@ -121,7 +121,7 @@ describe('index template PDF (read back with pdfjs-dist)', () => {
     }
     // The strip's nut end sits 15 mm behind the nut line, drawn to scale.
     expect(vertical.some((s) => Math.abs(s.x1 - (out.placement.originX - 15 * PT_PER_MM)) < 0.01)).toBe(true);
-    expect(page!.text).toMatch(/Print at 100 % \/ actual size; measure the bar before cutting/);
+    expect(page!.text).toMatch(/Print at 100 % \/ actual size\. Measure both bars before cutting/);
     expect(page!.text).toMatch(/100 mm/);
   });
 });

@@ -8,6 +8,7 @@ import { and, desc, eq } from 'drizzle-orm';
 import type { SeedContext } from './demo-shop.server.ts';
 import { designs, templateChecks, templates } from '~/lib/db/schema.ts';
 import { createTemplate, getTemplate, saveCheck } from '~/lib/db/templates.server.ts';
+import { equalRemainingFraction } from '~/lib/geometry/temperament.ts';
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
 import { standInDesign } from '~/lib/template-check/template-design.ts';
 import { runCheck } from '~/lib/template-check/run-check.ts';
@@ -80,9 +81,10 @@ const DEMO_TEMPLATES: readonly DemoTemplate[] = [
 
 /** Hand measurements of the old template: small, deterministic deviations (demo data). */
 function oldTemplateMeasurements(scale: number, frets: number) {
+  const r = equalRemainingFraction(12);
   return Array.from({ length: frets }, (_, i) => {
     const fret = i + 1;
-    return { fret, string: 1, fromNut: scale * (1 - 2 ** (-fret / 12)) + 0.04 * Math.sin(fret * 1.7) };
+    return { fret, string: 1, fromNut: scale * (1 - r(fret)) + 0.04 * Math.sin(fret * 1.7) };
   });
 }
 

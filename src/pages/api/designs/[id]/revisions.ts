@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { boardId, boardNotFound, requireBoardsUser } from '~/lib/boards/board-responses.server.ts';
+import { boardNotFound, boardTarget } from '~/lib/boards/board-responses.server.ts';
 import { listRevisions } from '~/lib/db/designs.server.ts';
 import { json } from '~/lib/http/problem.ts';
 
@@ -7,10 +7,9 @@ export const prerender = false;
 
 /** GET /api/designs/{id}/revisions: every revision, newest first, each with its design. */
 export const GET: APIRoute = async ({ locals, params }) => {
-  const guard = requireBoardsUser(locals.user);
-  if (!guard.ok) return guard.response;
-  const id = boardId(params.id);
-  if (id === null) return boardNotFound();
-  const revisions = await listRevisions(guard.user.shopId, id);
+  const target = boardTarget(locals.user, params.id);
+  if (!target.ok) return target.response;
+  const { user, id } = target;
+  const revisions = await listRevisions(user.shopId, id);
   return revisions ? json({ items: revisions }) : boardNotFound();
 };

@@ -1,14 +1,7 @@
+/** Designs for unit tests: one plain default design, overridden per test, validated or failing the test. */
 import { expect } from 'vitest';
 import { computeLayout, type Layout } from '~/lib/geometry/layout';
 import { validateDesign, type Design, type DesignInput } from '~/lib/schemas/design';
-
-/** |actual - expected| <= tolerance, with the tolerance's unit spelled out at the call site. */
-export function expectNear(actual: number, expected: number, tolerance: number): void {
-  const difference = Math.abs(actual - expected);
-  if (!(difference <= tolerance)) {
-    expect.fail(`expected ${actual} to be within ${tolerance} of ${expected} (off by ${difference})`);
-  }
-}
 
 /** A plain six-string design in mm; override any field. */
 export function designInput(overrides: Partial<DesignInput> = {}): DesignInput {
@@ -32,8 +25,13 @@ export function validDesign(input: unknown): Design {
   return validation.design;
 }
 
+/** The validated default design with `overrides`. */
+export function designOf(overrides: Partial<DesignInput> = {}): Design {
+  return validDesign(designInput(overrides));
+}
+
 export function layoutOf(overrides: Partial<DesignInput> = {}): Layout {
-  return computeLayout(validDesign(designInput(overrides)));
+  return computeLayout(designOf(overrides));
 }
 
 /** The point of fret `fret` on string `string` (both 1-based). */
