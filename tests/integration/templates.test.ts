@@ -174,15 +174,39 @@ describe('label and index template downloads', () => {
     expect(await bad.json()).toMatchObject({ field: 'size' });
   });
 
-  it('index template DXF from a typed single-scale template; a typed fanned one is 409 (needs its design)', async () => {
+  it('index template DXF from a typed single-scale template', async () => {
     const t = await createdTemplate(builder, { ...typed, name: 'Strip' });
     const dxf = await indexTemplateRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/index-template?format=dxf`));
     expect(dxf.status).toBe(200);
     const parsed = new DxfParser().parseSync(await dxf.text());
     expect(parsed?.header['$INSUNITS']).toBe(4);
+  });
+
+  it('a typed fanned template names the string spacing and perpendicular fret it lacks, and exports once they are given', async () => {
     const fan = await createdTemplate(builder, { ...typed, name: 'Typed fan', bassScale: 686 });
-    const refused = await indexTemplateRoute(builder, String(fan.id), new URL(`${ORIGIN}/api/templates/${fan.id}/index-template?format=pdf`));
-    expect(refused.status).toBe(409);
+    const strip = (query: string) => indexTemplateRoute(builder, String(fan.id), new URL(`${ORIGIN}/api/templates/${fan.id}/index-template?${query}`));
+    const refused = await strip('format=pdf');
+    expect(refused.status).toBe(400);
+    const body = (await refused.json()) as { error: string; field: string; issues: { path: string }[] };
+    expect(body.field).toBe('nutSpacing');
+    expect(body.issues.map((i) => i.path)).toEqual(['nutSpacing', 'saddleSpacing', 'perpendicularFret']);
+    expect(body.error).toMatch(/string spacing at the nut and the string spacing at the saddle and the perpendicular fret/);
+    expect(await (await strip('format=pdf&nutSpacing=48&saddleSpacing=75')).json()).toMatchObject({ field: 'perpendicularFret' });
+    expect(await (await strip('format=pdf&nutSpacing=abc&saddleSpacing=75&perpendicularFret=8')).json()).toMatchObject({ field: 'nutSpacing' });
+    expect(await (await strip('format=pdf&nutSpacing=48&saddleSpacing=75&perpendicularFret=21')).json()).toMatchObject({ field: 'perpendicularFret' });
+
+    const dxf = await strip('format=dxf&nutSpacing=48&saddleSpacing=75&perpendicularFret=8');
+    expect(dxf.status).toBe(200);
+    const entities = new DxfParser().parseSync(await dxf.text())!.entities as unknown as { layer: string; text?: string; vertices: { x: number; y: number }[] }[];
+    const centres = entities.filter((e) => e.layer === 'SLOT_CENTRES');
+    expect(centres).toHaveLength(21); // 20 frets and the nut slot
+    // Fret 8 is the perpendicular fret: its slot is square to the strip, both ends at the same x.
+    const square = centres.filter((e) => Math.abs(e.vertices[0]!.x - e.vertices[1]!.x) < 1e-9 && e.vertices[0]!.x > 0);
+    expect(square).toHaveLength(1);
+    expect(entities.filter((e) => e.layer === 'ENGRAVING').map((e) => e.text)).toContain('8 0.0%%d');
+    const pdf = await strip('format=pdf&nutSpacing=48&saddleSpacing=75&perpendicularFret=0');
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers.get('content-type')).toBe('application/pdf');
   });
 });
 

@@ -120,6 +120,30 @@ function widthIssues(value: { slotWidth?: number | undefined; keyWidth: number }
   }
 }
 
+/**
+ * What a typed fanned template lacks for its index template's slot angles: the outer string
+ * spacing at the nut and at the saddle (template units) and the perpendicular fret (0 = nut).
+ */
+export const FAN_GEOMETRY_LABELS = {
+  nutSpacing: 'string spacing at the nut',
+  saddleSpacing: 'string spacing at the saddle',
+  perpendicularFret: 'perpendicular fret',
+} as const;
+
+const fanRequired = (field: keyof typeof FAN_GEOMETRY_LABELS) => ({
+  required_error: `the ${FAN_GEOMETRY_LABELS[field]} is needed for a fanned template with typed scale lengths`,
+  invalid_type_error: 'must be a number',
+});
+
+export const fanGeometrySchema = z
+  .object({
+    nutSpacing: z.number(fanRequired('nutSpacing')).finite({ message: 'must be a finite number' }).positive({ message: 'must be greater than 0' }),
+    saddleSpacing: z.number(fanRequired('saddleSpacing')).finite({ message: 'must be a finite number' }).positive({ message: 'must be greater than 0' }),
+    perpendicularFret: z.number(fanRequired('perpendicularFret')).finite({ message: 'must be a finite number' }).nonnegative({ message: 'must not be negative' }),
+  })
+  .strict();
+export type FanGeometry = z.infer<typeof fanGeometrySchema>;
+
 export const TEMPLATE_SORTS = ['name', 'scale', 'madeOn', 'lastChecked', 'updated'] as const;
 
 /** The shelf's list query (from URL search parameters). */
