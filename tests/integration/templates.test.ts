@@ -110,6 +110,38 @@ describe('Template shelf API', () => {
     expect(await badSort.json()).toMatchObject({ field: 'sort' });
   });
 
+  it('records the last check on and its result; filters by last result (pass, fail, never) and sorts by last check', async () => {
+    const shop = await sessionUser(await newShopUser('owner'));
+    // One after another, so on a tie in the (whole-second) check time the later id sorts first.
+    const failing = await createdTemplate(shop, { ...typed, name: 'Failing' });
+    const passing = await createdTemplate(shop, { ...typed, name: 'Passing' });
+    const never = await createdTemplate(shop, { ...typed, name: 'Never' });
+    const check = (id: number, scale: number) =>
+      postCheckRoute(shop, String(id), jsonRequest(`/api/templates/${id}/checks`, 'POST', {
+        units: 'mm',
+        tolerance: 0.05,
+        measurements: Array.from({ length: 20 }, (_, i) => ({ fret: i + 1, fromNut: closedForm(scale, i + 1) })),
+      }));
+    expect((await check(failing.id, 628.65)).status).toBe(201);
+    expect((await check(passing.id, 635)).status).toBe(201);
+    const list = async (query: string) => (await (await listRoute(shop, new URL(`${ORIGIN}/api/templates?${query}`))).json()) as { items: TemplateView[] };
+    const names = async (query: string) => (await list(query)).items.map((t) => t.name);
+    expect(await names('lastResult=pass')).toEqual(['Passing']);
+    expect(await names('lastResult=fail')).toEqual(['Failing']);
+    expect(await names('lastResult=never')).toEqual(['Never']);
+    // Newest check first; never-checked templates (no date) sort after every checked one.
+    expect(await names('sort=lastChecked&dir=desc')).toEqual(['Passing', 'Failing', 'Never']);
+    const rows = (await list('sort=name&dir=asc')).items;
+    expect(rows.map((t) => [t.name, t.lastCheckPassed])).toEqual([['Failing', false], ['Never', null], ['Passing', true]]);
+    expect(rows.find((t) => t.name === 'Never')!.lastCheckedOn).toBeNull();
+    expect(Date.parse(rows.find((t) => t.name === 'Passing')!.lastCheckedOn!)).toBeGreaterThanOrEqual(Date.parse(rows.find((t) => t.name === 'Failing')!.lastCheckedOn!));
+    expect(await names('lastResult=fail&condition=worn')).toEqual([]);
+    const bad = await listRoute(shop, new URL(`${ORIGIN}/api/templates?lastResult=maybe`));
+    expect(bad.status).toBe(400);
+    expect(await bad.json()).toMatchObject({ field: 'lastResult' });
+    expect(never.lastCheckedOn).toBeNull();
+  });
+
   it("updates shelf fields; another shop's id and a malformed id are 404", async () => {
     const t = await createdTemplate(builder, { ...typed, name: 'To edit' });
     const updated = await updateRoute(builder, String(t.id), jsonRequest(`/api/templates/${t.id}`, 'PATCH', { storagePlace: 'Rack C', condition: 'worn' }));

@@ -1,10 +1,16 @@
 /** Words and small pieces shown for a template in several places. */
-import type { TemplateCondition, TemplateView } from '~/lib/schemas/template';
+import type { LAST_RESULT_FILTERS, TemplateCondition, TemplateView } from '~/lib/schemas/template';
 
 export const CONDITION_LABELS: Record<TemplateCondition, string> = {
   in_use: 'In use',
   worn: 'Worn',
   retired: 'Retired',
+};
+
+export const LAST_RESULT_LABELS: Record<(typeof LAST_RESULT_FILTERS)[number], string> = {
+  pass: 'Passed',
+  fail: 'Failed',
+  never: 'Never checked',
 };
 
 /** The last Template check's date and result, in words (not colour alone). */

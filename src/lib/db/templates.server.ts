@@ -2,7 +2,7 @@
  * Template shelf queries. Every function takes the caller's shopId and never reads or writes
  * another shop's rows: a template or design of another shop is simply "not found".
  */
-import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, isNull, like, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '~/lib/db/client.server';
 import { designRevisions, designs, templateChecks, templates } from '~/lib/db/schema';
 import type { CheckResult } from '~/lib/template-check/compare';
@@ -66,6 +66,8 @@ function likePattern(text: string): string {
 export async function listTemplates(db: Db, shopId: number, query: TemplateListQuery): Promise<TemplatePage> {
   const filters: SQL[] = [eq(templates.shopId, shopId)];
   if (query.condition) filters.push(eq(templates.condition, query.condition));
+  if (query.lastResult === 'never') filters.push(isNull(templates.lastCheckedOn));
+  else if (query.lastResult) filters.push(eq(templates.lastCheckPassed, query.lastResult === 'pass'));
   if (query.q) {
     const pattern = likePattern(query.q);
     filters.push(

@@ -145,12 +145,17 @@ export const fanGeometrySchema = z
 export type FanGeometry = z.infer<typeof fanGeometrySchema>;
 
 export const TEMPLATE_SORTS = ['name', 'scale', 'madeOn', 'lastChecked', 'updated'] as const;
+export type TemplateSort = (typeof TEMPLATE_SORTS)[number];
+
+/** The last Template check's result, as a filter: passed, failed, or never checked. */
+export const LAST_RESULT_FILTERS = ['pass', 'fail', 'never'] as const;
 
 /** The shelf's list query (from URL search parameters). */
 export const templateListQuerySchema = z
   .object({
     q: z.string().trim().max(120).default(''),
     condition: templateConditionSchema.optional(),
+    lastResult: z.enum(LAST_RESULT_FILTERS).optional(),
     sort: z.enum(TEMPLATE_SORTS).default('updated'),
     dir: z.enum(['asc', 'desc']).default('desc'),
     page: z.coerce.number().int().min(1).max(10_000).default(1),
