@@ -195,6 +195,39 @@ describe('Template check API', () => {
   });
 });
 
+describe('adding a template with the check made against its design', () => {
+  const checkOf = (scale: number, frets: number) => ({
+    units: 'mm',
+    tolerance: 0.1,
+    measurements: Array.from({ length: frets }, (_, i) => ({ fret: i + 1, fromNut: closedForm(scale, i + 1) })),
+  });
+  const named = async (shopId: number, name: string) => db().select().from(templates).where(and(eq(templates.shopId, shopId), eq(templates.name, name)));
+
+  it('saves the template and its check together, the check against the chosen revision', async () => {
+    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const t = await createdTemplate(builder, { source: 'design', designId, revision: 1, name: 'Checked on arrival', keyWidth: 0.5, check: checkOf(628.65, 19) });
+    expect(t).toMatchObject({ designId, revision: 1, lastCheckPassed: false });
+    expect(t.lastCheckedOn).not.toBeNull();
+    const checks = (await (await listChecksRoute(builder, String(t.id))).json()) as { items: { passed: boolean; result: { fits: { scale: { scaleLength: number } }[] } }[] };
+    expect(checks.items).toHaveLength(1);
+    expect(Math.abs(checks.items[0]!.result.fits[0]!.scale.scaleLength - 628.65)).toBeLessThan(0.01); // mm
+  });
+
+  it('saves neither when the measurements do not fit the design (400 naming the measurement); another shop is 404', async () => {
+    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const beyond = { units: 'mm', tolerance: 0.1, measurements: [{ fret: 1, fromNut: 36.4 }, { fret: 24, fromNut: 490 }] };
+    const refused = await create(builder, { source: 'design', designId, name: 'Never saved', keyWidth: 0.5, check: beyond });
+    expect(refused.status).toBe(400);
+    expect(await refused.json()).toMatchObject({ field: 'check.measurements.1' });
+    expect(await named(builder.shopId, 'Never saved')).toHaveLength(0);
+    const badTolerance = await create(builder, { source: 'design', designId, name: 'Never saved', keyWidth: 0.5, check: { ...checkOf(650, 19), tolerance: -1 } });
+    expect(await badTolerance.json()).toMatchObject({ field: 'check.tolerance' });
+    const foreign = await create(otherOwner, { source: 'design', designId, name: 'Never saved', keyWidth: 0.5, check: checkOf(650, 19) });
+    expect(foreign.status).toBe(404);
+    expect(await named(otherOwner.shopId, 'Never saved')).toHaveLength(0);
+  });
+});
+
 describe('label and index template downloads', () => {
   it('label PDF for a known size; an unknown size is 400 naming size', async () => {
     const t = await createdTemplate(builder, { ...typed, name: 'Labelled' });
