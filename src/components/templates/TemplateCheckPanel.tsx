@@ -252,7 +252,7 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
             <strong>{result.passed ? 'Pass. ' : 'Fail. '}</strong>
             {result.summary}
           </p>
-          <DiagnosisHeadlines result={result} strings={design.strings} />
+          <DiagnosisHeadlines result={result} strings={design.strings} fanned={fanned} />
           <figure className="space-y-1">
             <DeviationChart result={result} frets={design.frets} title={`Deviation against fret number for ${subjectName}`} />
             <figcaption className="text-xs text-ink-soft">
