@@ -104,6 +104,10 @@ describe('Template check against a saved design in Chromium', () => {
     await page.waitForURL(/lastResult=pass/);
     await row.getByText('Pass').waitFor();
     await expect(page.getByLabel('Last check').inputValue()).resolves.toBe('pass');
+    // Sorting by a column header goes into the URL too, and the header says the order.
+    await page.getByRole('button', { name: 'Last check' }).click();
+    await page.waitForURL(/sort=lastChecked&dir=desc/);
+    await expect(page.getByRole('columnheader', { name: /Last check/ }).getAttribute('aria-sort')).resolves.toBe('descending');
     await context.close();
   });
 });

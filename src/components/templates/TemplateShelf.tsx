@@ -186,7 +186,7 @@ function Shelf({ designs, initialSearch }: ShelfProps) {
                       aria-sort={direction === 'asc' ? 'ascending' : direction === 'desc' ? 'descending' : undefined}
                     >
                       {sortable ? (
-                        <button type="button" disabled={!hydrated} onClick={() => sortBy(sortable)} className="underline-offset-2 hover:underline">
+                        <button type="button" disabled={!hydrated} onClick={() => sortBy(sortable)} className="underline decoration-dotted">
                           {flexRender(header.column.columnDef.header, header.getContext())}
                           {direction === 'asc' ? ' ▲' : direction === 'desc' ? ' ▼' : ''}
                         </button>
