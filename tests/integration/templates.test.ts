@@ -110,6 +110,38 @@ describe('Template shelf API', () => {
     expect(await badSort.json()).toMatchObject({ field: 'sort' });
   });
 
+  it('records the last check on and its result; filters by last result (pass, fail, never) and sorts by last check', async () => {
+    const shop = await sessionUser(await newShopUser('owner'));
+    // One after another, so on a tie in the (whole-second) check time the later id sorts first.
+    const failing = await createdTemplate(shop, { ...typed, name: 'Failing' });
+    const passing = await createdTemplate(shop, { ...typed, name: 'Passing' });
+    const never = await createdTemplate(shop, { ...typed, name: 'Never' });
+    const check = (id: number, scale: number) =>
+      postCheckRoute(shop, String(id), jsonRequest(`/api/templates/${id}/checks`, 'POST', {
+        units: 'mm',
+        tolerance: 0.05,
+        measurements: Array.from({ length: 20 }, (_, i) => ({ fret: i + 1, fromNut: closedForm(scale, i + 1) })),
+      }));
+    expect((await check(failing.id, 628.65)).status).toBe(201);
+    expect((await check(passing.id, 635)).status).toBe(201);
+    const list = async (query: string) => (await (await listRoute(shop, new URL(`${ORIGIN}/api/templates?${query}`))).json()) as { items: TemplateView[] };
+    const names = async (query: string) => (await list(query)).items.map((t) => t.name);
+    expect(await names('lastResult=pass')).toEqual(['Passing']);
+    expect(await names('lastResult=fail')).toEqual(['Failing']);
+    expect(await names('lastResult=never')).toEqual(['Never']);
+    // Newest check first; never-checked templates (no date) sort after every checked one.
+    expect(await names('sort=lastChecked&dir=desc')).toEqual(['Passing', 'Failing', 'Never']);
+    const rows = (await list('sort=name&dir=asc')).items;
+    expect(rows.map((t) => [t.name, t.lastCheckPassed])).toEqual([['Failing', false], ['Never', null], ['Passing', true]]);
+    expect(rows.find((t) => t.name === 'Never')!.lastCheckedOn).toBeNull();
+    expect(Date.parse(rows.find((t) => t.name === 'Passing')!.lastCheckedOn!)).toBeGreaterThanOrEqual(Date.parse(rows.find((t) => t.name === 'Failing')!.lastCheckedOn!));
+    expect(await names('lastResult=fail&condition=worn')).toEqual([]);
+    const bad = await listRoute(shop, new URL(`${ORIGIN}/api/templates?lastResult=maybe`));
+    expect(bad.status).toBe(400);
+    expect(await bad.json()).toMatchObject({ field: 'lastResult' });
+    expect(never.lastCheckedOn).toBeNull();
+  });
+
   it("updates shelf fields; another shop's id and a malformed id are 404", async () => {
     const t = await createdTemplate(builder, { ...typed, name: 'To edit' });
     const updated = await updateRoute(builder, String(t.id), jsonRequest(`/api/templates/${t.id}`, 'PATCH', { storagePlace: 'Rack C', condition: 'worn' }));
@@ -163,6 +195,39 @@ describe('Template check API', () => {
   });
 });
 
+describe('adding a template with the check made against its design', () => {
+  const checkOf = (scale: number, frets: number) => ({
+    units: 'mm',
+    tolerance: 0.1,
+    measurements: Array.from({ length: frets }, (_, i) => ({ fret: i + 1, fromNut: closedForm(scale, i + 1) })),
+  });
+  const named = async (shopId: number, name: string) => db().select().from(templates).where(and(eq(templates.shopId, shopId), eq(templates.name, name)));
+
+  it('saves the template and its check together, the check against the chosen revision', async () => {
+    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const t = await createdTemplate(builder, { source: 'design', designId, revision: 1, name: 'Checked on arrival', keyWidth: 0.5, check: checkOf(628.65, 19) });
+    expect(t).toMatchObject({ designId, revision: 1, lastCheckPassed: false });
+    expect(t.lastCheckedOn).not.toBeNull();
+    const checks = (await (await listChecksRoute(builder, String(t.id))).json()) as { items: { passed: boolean; result: { fits: { scale: { scaleLength: number } }[] } }[] };
+    expect(checks.items).toHaveLength(1);
+    expect(Math.abs(checks.items[0]!.result.fits[0]!.scale.scaleLength - 628.65)).toBeLessThan(0.01); // mm
+  });
+
+  it('saves neither when the measurements do not fit the design (400 naming the measurement); another shop is 404', async () => {
+    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const beyond = { units: 'mm', tolerance: 0.1, measurements: [{ fret: 1, fromNut: 36.4 }, { fret: 24, fromNut: 490 }] };
+    const refused = await create(builder, { source: 'design', designId, name: 'Never saved', keyWidth: 0.5, check: beyond });
+    expect(refused.status).toBe(400);
+    expect(await refused.json()).toMatchObject({ field: 'check.measurements.1' });
+    expect(await named(builder.shopId, 'Never saved')).toHaveLength(0);
+    const badTolerance = await create(builder, { source: 'design', designId, name: 'Never saved', keyWidth: 0.5, check: { ...checkOf(650, 19), tolerance: -1 } });
+    expect(await badTolerance.json()).toMatchObject({ field: 'check.tolerance' });
+    const foreign = await create(otherOwner, { source: 'design', designId, name: 'Never saved', keyWidth: 0.5, check: checkOf(650, 19) });
+    expect(foreign.status).toBe(404);
+    expect(await named(otherOwner.shopId, 'Never saved')).toHaveLength(0);
+  });
+});
+
 describe('label and index template downloads', () => {
   it('label PDF for a known size; an unknown size is 400 naming size', async () => {
     const t = await createdTemplate(builder, { ...typed, name: 'Labelled' });
@@ -174,15 +239,39 @@ describe('label and index template downloads', () => {
     expect(await bad.json()).toMatchObject({ field: 'size' });
   });
 
-  it('index template DXF from a typed single-scale template; a typed fanned one is 409 (needs its design)', async () => {
+  it('index template DXF from a typed single-scale template', async () => {
     const t = await createdTemplate(builder, { ...typed, name: 'Strip' });
     const dxf = await indexTemplateRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/index-template?format=dxf`));
     expect(dxf.status).toBe(200);
     const parsed = new DxfParser().parseSync(await dxf.text());
     expect(parsed?.header['$INSUNITS']).toBe(4);
+  });
+
+  it('a typed fanned template names the string spacing and perpendicular fret it lacks, and exports once they are given', async () => {
     const fan = await createdTemplate(builder, { ...typed, name: 'Typed fan', bassScale: 686 });
-    const refused = await indexTemplateRoute(builder, String(fan.id), new URL(`${ORIGIN}/api/templates/${fan.id}/index-template?format=pdf`));
-    expect(refused.status).toBe(409);
+    const strip = (query: string) => indexTemplateRoute(builder, String(fan.id), new URL(`${ORIGIN}/api/templates/${fan.id}/index-template?${query}`));
+    const refused = await strip('format=pdf');
+    expect(refused.status).toBe(400);
+    const body = (await refused.json()) as { error: string; field: string; issues: { path: string }[] };
+    expect(body.field).toBe('nutSpacing');
+    expect(body.issues.map((i) => i.path)).toEqual(['nutSpacing', 'saddleSpacing', 'perpendicularFret']);
+    expect(body.error).toMatch(/string spacing at the nut and the string spacing at the saddle and the perpendicular fret/);
+    expect(await (await strip('format=pdf&nutSpacing=48&saddleSpacing=75')).json()).toMatchObject({ field: 'perpendicularFret' });
+    expect(await (await strip('format=pdf&nutSpacing=abc&saddleSpacing=75&perpendicularFret=8')).json()).toMatchObject({ field: 'nutSpacing' });
+    expect(await (await strip('format=pdf&nutSpacing=48&saddleSpacing=75&perpendicularFret=21')).json()).toMatchObject({ field: 'perpendicularFret' });
+
+    const dxf = await strip('format=dxf&nutSpacing=48&saddleSpacing=75&perpendicularFret=8');
+    expect(dxf.status).toBe(200);
+    const entities = new DxfParser().parseSync(await dxf.text())!.entities as unknown as { layer: string; text?: string; vertices: { x: number; y: number }[] }[];
+    const centres = entities.filter((e) => e.layer === 'SLOT_CENTRES');
+    expect(centres).toHaveLength(21); // 20 frets and the nut slot
+    // Fret 8 is the perpendicular fret: its slot is square to the strip, both ends at the same x.
+    const square = centres.filter((e) => Math.abs(e.vertices[0]!.x - e.vertices[1]!.x) < 1e-9 && e.vertices[0]!.x > 0);
+    expect(square).toHaveLength(1);
+    expect(entities.filter((e) => e.layer === 'ENGRAVING').map((e) => e.text)).toContain('8 0.0%%d');
+    const pdf = await strip('format=pdf&nutSpacing=48&saddleSpacing=75&perpendicularFret=0');
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers.get('content-type')).toBe('application/pdf');
   });
 });
 

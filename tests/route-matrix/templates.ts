@@ -1,5 +1,5 @@
 /** Template shelf and Template check routes: builders and owners of the shop only. */
-import type { RouteCase } from './types.ts';
+import type { MatrixIds, RouteCase } from './types.ts';
 
 const shelfOnly = { anonymous: 401, client: 403, builder: 200, owner: 200, otherOwner: 404 } as const;
 const page = { anonymous: 302, client: 403, builder: 200, owner: 200, otherOwner: 404 } as const;
@@ -7,6 +7,14 @@ const page = { anonymous: 302, client: 403, builder: 200, owner: 200, otherOwner
 export const TEMPLATE_ROUTES: readonly RouteCase[] = [
   { file: 'pages/templates.astro', method: 'GET', path: '/templates', expect: { ...page, otherOwner: 200 } },
   { file: 'pages/templates/[id].astro', method: 'GET', path: (ids) => `/templates/${ids.templateId}`, expect: page },
+  { file: 'pages/boards/[id]/check.astro', method: 'GET', path: (ids) => `/boards/${ids.designId}/check`, expect: page },
+  { file: 'pages/boards/[id]/check.astro', method: 'GET', path: (ids) => `/boards/${ids.designId}/check?revision=1`, expect: page },
+  {
+    file: 'pages/boards/[id]/check.astro',
+    method: 'GET',
+    path: (ids) => `/boards/${ids.designId}/check?revision=999999`,
+    expect: { ...page, builder: 404, owner: 404 },
+  },
   { file: 'pages/api/templates/index.ts', method: 'GET', path: '/api/templates?sort=name&dir=asc', expect: { ...shelfOnly, otherOwner: 200 } },
   {
     file: 'pages/api/templates/index.ts',
@@ -14,6 +22,21 @@ export const TEMPLATE_ROUTES: readonly RouteCase[] = [
     path: '/api/templates',
     body: { source: 'typed', name: 'Route matrix template', units: 'mm', trebleScale: 635, bassScale: 635, frets: 20, slotWidth: 0.6, keyWidth: 0.55 },
     expect: { anonymous: 401, client: 403, builder: 201, owner: 201, otherOwner: 201 },
+  },
+  {
+    file: 'pages/api/templates/index.ts',
+    method: 'POST',
+    path: '/api/templates',
+    body: (ids: MatrixIds) => ({
+      source: 'design',
+      designId: ids.designId,
+      revision: 1,
+      name: 'Route matrix template with a check',
+      keyWidth: 0.5,
+      check: { units: 'mm', tolerance: 0.1, measurements: [{ fret: 1, fromNut: 36.4 }] },
+    }),
+    // Another shop's design is not found, and nothing is saved for it.
+    expect: { anonymous: 401, client: 403, builder: 201, owner: 201, otherOwner: 404 },
   },
   { file: 'pages/api/templates/[id].ts', method: 'GET', path: (ids) => `/api/templates/${ids.templateId}`, expect: shelfOnly },
   { file: 'pages/api/templates/[id].ts', method: 'DELETE', path: (ids) => `/api/templates/${ids.templateId}`, expect: shelfOnly },

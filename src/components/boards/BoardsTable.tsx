@@ -30,6 +30,7 @@ function RowActions({ board, onHistory }: { board: BoardSummary; onHistory: () =
   return (
     <div className="flex flex-wrap items-center gap-2">
       <a className={`${button} no-underline`} href={`/layout?design=${board.id}`} aria-label={`Open ${board.name}`}>Open</a>
+      <a className={`${button} no-underline`} href={`/boards/${board.id}/check`} aria-label={`Check a template against ${board.name}`}>Check a template</a>
       <button type="button" className={button} disabled={duplicate.isPending} onClick={() => duplicate.mutate()} aria-label={`Duplicate ${board.name}`}>
         {duplicate.isPending ? 'Duplicating…' : 'Duplicate'}
       </button>

@@ -1,24 +1,31 @@
 /**
  * Template check: measured slot positions entered as a grid or uploaded as CSV, compared at once
- * with the design (the same pure module the server uses), then saved on the template where the
- * server checks them again.
+ * with the design (the same pure module the server uses). On a shelf template the check is saved
+ * on it; against a design alone (any physical template, shelf or not) saving is optional and adds
+ * the template to the shelf together with the check. The server checks them again either way.
  */
 import { useMemo, useState, type ChangeEvent } from 'react';
 import { formatLength, type LengthUnit } from '~/lib/format/units';
 import type { Design } from '~/lib/schemas/design';
 import type { TemplateView } from '~/lib/schemas/template';
 import { defaultTolerance, type Measurement, type WorkMethod } from '~/lib/template-check/compare';
-import { MEASUREMENTS_CSV_MAX_BYTES } from '~/lib/template-check/measurements-csv';
+import { MEASUREMENTS_CSV_MAX_BYTES, parseMeasurementsCsv } from '~/lib/template-check/measurements-csv';
 import { runCheck, runCsvCheck, type CheckOutcome } from '~/lib/template-check/run-check';
 import type { SavedCheck } from '~/lib/db/templates.server';
+import { AddToShelfWithCheck } from './AddToShelfWithCheck';
 import { DeviationChart } from './DeviationChart';
+import { DiagnosisHeadlines } from './DiagnosisHeadlines';
 import { ApiError, postCheck } from './shelf-api';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
 
+/** What the check is about: a template on the shelf, or a saved design's revision. */
+export type CheckSubject =
+  | { kind: 'template'; template: TemplateView; checks: SavedCheck[] }
+  | { kind: 'design'; designId: number; revision: number; name: string };
+
 interface Props {
-  template: TemplateView;
   design: Design;
-  checks: SavedCheck[];
+  subject: CheckSubject;
 }
 
 const input = 'rounded border border-paper-line px-2 py-1';
@@ -27,7 +34,7 @@ function toleranceText(method: WorkMethod, units: LengthUnit): string {
   return String(Number(defaultTolerance(method, units).toPrecision(6)));
 }
 
-export default function TemplateCheckPanel({ template, design, checks: initialChecks }: Props) {
+export default function TemplateCheckPanel({ design, subject }: Props) {
   const hydrated = useHydrated();
   const fanned = design.scale.treble !== design.scale.bass;
   const edges = fanned ? [1, design.strings] : [1];
@@ -38,7 +45,8 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
   const [grid, setGrid] = useState<Record<string, string>>({});
   const [csv, setCsv] = useState<{ name: string; text: string } | null>(null);
   const [csvTooBig, setCsvTooBig] = useState(false);
-  const [checks, setChecks] = useState(initialChecks);
+  const [checks, setChecks] = useState(subject.kind === 'template' ? subject.checks : []);
+  const subjectName = subject.kind === 'template' ? subject.template.name : subject.name;
   const [saveState, setSaveState] = useState<{ kind: 'idle' | 'saving' | 'saved' } | { kind: 'error'; message: string }>({ kind: 'idle' });
 
   const toleranceValue = Number(tolerance);
@@ -80,8 +88,15 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
     setCsv({ name: file.name, text: await file.text() });
   }
 
+  /** The entered measurements as the API's grid, CSV rows included (parsed by the same module). */
+  function enteredGrid() {
+    const parsed = mode === 'csv' && csv ? parseMeasurementsCsv(csv.text, { frets: design.frets, strings: design.strings }) : null;
+    return { units, tolerance: toleranceValue, measurements: parsed ? (parsed.ok ? parsed.measurements : []) : measurements };
+  }
+
   async function save() {
-    if (!outcome?.ok) return;
+    if (!outcome?.ok || subject.kind !== 'template') return;
+    const { template } = subject;
     setSaveState({ kind: 'saving' });
     try {
       const saved = (await postCheck(
@@ -108,7 +123,9 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
         </h2>
         <p className="text-sm text-ink-soft">
           Measure each slot's distance from the nut{fanned ? ' along the treble and bass edges' : ''} and compare it with{' '}
-          {template.designId !== null ? 'the design' : 'the typed scale lengths'} ({design.name}).
+          {subject.kind === 'design'
+            ? `revision ${subject.revision} of the design (${design.name}). Any physical template can be checked here; nothing is saved unless you add it to the Template shelf.`
+            : `${subject.template.designId !== null ? 'the design' : 'the typed scale lengths'} (${design.name}).`}
         </p>
         <fieldset disabled={!hydrated} className="space-y-4">
           <legend className="sr-only">Measurements</legend>
@@ -235,8 +252,9 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
             <strong>{result.passed ? 'Pass. ' : 'Fail. '}</strong>
             {result.summary}
           </p>
+          <DiagnosisHeadlines result={result} strings={design.strings} fanned={fanned} />
           <figure className="space-y-1">
-            <DeviationChart result={result} frets={design.frets} title={`Deviation against fret number for ${template.name}`} />
+            <DeviationChart result={result} frets={design.frets} title={`Deviation against fret number for ${subjectName}`} />
             <figcaption className="text-xs text-ink-soft">
               Circles: within tolerance; crosses: outside. Shaded band: ±{formatLength(result.tolerance, result.units, true)}.
               {fanned ? ' Solid line: treble edge; dashed: bass edge.' : ''} The table below has the same numbers.
@@ -286,23 +304,28 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
               </tbody>
             </table>
           </div>
-          <div className="flex items-center gap-3">
-            <button
-              type="button"
-              onClick={save}
-              disabled={saveState.kind === 'saving'}
-              className="rounded bg-spruce px-3 py-1.5 text-white disabled:opacity-50"
-            >
-              {saveState.kind === 'saving' ? 'Saving…' : 'Save check'}
-            </button>
-            <span aria-live="polite" className="text-sm">
-              {saveState.kind === 'saved' && 'Saved on the template.'}
-              {saveState.kind === 'error' && <span className="text-rosewood">{saveState.message}</span>}
-            </span>
-          </div>
+          {subject.kind === 'template' ? (
+            <div className="flex items-center gap-3">
+              <button
+                type="button"
+                onClick={save}
+                disabled={saveState.kind === 'saving'}
+                className="rounded bg-spruce px-3 py-1.5 text-white disabled:opacity-50"
+              >
+                {saveState.kind === 'saving' ? 'Saving…' : 'Save check'}
+              </button>
+              <span aria-live="polite" className="text-sm">
+                {saveState.kind === 'saved' && 'Saved on the template.'}
+                {saveState.kind === 'error' && <span className="text-rosewood">{saveState.message}</span>}
+              </span>
+            </div>
+          ) : (
+            <AddToShelfWithCheck designId={subject.designId} revision={subject.revision} designName={subject.name} units={design.units} check={enteredGrid} />
+          )}
         </section>
       )}
 
+      {subject.kind === 'template' && (
       <section aria-labelledby="saved-checks" className="space-y-2">
         <h2 id="saved-checks" className="text-lg font-semibold">
           Saved checks
@@ -321,6 +344,7 @@ export default function TemplateCheckPanel({ template, design, checks: initialCh
           </ul>
         )}
       </section>
+      )}
     </div>
   );
 }

@@ -1,14 +1,16 @@
 /**
  * The Template shelf: the shop's physical index templates as a table fetched from the API, with
- * search, a condition filter, sortable columns and pages; plus the form to add a template.
+ * search, condition and last-check filters, sortable columns and pages, all kept in the page URL
+ * (Back and Forward restore a view); plus the form to add a template.
  */
 import { QueryClient, QueryClientProvider, keepPreviousData, useQuery } from '@tanstack/react-query';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
-import { useState } from 'react';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { useCallback, useEffect, useState } from 'react';
+import { listQueryFromSearch, searchFromListQuery } from '~/components/ui/list-url-state';
 import { formatLength } from '~/lib/format/units';
-import { TEMPLATE_SORTS, type TemplateView } from '~/lib/schemas/template';
+import { LAST_RESULT_FILTERS, TEMPLATE_SORTS, templateListQuerySchema, type TemplateListQuery, type TemplateSort, type TemplateView } from '~/lib/schemas/template';
 import { AddTemplateForm, type DesignChoice } from './AddTemplateForm';
-import { CONDITION_LABELS, ConditionOptions, LastCheck } from './template-labels';
+import { CONDITION_LABELS, ConditionOptions, LAST_RESULT_LABELS, LastCheck } from './template-labels';
 import { fetchTemplates } from './shelf-api';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
 
@@ -16,10 +18,11 @@ const queryClient = new QueryClient({ defaultOptions: { queries: { retry: 1, sta
 
 interface ShelfProps {
   designs: DesignChoice[];
-  /** From the page's ?q=, so a search can be linked to. */
+  /** The page URL's search string when it was served, so the first render matches the URL. */
   initialSearch: string;
 }
 
+const control = 'rounded border border-paper-line px-2 py-1';
 const column = createColumnHelper<TemplateView>();
 const SORTABLE = new Set<string>(TEMPLATE_SORTS);
 
@@ -42,7 +45,7 @@ const columns = [
       row.original.designId !== null ? `${row.original.designName ?? 'design'} (rev. ${row.original.revision})` : 'typed scale lengths',
   }),
   column.display({ id: 'scale', header: 'Scale', cell: ({ row }) => <span className="font-mono">{scaleText(row.original)}</span> }),
-  column.accessor('frets', { header: 'Frets', enableSorting: false, cell: (info) => <span className="font-mono">{info.getValue()}</span> }),
+  column.accessor('frets', { header: 'Frets', cell: (info) => <span className="font-mono">{info.getValue()}</span> }),
   column.display({
     id: 'widths',
     header: 'Slot / key width',
@@ -52,9 +55,9 @@ const columns = [
       </span>
     ),
   }),
-  column.accessor('material', { header: 'Material', enableSorting: false }),
-  column.accessor('storagePlace', { header: 'Stored at', enableSorting: false }),
-  column.accessor('condition', { header: 'Condition', enableSorting: false, cell: (info) => CONDITION_LABELS[info.getValue()] }),
+  column.accessor('material', { header: 'Material' }),
+  column.accessor('storagePlace', { header: 'Stored at' }),
+  column.accessor('condition', { header: 'Condition', cell: (info) => CONDITION_LABELS[info.getValue()] }),
   column.accessor('madeOn', {
     id: 'madeOn',
     header: 'Made on',
@@ -63,79 +66,102 @@ const columns = [
   column.display({ id: 'lastChecked', header: 'Last check', cell: ({ row }) => <LastCheck template={row.original} /> }),
 ];
 
+/** The shelf's own default order for a column the first time it is sorted by. */
+const FIRST_DIRECTION: Record<TemplateSort, 'asc' | 'desc'> = { name: 'asc', scale: 'asc', madeOn: 'desc', lastChecked: 'desc', updated: 'desc' };
+const SEARCH_DELAY_MS = 300;
+
 function Shelf({ designs, initialSearch }: ShelfProps) {
   const hydrated = useHydrated();
-  const [search, setSearch] = useState(initialSearch);
-  const [condition, setCondition] = useState('');
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
-  const [page, setPage] = useState(1);
-  const pageSize = 20;
-  const params = new URLSearchParams({ page: String(page), pageSize: String(pageSize) });
-  if (search.trim()) params.set('q', search.trim());
-  if (condition) params.set('condition', condition);
-  const sort = sorting[0];
-  if (sort && SORTABLE.has(sort.id)) {
-    params.set('sort', sort.id);
-    params.set('dir', sort.desc ? 'desc' : 'asc');
-  }
-  const query = useQuery({
+  const [query, setQuery] = useState(() => listQueryFromSearch(templateListQuerySchema, initialSearch));
+  const [search, setSearch] = useState(query.q);
+
+  useEffect(() => {
+    const onPop = () => setQuery(listQueryFromSearch(templateListQuerySchema, window.location.search));
+    window.addEventListener('popstate', onPop);
+    return () => window.removeEventListener('popstate', onPop);
+  }, []);
+
+  const change = useCallback((partial: Partial<TemplateListQuery>) => {
+    setQuery((current) => {
+      const next = { ...current, ...partial };
+      const url = searchFromListQuery(templateListQuerySchema, next);
+      if (url !== window.location.search) window.history.pushState(null, '', `${window.location.pathname}${url}`);
+      return next;
+    });
+  }, []);
+
+  // The box follows the URL (Back/Forward); typing reaches the URL after a short pause.
+  useEffect(() => setSearch(query.q), [query.q]);
+  useEffect(() => {
+    if (search.trim() === query.q) return;
+    const timer = setTimeout(() => change({ q: search.trim(), page: 1 }), SEARCH_DELAY_MS);
+    return () => clearTimeout(timer);
+  }, [search, query.q, change]);
+
+  const params = new URLSearchParams(searchFromListQuery(templateListQuerySchema, query));
+  const data = useQuery({
     queryKey: ['templates', params.toString()],
     queryFn: () => fetchTemplates(params),
     placeholderData: keepPreviousData,
   });
-  const table = useReactTable({
-    data: query.data?.items ?? [],
-    columns,
-    state: { sorting },
-    onSortingChange: (updater) => {
-      setSorting(updater);
-      setPage(1);
-    },
-    manualSorting: true,
-    enableSortingRemoval: false,
-    getCoreRowModel: getCoreRowModel(),
-  });
-  const total = query.data?.total ?? 0;
-  const pages = Math.max(1, Math.ceil(total / pageSize));
+  const table = useReactTable({ data: data.data?.items ?? [], columns, manualSorting: true, getCoreRowModel: getCoreRowModel() });
+  const total = data.data?.total ?? 0;
+  const pages = Math.max(1, Math.ceil(total / query.pageSize));
+
+  function sortBy(sort: TemplateSort) {
+    const dir = query.sort === sort ? (query.dir === 'asc' ? 'desc' : 'asc') : FIRST_DIRECTION[sort];
+    change({ sort, dir, page: 1 });
+  }
 
   return (
     <div className="space-y-4">
-      <fieldset disabled={!hydrated} className="flex flex-wrap items-end gap-4">
-        <legend className="sr-only">Find templates</legend>
-        <label className="flex flex-col text-sm">
-          Search
-          <input
-            type="search"
-            value={search}
-            onChange={(e) => {
-              setSearch(e.target.value);
-              setPage(1);
-            }}
-            placeholder="name, material, place, notes"
-            className="rounded border border-paper-line px-2 py-1"
-          />
-        </label>
-        <label className="flex flex-col text-sm">
-          Condition
-          <select
-            value={condition}
-            onChange={(e) => {
-              setCondition(e.target.value);
-              setPage(1);
-            }}
-            className="rounded border border-paper-line px-2 py-1"
-          >
-            <option value="">Any</option>
-            <ConditionOptions />
-          </select>
-        </label>
-        <p className="text-sm text-ink-soft" aria-live="polite">
-          {!hydrated || query.isFetching ? 'Loading…' : `${total} template${total === 1 ? '' : 's'}`}
-        </p>
-      </fieldset>
-      {query.isError && (
+      <form role="search" onSubmit={(e) => { e.preventDefault(); change({ q: search.trim(), page: 1 }); }}>
+        <fieldset disabled={!hydrated} className="flex flex-wrap items-end gap-4">
+          <legend className="sr-only">Find templates</legend>
+          <label className="flex flex-col text-sm">
+            Search
+            <input
+              type="search"
+              value={search}
+              onChange={(e) => setSearch(e.target.value)}
+              placeholder="name, design, material, place, notes"
+              className={control}
+            />
+          </label>
+          <label className="flex flex-col text-sm">
+            Condition
+            <select
+              value={query.condition ?? ''}
+              onChange={(e) => change({ condition: (e.target.value || undefined) as TemplateListQuery['condition'], page: 1 })}
+              className={control}
+            >
+              <option value="">Any</option>
+              <ConditionOptions />
+            </select>
+          </label>
+          <label className="flex flex-col text-sm">
+            Last check
+            <select
+              value={query.lastResult ?? ''}
+              onChange={(e) => change({ lastResult: (e.target.value || undefined) as TemplateListQuery['lastResult'], page: 1 })}
+              className={control}
+            >
+              <option value="">Any</option>
+              {LAST_RESULT_FILTERS.map((value) => (
+                <option key={value} value={value}>
+                  {LAST_RESULT_LABELS[value]}
+                </option>
+              ))}
+            </select>
+          </label>
+          <p className="text-sm text-ink-soft" aria-live="polite">
+            {!hydrated || data.isFetching ? 'Loading…' : `${total} template${total === 1 ? '' : 's'}`}
+          </p>
+        </fieldset>
+      </form>
+      {data.isError && (
         <p role="alert" className="text-rosewood">
-          {(query.error as Error).message}
+          {(data.error as Error).message}
         </p>
       )}
       <div className="overflow-x-auto rounded border border-paper-line bg-white">
@@ -145,8 +171,9 @@ function Shelf({ designs, initialSearch }: ShelfProps) {
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
                 {group.headers.map((header) => {
-                  const sortable = SORTABLE.has(header.column.id);
-                  const direction = header.column.getIsSorted();
+                  const id = header.column.id;
+                  const sortable = SORTABLE.has(id) ? (id as TemplateSort) : null;
+                  const direction = query.sort === id ? query.dir : null;
                   return (
                     <th
                       key={header.id}
@@ -155,11 +182,7 @@ function Shelf({ designs, initialSearch }: ShelfProps) {
                       aria-sort={direction === 'asc' ? 'ascending' : direction === 'desc' ? 'descending' : undefined}
                     >
                       {sortable ? (
-                        <button
-                          type="button"
-                          onClick={header.column.getToggleSortingHandler()}
-                          className="underline-offset-2 hover:underline"
-                        >
+                        <button type="button" disabled={!hydrated} onClick={() => sortBy(sortable)} className="underline decoration-dotted">
                           {flexRender(header.column.columnDef.header, header.getContext())}
                           {direction === 'asc' ? ' ▲' : direction === 'desc' ? ' ▼' : ''}
                         </button>
@@ -182,7 +205,7 @@ function Shelf({ designs, initialSearch }: ShelfProps) {
                 ))}
               </tr>
             ))}
-            {query.isSuccess && total === 0 && (
+            {data.isSuccess && total === 0 && (
               <tr>
                 <td colSpan={columns.length} className="px-2 py-4 text-ink-soft">
                   No templates match. Add one below.
@@ -195,19 +218,19 @@ function Shelf({ designs, initialSearch }: ShelfProps) {
       <nav aria-label="Pages" className="flex items-center gap-3 text-sm">
         <button
           type="button"
-          disabled={page <= 1}
-          onClick={() => setPage((p) => p - 1)}
+          disabled={!hydrated || query.page <= 1}
+          onClick={() => change({ page: query.page - 1 })}
           className="rounded border border-paper-line px-2 py-1 disabled:opacity-40"
         >
           Previous
         </button>
         <span>
-          Page {page} of {pages}
+          Page {query.page} of {pages}
         </span>
         <button
           type="button"
-          disabled={page >= pages}
-          onClick={() => setPage((p) => p + 1)}
+          disabled={!hydrated || query.page >= pages}
+          onClick={() => change({ page: query.page + 1 })}
           className="rounded border border-paper-line px-2 py-1 disabled:opacity-40"
         >
           Next

@@ -1,5 +1,5 @@
 /** Words and small pieces shown for a template in several places. */
-import type { TemplateCondition, TemplateView } from '~/lib/schemas/template';
+import type { LAST_RESULT_FILTERS, TemplateCondition, TemplateView } from '~/lib/schemas/template';
 
 export const CONDITION_LABELS: Record<TemplateCondition, string> = {
   in_use: 'In use',
@@ -15,6 +15,12 @@ export function ConditionOptions() {
     </option>
   ));
 }
+
+export const LAST_RESULT_LABELS: Record<(typeof LAST_RESULT_FILTERS)[number], string> = {
+  pass: 'Passed',
+  fail: 'Failed',
+  never: 'Never checked',
+};
 
 /** The last Template check's date and result, in words (not colour alone). */
 export function LastCheck({ template }: { template: Pick<TemplateView, 'lastCheckedOn' | 'lastCheckPassed'> }) {

@@ -2,18 +2,25 @@
  * Template shelf queries. Every function takes the caller's shopId and never reads or writes
  * another shop's rows: a template or design of another shop is simply "not found".
  */
-import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, isNull, like, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '~/lib/db/client.server';
 import { MM_PER_INCH } from '~/lib/format/units';
 import { designRevisions, designs, templateChecks, templates } from '~/lib/db/schema';
 import type { CheckResult } from '~/lib/template-check/compare';
+import { runCheck } from '~/lib/template-check/run-check';
 import { standInDesign } from '~/lib/template-check/template-design';
 import { validateDesign, type Design } from '~/lib/schemas/design';
-import type { TemplateCreate, TemplateListQuery, TemplatePage, TemplateUpdate, TemplateView } from '~/lib/schemas/template';
+import type { CheckGrid, TemplateCreate, TemplateListQuery, TemplatePage, TemplateUpdate, TemplateView } from '~/lib/schemas/template';
 
 type TemplateRow = typeof templates.$inferSelect;
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+/** The pool or an open transaction: the functions below run in either. */
+type Conn = Db | Tx;
 
-export type ShelfError = { kind: 'not_found'; field?: string; message: string } | { kind: 'conflict'; field?: string; message: string };
+export type ShelfError =
+  | { kind: 'not_found'; field?: string; message: string }
+  | { kind: 'conflict'; field?: string; message: string }
+  | { kind: 'invalid'; issues: { path: string; message: string }[] };
 export type ShelfResult<T> = { ok: true; value: T } | { ok: false; error: ShelfError };
 
 const notFound = (message: string, field?: string): { ok: false; error: ShelfError } => ({
@@ -67,6 +74,8 @@ function likePattern(text: string): string {
 export async function listTemplates(db: Db, shopId: number, query: TemplateListQuery): Promise<TemplatePage> {
   const filters: SQL[] = [eq(templates.shopId, shopId)];
   if (query.condition) filters.push(eq(templates.condition, query.condition));
+  if (query.lastResult === 'never') filters.push(isNull(templates.lastCheckedOn));
+  else if (query.lastResult) filters.push(eq(templates.lastCheckPassed, query.lastResult === 'pass'));
   if (query.q) {
     const pattern = likePattern(query.q);
     filters.push(
@@ -99,7 +108,7 @@ export async function listTemplates(db: Db, shopId: number, query: TemplateListQ
   return { items: rows.map(toView), total: total?.n ?? 0, page: query.page, pageSize: query.pageSize };
 }
 
-export async function getTemplate(db: Db, shopId: number, id: number): Promise<TemplateView | null> {
+export async function getTemplate(db: Conn, shopId: number, id: number): Promise<TemplateView | null> {
   const [row] = await db
     .select(viewColumns)
     .from(templates)
@@ -109,9 +118,21 @@ export async function getTemplate(db: Db, shopId: number, id: number): Promise<T
   return row ? toView(row) : null;
 }
 
+/** The shop's templates made from `designId` (any revision), newest first. */
+export async function listTemplatesMadeFrom(db: Db, shopId: number, designId: number): Promise<TemplateView[]> {
+  const rows = await db
+    .select(viewColumns)
+    .from(templates)
+    .leftJoin(designs, and(eq(designs.id, templates.designId), eq(designs.shopId, templates.shopId)))
+    .where(and(eq(templates.shopId, shopId), eq(templates.designId, designId)))
+    .orderBy(desc(templates.updatedAt), desc(templates.id))
+    .limit(50);
+  return rows.map(toView);
+}
+
 /** A design revision of this shop, validated; null when the design or revision does not exist. */
 export async function loadDesignRevision(
-  db: Db,
+  db: Conn,
   shopId: number,
   designId: number,
   revision?: number,
@@ -145,7 +166,7 @@ export async function listDesignChoices(db: Db, shopId: number): Promise<{ id: n
   return rows;
 }
 
-export async function createTemplate(db: Db, shopId: number, input: TemplateCreate): Promise<ShelfResult<TemplateView>> {
+export async function createTemplate(db: Conn, shopId: number, input: TemplateCreate): Promise<ShelfResult<TemplateView>> {
   const shelf = {
     keyWidth: input.keyWidth,
     material: input.material,
@@ -188,6 +209,45 @@ export async function createTemplate(db: Db, shopId: number, input: TemplateCrea
   return { ok: true, value: view! };
 }
 
+/** Thrown inside the transaction to undo the new template when its check cannot run. */
+class CheckRefused extends Error {
+  constructor(readonly issues: { path: string; message: string }[]) {
+    super('check refused');
+  }
+}
+
+/**
+ * Creates the template and saves its first check in one transaction, the check compared with
+ * the design the template was made from. When the measurements do not fit that design (a fret
+ * it lacks, a slot beyond the saddle) nothing is saved and the issues name `check.measurements.N`.
+ */
+export async function createTemplateWithCheck(
+  db: Db,
+  shopId: number,
+  userId: string,
+  input: TemplateCreate,
+  check: CheckGrid,
+): Promise<ShelfResult<TemplateView>> {
+  try {
+    return await db.transaction(async (tx) => {
+      const created = await createTemplate(tx, shopId, input);
+      if (!created.ok) return created;
+      const reference = await templateDesign(tx, shopId, created.value);
+      if (!reference) throw new CheckRefused([{ path: 'check', message: "the template's design could not be read" }]);
+      const outcome = runCheck(reference.design, check);
+      if (!outcome.ok) {
+        const errors = 'errors' in outcome ? outcome.errors : [];
+        throw new CheckRefused(errors.map((e) => ({ path: `check.${e.field}`, message: e.message })));
+      }
+      await saveCheck(tx, shopId, created.value.id, userId, outcome.result);
+      return { ok: true as const, value: (await getTemplate(tx, shopId, created.value.id))! };
+    });
+  } catch (error) {
+    if (error instanceof CheckRefused) return { ok: false, error: { kind: 'invalid', issues: error.issues } };
+    throw error;
+  }
+}
+
 export async function updateTemplate(db: Db, shopId: number, id: number, patch: TemplateUpdate): Promise<TemplateView | null> {
   const result = await db
     .update(templates)
@@ -203,7 +263,7 @@ export async function retireTemplate(db: Db, shopId: number, id: number): Promis
 }
 
 /** The design a template is checked against (its revision, or a stand-in from typed scales). */
-export async function templateDesign(db: Db, shopId: number, template: TemplateView): Promise<{ design: Design; standIn: boolean } | null> {
+export async function templateDesign(db: Conn, shopId: number, template: TemplateView): Promise<{ design: Design; standIn: boolean } | null> {
   if (template.designId !== null && template.revision !== null) {
     const found = await loadDesignRevision(db, shopId, template.designId, template.revision);
     if (found) return { design: found.design, standIn: false };
@@ -222,7 +282,7 @@ export interface SavedCheck {
 }
 
 /** Saves a check and records its date and verdict on the template, together. */
-export async function saveCheck(db: Db, shopId: number, templateId: number, userId: string, result: CheckResult): Promise<SavedCheck> {
+export async function saveCheck(db: Conn, shopId: number, templateId: number, userId: string, result: CheckResult): Promise<SavedCheck> {
   const now = new Date();
   const id = await db.transaction(async (tx) => {
     const [inserted] = await tx

@@ -40,6 +40,50 @@ const isoDate = z
     message: 'must be a real calendar date',
   });
 
+const measurementSchema = z
+  .object({
+    fret: z.number().int().min(1).max(DESIGN_LIMITS.maxFrets),
+    /** 1 = treble edge (the default) .. N = bass edge. */
+    string: z.number().int().min(1).max(DESIGN_LIMITS.maxStrings).default(1),
+    fromNut: positive,
+  })
+  .strict();
+
+/** How measurements and the tolerance are given: in mm or in, tolerance +/- in those units. */
+export const checkSettingsSchema = z
+  .object({
+    units: unitsSchema,
+    tolerance: positive,
+  })
+  .strict()
+  .superRefine((value, ctx) => {
+    if (value.tolerance > fromMm(TEMPLATE_LIMITS.mm.tolerance, value.units)) {
+      ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['tolerance'], message: `must be at most ${TEMPLATE_LIMITS.mm.tolerance} mm` });
+    }
+  });
+export type CheckSettings = z.infer<typeof checkSettingsSchema>;
+
+/** A Template check entered as a grid (JSON). A CSV upload sends units and tolerance in the URL. */
+export const checkGridSchema = z
+  .object({
+    units: unitsSchema,
+    tolerance: positive,
+    measurements: z.array(measurementSchema).min(1, { message: 'enter at least one measured slot' }).max(TEMPLATE_LIMITS.maxMeasurements),
+  })
+  .strict()
+  .superRefine((value, ctx) => {
+    const seen = new Set<string>();
+    value.measurements.forEach((m, index) => {
+      const key = `${m.fret}/${m.string}`;
+      if (seen.has(key)) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['measurements', index, 'fret'], message: `fret ${m.fret} is listed twice` });
+      seen.add(key);
+    });
+    if (value.tolerance > fromMm(TEMPLATE_LIMITS.mm.tolerance, value.units)) {
+      ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['tolerance'], message: `must be at most ${TEMPLATE_LIMITS.mm.tolerance} mm` });
+    }
+  });
+export type CheckGrid = z.infer<typeof checkGridSchema>;
+
 /** What a person may edit on any template. */
 const shelfFields = {
   name: text(TEMPLATE_LIMITS.nameMaxChars).min(1, { message: 'must not be empty' }),
@@ -64,6 +108,8 @@ const fromDesignSchema = z
     name: shelfFields.name.optional(),
     /** Omitted: the design's slot width. */
     slotWidth: positive.optional(),
+    /** A Template check to save with the new template (made from a check of the design). */
+    check: checkGridSchema.optional(),
   })
   .strict();
 
@@ -75,6 +121,7 @@ const typedSchema = z
     bassScale: positive,
     frets: z.number().int().min(DESIGN_LIMITS.minFrets).max(DESIGN_LIMITS.maxFrets),
     ...shelfFields,
+    check: checkGridSchema.optional(),
   })
   .strict();
 
@@ -120,13 +167,42 @@ function widthIssues(value: { slotWidth?: number | undefined; keyWidth: number }
   }
 }
 
+/**
+ * What a typed fanned template lacks for its index template's slot angles: the outer string
+ * spacing at the nut and at the saddle (template units) and the perpendicular fret (0 = nut).
+ */
+export const FAN_GEOMETRY_LABELS = {
+  nutSpacing: 'string spacing at the nut',
+  saddleSpacing: 'string spacing at the saddle',
+  perpendicularFret: 'perpendicular fret',
+} as const;
+
+const fanRequired = (field: keyof typeof FAN_GEOMETRY_LABELS) => ({
+  required_error: `the ${FAN_GEOMETRY_LABELS[field]} is needed for a fanned template with typed scale lengths`,
+  invalid_type_error: 'must be a number',
+});
+
+export const fanGeometrySchema = z
+  .object({
+    nutSpacing: z.number(fanRequired('nutSpacing')).finite({ message: 'must be a finite number' }).positive({ message: 'must be greater than 0' }),
+    saddleSpacing: z.number(fanRequired('saddleSpacing')).finite({ message: 'must be a finite number' }).positive({ message: 'must be greater than 0' }),
+    perpendicularFret: z.number(fanRequired('perpendicularFret')).finite({ message: 'must be a finite number' }).nonnegative({ message: 'must not be negative' }),
+  })
+  .strict();
+export type FanGeometry = z.infer<typeof fanGeometrySchema>;
+
 export const TEMPLATE_SORTS = ['name', 'scale', 'madeOn', 'lastChecked', 'updated'] as const;
+export type TemplateSort = (typeof TEMPLATE_SORTS)[number];
+
+/** The last Template check's result, as a filter: passed, failed, or never checked. */
+export const LAST_RESULT_FILTERS = ['pass', 'fail', 'never'] as const;
 
 /** The shelf's list query (from URL search parameters). */
 export const templateListQuerySchema = z
   .object({
     q: z.string().trim().max(120).default(''),
     condition: templateConditionSchema.optional(),
+    lastResult: z.enum(LAST_RESULT_FILTERS).optional(),
     sort: z.enum(TEMPLATE_SORTS).default('updated'),
     dir: z.enum(['asc', 'desc']).default('desc'),
     page: z.coerce.number().int().min(1).max(10_000).default(1),
@@ -168,47 +244,3 @@ export interface TemplatePage {
   page: number;
   pageSize: number;
 }
-
-const measurementSchema = z
-  .object({
-    fret: z.number().int().min(1).max(DESIGN_LIMITS.maxFrets),
-    /** 1 = treble edge (the default) .. N = bass edge. */
-    string: z.number().int().min(1).max(DESIGN_LIMITS.maxStrings).default(1),
-    fromNut: positive,
-  })
-  .strict();
-
-/** How measurements and the tolerance are given: in mm or in, tolerance +/- in those units. */
-export const checkSettingsSchema = z
-  .object({
-    units: unitsSchema,
-    tolerance: positive,
-  })
-  .strict()
-  .superRefine((value, ctx) => {
-    if (value.tolerance > fromMm(TEMPLATE_LIMITS.mm.tolerance, value.units)) {
-      ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['tolerance'], message: `must be at most ${TEMPLATE_LIMITS.mm.tolerance} mm` });
-    }
-  });
-export type CheckSettings = z.infer<typeof checkSettingsSchema>;
-
-/** A Template check entered as a grid (JSON). A CSV upload sends units and tolerance in the URL. */
-export const checkGridSchema = z
-  .object({
-    units: unitsSchema,
-    tolerance: positive,
-    measurements: z.array(measurementSchema).min(1, { message: 'enter at least one measured slot' }).max(TEMPLATE_LIMITS.maxMeasurements),
-  })
-  .strict()
-  .superRefine((value, ctx) => {
-    const seen = new Set<string>();
-    value.measurements.forEach((m, index) => {
-      const key = `${m.fret}/${m.string}`;
-      if (seen.has(key)) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['measurements', index, 'fret'], message: `fret ${m.fret} is listed twice` });
-      seen.add(key);
-    });
-    if (value.tolerance > fromMm(TEMPLATE_LIMITS.mm.tolerance, value.units)) {
-      ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['tolerance'], message: `must be at most ${TEMPLATE_LIMITS.mm.tolerance} mm` });
-    }
-  });
-export type CheckGrid = z.infer<typeof checkGridSchema>;

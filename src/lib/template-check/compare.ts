@@ -203,7 +203,8 @@ export function compareTemplate(
     diagnoses,
     summary: '',
   };
-  result.summary = summarise(result, reference.strings);
+  // Edges are named only on a fanned template, where each edge is checked on its own.
+  result.summary = summarise(result, reference.fanned ? reference.strings : 1);
   return { ok: true, result };
 }
 

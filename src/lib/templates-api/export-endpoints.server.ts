@@ -1,6 +1,7 @@
 /**
  * GET /api/templates/{id}/label?size=... (label PDF) and
- * GET /api/templates/{id}/index-template?format=dxf|pdf (the strip to cut the template from).
+ * GET /api/templates/{id}/index-template?format=dxf|pdf (the strip to cut the template from; a
+ * typed fanned template also takes nutSpacing, saddleSpacing and perpendicularFret).
  */
 import type { SessionUser } from '~/lib/auth/index.server';
 import { config } from '~/lib/config/env.server';
@@ -11,8 +12,11 @@ import { indexTemplateDxf } from '~/lib/export/index-template-dxf';
 import { LABEL_SIZES, labelSize, templateLabelPdf } from '~/lib/export/index-template-label.server';
 import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server';
 import { pdfResponse } from '~/lib/export/pdf-kit.server';
-import { problem } from '~/lib/http/problem';
-import { shelfTemplate } from './route-context.server';
+import { invalid, problem, zodIssues } from '~/lib/http/problem';
+import type { Design } from '~/lib/schemas/design';
+import { FAN_GEOMETRY_LABELS, fanGeometrySchema, type TemplateView } from '~/lib/schemas/template';
+import { fannedStandInDesign } from '~/lib/template-check/template-design';
+import { shelfTemplate, type Allowed } from './route-context.server';
 
 /** A file name from the template's name: letters, digits and dashes only. */
 function fileStem(name: string, id: number): string {
@@ -37,12 +41,9 @@ export async function indexTemplateRoute(user: SessionUser | null, id: string | 
   const format = url.searchParams.get('format') ?? 'pdf';
   if (format !== 'pdf' && format !== 'dxf') return problem(400, 'format must be pdf or dxf', { field: 'format' });
   const { template } = found.value;
-  const reference = await templateDesign(db(), found.value.user.shopId, template);
-  if (!reference || (reference.standIn && template.trebleScale !== template.bassScale)) {
-    // Slot angles of a fanned board need its string spacing and perpendicular fret.
-    return problem(409, 'A fanned index template can only be exported from its design; link the template to a design first', { field: 'designId' });
-  }
-  const strip = indexTemplateStrip(reference.design, template.keyWidth);
+  const design = await stripDesign(found.value.user.shopId, template, url);
+  if (!design.ok) return design.response;
+  const strip = indexTemplateStrip(design.value, template.keyWidth);
   const stem = `${fileStem(template.name, template.id)}-index-template`;
   if (format === 'dxf') {
     return new Response(indexTemplateDxf(strip), {
@@ -56,4 +57,34 @@ export async function indexTemplateRoute(user: SessionUser | null, id: string | 
   }
   const pdf = await indexTemplatePdf(strip);
   return pdfResponse(pdf.bytes, `${stem}.pdf`);
+}
+
+const FAN_FIELDS = Object.keys(FAN_GEOMETRY_LABELS) as (keyof typeof FAN_GEOMETRY_LABELS)[];
+
+/**
+ * The design the strip is cut from: the template's own design, or its stand-in. A typed fanned
+ * template's slot angles depend on the string spacing and perpendicular fret it has no record
+ * of, so those come from the query (`nutSpacing`, `saddleSpacing`, `perpendicularFret`).
+ */
+async function stripDesign(shopId: number, template: TemplateView, url: URL): Promise<Allowed<Design>> {
+  const reference = await templateDesign(db(), shopId, template);
+  if (!reference) return { ok: false, response: problem(409, "This template's design could not be read", { field: 'designId' }) };
+  if (!reference.standIn || template.trebleScale === template.bassScale) return { ok: true, value: reference.design };
+
+  const given = FAN_FIELDS.filter((field) => (url.searchParams.get(field) ?? '').trim() !== '');
+  const missing = FAN_FIELDS.filter((field) => !given.includes(field));
+  if (missing.length > 0) {
+    const words = missing.map((field) => FAN_GEOMETRY_LABELS[field]);
+    const message =
+      `This fanned template has typed scale lengths only, so its slot angles also need the ${words.join(' and the ')}. ` +
+      `Add ${missing.join(', ')} to the request (lengths in ${template.units}; perpendicular fret 0 = the nut), or link the template to a design.`;
+    return {
+      ok: false,
+      response: problem(400, message, { field: missing[0], issues: missing.map((field) => ({ path: field, message: `the ${FAN_GEOMETRY_LABELS[field]} is missing` })) }),
+    };
+  }
+  const fan = fanGeometrySchema.safeParse(Object.fromEntries(given.map((field) => [field, Number(url.searchParams.get(field))])));
+  if (!fan.success) return { ok: false, response: invalid(zodIssues(fan.error)) };
+  const design = fannedStandInDesign(template, fan.data);
+  return design.ok ? { ok: true, value: design.design } : { ok: false, response: invalid(design.issues) };
 }

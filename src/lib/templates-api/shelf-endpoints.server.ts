@@ -1,6 +1,10 @@
-/** GET/POST /api/templates and GET/PATCH/DELETE /api/templates/{id}. */
+/**
+ * GET/POST /api/templates and GET/PATCH/DELETE /api/templates/{id}. A POST may carry `check`,
+ * a Template check made against the design before the template was on the shelf: both are saved
+ * together, or neither.
+ */
 import { db } from '~/lib/db/client.server';
-import { createTemplate, listTemplates, retireTemplate, updateTemplate } from '~/lib/db/templates.server';
+import { createTemplate, createTemplateWithCheck, listTemplates, retireTemplate, updateTemplate } from '~/lib/db/templates.server';
 import { readJson } from '~/lib/http/body.server';
 import { invalid, json, problem, zodIssues } from '~/lib/http/problem';
 import type { SessionUser } from '~/lib/auth/index.server';
@@ -24,8 +28,14 @@ export async function createRoute(user: SessionUser | null, request: Request): P
   if (!body.ok) return body.response;
   const input = templateCreateSchema.safeParse(body.value);
   if (!input.success) return invalid(zodIssues(input.error));
-  const created = await createTemplate(db(), allowed.value.shopId, input.data);
-  if (!created.ok) return problem(404, created.error.message, { field: created.error.field });
+  const { check, ...template } = input.data;
+  const created = check
+    ? await createTemplateWithCheck(db(), allowed.value.shopId, allowed.value.id, template, check)
+    : await createTemplate(db(), allowed.value.shopId, template);
+  if (!created.ok) {
+    const { error } = created;
+    return error.kind === 'invalid' ? invalid(error.issues) : problem(404, error.message, { field: error.field });
+  }
   return json(created.value, 201, { location: `/api/templates/${created.value.id}` });
 }
 
