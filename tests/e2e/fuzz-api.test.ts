@@ -1,19 +1,30 @@
 /**
  * Property-based fuzzing (fast-check) of every API route file under src/pages/api against the
- * built server: random bodies, query strings, headers, methods and path ids, all anonymous.
- * Properties: never a 5xx; bad input answers carry a JSON `error`; no table's row count changes.
- * FUZZ_RUNS sets the runs per route (default 200); a failure prints the seed to replay it.
+ * built server: random bodies, query strings, headers, methods and path ids.
+ * Anonymous: never a 5xx; bad input answers carry a JSON `error`; no table's row count changes.
+ * Signed in (a Builder of a shop of its own, and the demo Client), with real ids of that shop and
+ * of the demo shop: never a 5xx, and a rejected (4xx) request changes nothing: neither any
+ * table's row count nor the rows it named. Uploads: size limits before parsing, wrong types 415.
+ * FUZZ_RUNS sets the anonymous runs per route (default 200), FUZZ_SIGNED_IN_RUNS the signed-in
+ * runs per route and user (default 30); a failure prints the seed to replay it.
  */
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { apiRoutes, HTTP_METHODS, routePath, type ApiRoute, type HttpMethod } from '../support/api-routes.ts';
+import { eq } from 'drizzle-orm';
+import { shops, users } from '~/lib/db/schema.ts';
+import { DEMO_SHOP_NAME } from '~/lib/db/seed/demo-shop.server.ts';
 import { BASE_URL } from '../support/browser.ts';
+import { ensureDesign } from '../support/designs.ts';
+import { newShopUser, signInAs, type TestUser } from '../support/sessions.ts';
+import { databaseState, shopRows, type ShopRows } from '../support/shop-rows.ts';
 import { tableCounts } from '../support/table-counts.ts';
-import { closeDb } from '../support/test-db.ts';
+import { closeDb, db } from '../support/test-db.ts';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 200);
+const SIGNED_IN_RUNS = Number(process.env.FUZZ_SIGNED_IN_RUNS ?? 30);
 const DESIGN: unknown = JSON.parse(readFileSync('fixtures/designs/seven-string-fan.json', 'utf8'));
 /** Stand-in replaced by raw JSON number text (1e999 parses to Infinity, which JSON.stringify cannot make). */
 const RAW_MARK = '\u0000raw:';
@@ -55,9 +66,19 @@ function jsonText(value: unknown): string {
   return (JSON.stringify(value) ?? 'null').replace(new RegExp(`"${RAW_MARK.replace('\u0000', '\\\\u0000')}([^"]*)"`, 'g'), '$1');
 }
 
-const mutatedDesign = fc
+const mutatedDesignValue = fc
   .array(fc.tuple(fc.constantFrom(...leafPaths(DESIGN)), nastyValue), { minLength: 1, maxLength: 3 })
-  .map((mutations) => jsonText(mutations.reduce<unknown>((design, [path, value]) => setPath(design, path, value), DESIGN)));
+  .map((mutations) => mutations.reduce<unknown>((design, [path, value]) => setPath(design, path, value), DESIGN));
+const mutatedDesign = mutatedDesignValue.map(jsonText);
+
+/** Bodies shaped like the signed-in routes' own (board saves, archive, restore, proofs, decisions), with random values. */
+const routeShapedBody = fc
+  .dictionary(
+    fc.constantFrom('version', 'design', 'revision', 'archived', 'note', 'clientName', 'instrumentType', 'decision', 'name', 'comment', 'confirmed', 'condition', 'units', 'tolerance', 'measurements'),
+    fc.oneof(nastyValue, mutatedDesignValue, fc.nat(40), fc.boolean()),
+    { minKeys: 1, maxKeys: 5 },
+  )
+  .map(jsonText);
 
 const sclText = fc
   .tuple(printable(30), fc.nat(200), fc.array(fc.oneof(fc.double().map(String), fc.tuple(fc.integer(), fc.integer()).map(([a, b]) => `${a}/${b}`), nastyString), { maxLength: 20 }))
@@ -177,4 +198,98 @@ describe('API fuzzing on the built server (anonymous requests)', () => {
     const response = await fetch(`${BASE_URL}/api/health`);
     expect(response.status).toBe(200);
   });
+});
+
+interface SignedInRequest {
+  method: HttpMethod;
+  /** Which shop's ids fill the path: 0 = the user's own (or the demo shop for the client), 1 = the other. */
+  shop: 0 | 1;
+  /** A random id instead of a real one. */
+  randomId: string | null;
+  query: Record<string, string>;
+  headers: Record<string, string | undefined>;
+  body: string | Uint8Array<ArrayBuffer> | undefined;
+}
+
+const signedInBody: fc.Arbitrary<string | Uint8Array<ArrayBuffer> | undefined> = fc.oneof({ arbitrary: routeShapedBody, weight: 3 }, { arbitrary: body, weight: 2 });
+const signedInQuery = fc.dictionary(
+  fc.oneof(fc.constantFrom('format', 'q', 'page', 'pageSize', 'sort', 'dir', 'status', 'instrument', 'units', 'revision', 'size', 'tolerance'), fc.string({ maxLength: 10 })),
+  nastyString.map((s) => s.slice(0, 2000)),
+  { maxKeys: 4 },
+);
+
+function signedInRequestFor(route: ApiRoute): fc.Arbitrary<SignedInRequest> {
+  const methods = route.methods.length > 0 ? route.methods : [...HTTP_METHODS];
+  return fc.record({
+    method: fc.oneof({ arbitrary: fc.constantFrom(...methods), weight: 8 }, { arbitrary: fc.constantFrom(...HTTP_METHODS), weight: 1 }),
+    shop: fc.constantFrom(0 as const, 1 as const),
+    randomId: fc.option(pathId, { freq: 4 }),
+    query: signedInQuery,
+    // Mostly what the app's own pages send, so requests get past the same-origin check to the route.
+    headers: fc.record({
+      'content-type': fc.oneof({ arbitrary: fc.constant('application/json'), weight: 4 }, { arbitrary: contentType, weight: 1 }),
+      origin: fc.oneof({ arbitrary: fc.constant(BASE_URL), weight: 6 }, { arbitrary: origin, weight: 1 }),
+      accept,
+    }),
+    body: signedInBody,
+  });
+}
+
+/** The real id a route's parameter names, in `rows`. */
+function idFor(route: ApiRoute, param: string, rows: ShopRows): string {
+  if (param === 'token') return rows.proofToken;
+  if (param === 'proofId') return String(rows.proofId);
+  return String(route.file.includes('/templates/') ? rows.templateId : rows.designId);
+}
+
+interface SignedInActor {
+  label: string;
+  user: TestUser;
+  /** [own shop's rows, other shop's rows]. */
+  rows: [ShopRows, ShopRows];
+}
+
+const actors: SignedInActor[] = [];
+
+async function sendSignedIn(actor: SignedInActor, route: ApiRoute, request: SignedInRequest): Promise<Response> {
+  const rows = actor.rows[request.shop];
+  const url = new URL(routePath(route, (param) => request.randomId ?? idFor(route, param, rows)), BASE_URL);
+  for (const [k, v] of Object.entries(request.query)) url.searchParams.append(k, v);
+  const headers = { ...Object.fromEntries(Object.entries(request.headers).filter((e): e is [string, string] => e[1] !== undefined)), cookie: actor.user.cookie };
+  const payload = request.method === 'GET' ? undefined : request.body;
+  return fetch(url, { method: request.method, headers, ...(payload === undefined ? {} : { body: payload }), signal: AbortSignal.timeout(10_000) });
+}
+
+describe('API fuzzing on the built server (signed in, real ids of two shops)', () => {
+  beforeAll(async () => {
+    const [demoShop] = await db().select({ id: shops.id }).from(shops).where(eq(shops.name, DEMO_SHOP_NAME));
+    const [demoBuilder] = await db().select({ id: users.id }).from(users).where(eq(users.email, 'builder@wrenfield.example'));
+    const demoBoard = await ensureDesign(demoShop!.id, demoBuilder!.id, 'Seven-string', 'seven-string-fan');
+    const demoRows = await shopRows(demoShop!.id, demoBuilder!.id, 'client@wrenfield.example', 'Fuzz board', demoBoard);
+    // The Builder writes in a shop of its own: random requests that are valid really save, and
+    // must not reshape the demo boards other tests read. The demo shop is its "other shop".
+    const builder = await newShopUser('builder', 'Fuzz shop');
+    const builderRows = await shopRows(builder.shopId, builder.id, 'client@wrenfield.example', 'Fuzz board');
+    actors.push(
+      { label: 'builder', user: builder, rows: [builderRows, demoRows] },
+      { label: 'client', user: await signInAs('client@wrenfield.example'), rows: [demoRows, builderRows] },
+    );
+  });
+
+  for (const route of routes) {
+    it(`${route.file}: random requests as a builder and as a client never get a 5xx; a rejected one changes nothing`, async () => {
+      for (const actor of actors) {
+        await fc.assert(
+          fc.asyncProperty(signedInRequestFor(route), async (request) => {
+            const state = await databaseState(actor.rows);
+            const response = await sendSignedIn(actor, route, request);
+            const label = `${request.method} ${route.file} as ${actor.label} (${request.shop === 0 ? 'own' : 'other'} shop ids)`;
+            await expectSaneAnswer(response, label);
+            if (response.status >= 400) expect(await databaseState(actor.rows), `${label}: answered ${response.status}`).toEqual(state);
+          }),
+          { numRuns: SIGNED_IN_RUNS },
+        );
+      }
+    });
+  }
 });
