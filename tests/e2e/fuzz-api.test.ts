@@ -250,18 +250,11 @@ interface SignedInActor {
 }
 
 const actors: SignedInActor[] = [];
+let actorsReady: Promise<void> | undefined;
 
-async function sendSignedIn(actor: SignedInActor, route: ApiRoute, request: SignedInRequest): Promise<Response> {
-  const rows = actor.rows[request.shop];
-  const url = new URL(routePath(route, (param) => request.randomId ?? idFor(route, param, rows)), BASE_URL);
-  for (const [k, v] of Object.entries(request.query)) url.searchParams.append(k, v);
-  const headers = { ...Object.fromEntries(Object.entries(request.headers).filter((e): e is [string, string] => e[1] !== undefined)), cookie: actor.user.cookie };
-  const payload = request.method === 'GET' ? undefined : request.body;
-  return fetch(url, { method: request.method, headers, ...(payload === undefined ? {} : { body: payload }), signal: AbortSignal.timeout(10_000) });
-}
-
-describe('API fuzzing on the built server (signed in, real ids of two shops)', () => {
-  beforeAll(async () => {
+/** The signed-in users and the rows they name, made once for every describe that needs them. */
+function signedInActors(): Promise<void> {
+  actorsReady ??= (async () => {
     const [demoShop] = await db().select({ id: shops.id }).from(shops).where(eq(shops.name, DEMO_SHOP_NAME));
     const [demoBuilder] = await db().select({ id: users.id }).from(users).where(eq(users.email, 'builder@wrenfield.example'));
     const demoBoard = await ensureDesign(demoShop!.id, demoBuilder!.id, 'Seven-string', 'seven-string-fan');
@@ -274,7 +267,21 @@ describe('API fuzzing on the built server (signed in, real ids of two shops)', (
       { label: 'builder', user: builder, rows: [builderRows, demoRows] },
       { label: 'client', user: await signInAs('client@wrenfield.example'), rows: [demoRows, builderRows] },
     );
-  });
+  })();
+  return actorsReady;
+}
+
+async function sendSignedIn(actor: SignedInActor, route: ApiRoute, request: SignedInRequest): Promise<Response> {
+  const rows = actor.rows[request.shop];
+  const url = new URL(routePath(route, (param) => request.randomId ?? idFor(route, param, rows)), BASE_URL);
+  for (const [k, v] of Object.entries(request.query)) url.searchParams.append(k, v);
+  const headers = { ...Object.fromEntries(Object.entries(request.headers).filter((e): e is [string, string] => e[1] !== undefined)), cookie: actor.user.cookie };
+  const payload = request.method === 'GET' ? undefined : request.body;
+  return fetch(url, { method: request.method, headers, ...(payload === undefined ? {} : { body: payload }), signal: AbortSignal.timeout(10_000) });
+}
+
+describe('API fuzzing on the built server (signed in, real ids of two shops)', () => {
+  beforeAll(signedInActors);
 
   for (const route of routes) {
     it(`${route.file}: random requests as a builder and as a client never get a 5xx; a rejected one changes nothing`, async () => {
@@ -292,4 +299,82 @@ describe('API fuzzing on the built server (signed in, real ids of two shops)', (
       }
     });
   }
+});
+
+/** A body that never ends within the limit and carries no Content-Length (chunked upload). */
+function streamOf(bytes: number, fill: string): ReadableStream<Uint8Array> {
+  const chunk = new TextEncoder().encode(fill.repeat(Math.ceil(16 * 1024 / fill.length)).slice(0, 16 * 1024));
+  return new ReadableStream<Uint8Array>({
+    start(controller) {
+      for (let sent = 0; sent < bytes; sent += chunk.byteLength) controller.enqueue(chunk);
+      controller.close();
+    },
+  });
+}
+
+describe('uploads (.scl, fret measurements CSV, board JSON import) on the built server', () => {
+  beforeAll(signedInActors);
+  interface Upload {
+    label: string;
+    path: () => string;
+    /** Content types the route takes, each with a body of the right kind that is also broken. */
+    type: string;
+    limitBytes: number;
+  }
+  const builder = () => actors.find((a) => a.label === 'builder')!;
+  const uploads: Upload[] = [
+    { label: '.scl (POST /api/scala)', path: () => '/api/scala', type: 'text/plain', limitBytes: 64 * 1024 },
+    { label: 'measurements CSV (POST /api/templates/{id}/checks)', path: () => `/api/templates/${builder().rows[0].templateId}/checks?units=mm&tolerance=0.1`, type: 'text/csv', limitBytes: 64 * 1024 },
+    { label: 'board JSON import (POST /api/designs/import)', path: () => '/api/designs/import', type: 'application/json', limitBytes: 256 * 1024 },
+    { label: 'board JSON import as a form file', path: () => '/api/designs/import', type: 'multipart/form-data; boundary=kerfline-upload', limitBytes: 256 * 1024 + 8 * 1024 },
+  ];
+
+  async function post(upload: Upload, type: string, payload: BodyInit): Promise<Response> {
+    return fetch(new URL(upload.path(), BASE_URL), {
+      method: 'POST',
+      headers: { 'content-type': type, origin: BASE_URL, cookie: builder().user.cookie },
+      body: payload,
+      duplex: 'half',
+      signal: AbortSignal.timeout(10_000),
+    } as RequestInit);
+  }
+
+  for (const upload of uploads) {
+    it(`${upload.label}: an over-limit body is refused with 413 before it is parsed, declared or streamed, and stores nothing`, async () => {
+      const state = await databaseState(builder().rows);
+      // Unparsable as well as too large: a 413 (not a 400) shows the size was checked first.
+      const broken = '\u0000{not "parsable" at all,\n'.repeat(Math.ceil((upload.limitBytes + 1024) / 25));
+      const declared = await post(upload, upload.type, broken);
+      expect(declared.status).toBe(413);
+      expect(await declared.json()).toMatchObject({ error: expect.stringMatching(/larger than/i) });
+      const streamed = await post(upload, upload.type, streamOf(upload.limitBytes + 64 * 1024, broken.slice(0, 25)));
+      expect(streamed.status).toBe(413);
+      expect(await databaseState(builder().rows)).toEqual(state);
+    });
+
+    it(`${upload.label}: a wrong file type is refused with 415 and stores nothing`, async () => {
+      const state = await databaseState(builder().rows);
+      for (const type of ['image/png', 'application/pdf', 'application/x-www-form-urlencoded']) {
+        const response = await post(upload, type, new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]));
+        expect(response.status, type).toBe(415);
+        expect(await response.json()).toMatchObject({ field: 'content-type' });
+      }
+      expect(await databaseState(builder().rows)).toEqual(state);
+    });
+  }
+
+  it('board JSON import: a form file that is not a JSON text file (PNG bytes, or too large inside the form) is refused and stores nothing', async () => {
+    const state = await databaseState(builder().rows);
+    const send = (file: Blob) => {
+      const form = new FormData();
+      form.set('file', file, 'board.json');
+      return fetch(new URL('/api/designs/import', BASE_URL), { method: 'POST', headers: { origin: BASE_URL, cookie: builder().user.cookie }, body: form });
+    };
+    const png = await send(new Blob([new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0xff, 0xfe])], { type: 'image/png' }));
+    expect(png.status).toBe(400);
+    expect(await png.json()).toMatchObject({ field: 'file' });
+    const big = await send(new Blob(['{'.repeat(300 * 1024)], { type: 'application/json' }));
+    expect(big.status).toBe(413);
+    expect(await databaseState(builder().rows)).toEqual(state);
+  });
 });
