@@ -71,7 +71,7 @@ describe("another shop's owner on every route that names a demo shop row", () =>
       const path = typeof route.path === 'function' ? route.path(ids) : route.path;
       const value: unknown = typeof route.body === 'function' ? (route.body as (i: MatrixIds) => unknown)(ids) : route.body;
       const headers: Record<string, string> = { origin: BASE_URL, cookie: otherOwner.cookie };
-      let body: string | undefined;
+      let body: string | null = null;
       if (route.method !== 'GET') {
         headers['content-type'] = route.contentType ?? 'application/json';
         body = route.contentType ? String(value ?? '') : JSON.stringify(value ?? {});

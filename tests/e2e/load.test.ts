@@ -23,7 +23,8 @@ interface Outcome {
 }
 
 function outcome(result: autocannon.Result): Outcome {
-  const statuses = Object.fromEntries(Object.entries(result.statusCodeStats ?? {}).map(([code, stat]) => [code, stat.count]));
+  const statuses: Record<string, number> = {};
+  for (const [code, stat] of Object.entries(result.statusCodeStats ?? {})) statuses[code] = stat?.count ?? 0;
   return { requests: result.requests.total, statuses, errors: result.errors, timeouts: result.timeouts };
 }
 
