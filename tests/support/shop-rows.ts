@@ -1,14 +1,14 @@
 /**
  * One row of each kind a route can name by id (board, template, proof with its link token) in a
  * shop, and a snapshot of the database that shows whether a request changed anything: the row
- * count of every table in one query, plus the rows named by id.
+ * count of every table, plus the rows named by id.
  */
-import type { RowDataPacket } from 'mysql2/promise';
 import { asc, eq, inArray } from 'drizzle-orm';
 import { newToken, sha256Hex } from '~/lib/auth/index.server.ts';
 import { designs, proofs, templates } from '~/lib/db/schema.ts';
 import { fixtureDesign, insertDesign } from './designs.ts';
-import { db, getPool } from './test-db.ts';
+import { tableCounts } from './table-counts.ts';
+import { db } from './test-db.ts';
 
 export interface ShopRows {
   shopId: number;
@@ -57,25 +57,11 @@ export async function shopRows(shopId: number, userId: string, clientEmail: stri
   return { shopId, designId: board, templateId: await templateOf(shopId, name), ...proof };
 }
 
-let countQuery: string | undefined;
-
-/** Row counts of every table, in one round trip. */
-async function rowCounts(): Promise<Record<string, number>> {
-  if (!countQuery) {
-    const [tables] = await getPool().query<RowDataPacket[]>(
-      'SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() ORDER BY table_name',
-    );
-    countQuery = `SELECT ${tables.map(({ name }) => `(SELECT COUNT(*) FROM \`${String(name)}\`) AS \`${String(name)}\``).join(', ')}`;
-  }
-  const [rows] = await getPool().query<RowDataPacket[]>(countQuery);
-  return Object.fromEntries(Object.entries(rows[0] ?? {}).map(([k, v]) => [k, Number(v)]));
-}
-
 /** Everything a rejected request must leave as it was, for the rows of `shops`. */
 export async function databaseState(shops: readonly ShopRows[]): Promise<unknown> {
   const designIds = shops.map((s) => s.designId);
   const [counts, boardRows, templateRows, proofRows] = await Promise.all([
-    rowCounts(),
+    tableCounts(),
     db()
       .select({ id: designs.id, version: designs.version, updatedAt: designs.updatedAt, currentRevision: designs.currentRevision, archivedAt: designs.archivedAt, name: designs.name })
       .from(designs)
