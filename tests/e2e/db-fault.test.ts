@@ -2,11 +2,14 @@
  * Database fault on the running built server: MariaDB is stopped while requests are in flight,
  * then started again. The app must answer 503 with a clear JSON message on API routes that need
  * the database (never a 500 or a hang), keep serving what needs no database, and recover without
- * being restarted. Feature routes that read or write the database belong in TARGETS.
+ * being restarted. Feature routes that read or write the database belong in TARGETS. Boards saves
+ * keep running through the fault: every acknowledged one is stored, every other one got a 503.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL } from '../support/browser.ts';
-import { signInAs, type TestUser } from '../support/sessions.ts';
+import { acknowledgedSaveProblems, acknowledgement, saveBody, type AcknowledgedSave } from '../support/acknowledged-saves.ts';
+import { fixtureDesign, insertDesign } from '../support/designs.ts';
+import { newShopUser, signInAs, type TestUser } from '../support/sessions.ts';
 import { closeDb, databaseCommand, startDatabase } from '../support/test-db.ts';
 
 interface Target {
@@ -105,5 +108,77 @@ describe('MariaDB stops while requests are in flight, then comes back', () => {
     const unclear = samples.filter((s) => s.status === 503 && !isClearDatabaseDownAnswer(s));
     expect(unclear).toEqual([]);
     expect(samples.slice(-TARGETS.length).map((s) => s.status)).toEqual(TARGETS.map(() => 200));
+  });
+});
+
+interface SaveAttempt {
+  designId: number;
+  marker: string;
+  status: number;
+  contentType: string;
+  body: string;
+}
+
+/**
+ * Saves one board again and again, each over the version the last 200 named, until `stop()`;
+ * a 409 (a save whose answer was lost but whose write went through) hands over the current version.
+ */
+async function keepSaving(writer: TestUser, designId: number, stop: () => boolean, attempts: SaveAttempt[], acknowledged: AcknowledgedSave[]): Promise<void> {
+  let version = 1;
+  for (let sequence = 1; !stop(); sequence++) {
+    const marker = `Fault board ${designId} save ${sequence}`;
+    let attempt: SaveAttempt;
+    try {
+      const response = await fetch(`${BASE_URL}/api/designs/${designId}`, {
+        method: 'PATCH',
+        headers: { 'content-type': 'application/json', origin: BASE_URL, cookie: writer.cookie },
+        body: saveBody(version, marker),
+        signal: AbortSignal.timeout(5000),
+      });
+      attempt = { designId, marker, status: response.status, contentType: response.headers.get('content-type') ?? '', body: await response.text() };
+    } catch (error) {
+      attempt = { designId, marker, status: 0, contentType: '', body: String(error) };
+    }
+    attempts.push(attempt);
+    if (attempt.status === 200) {
+      const save = acknowledgement(designId, marker, attempt.body);
+      acknowledged.push(save);
+      version = save.version;
+    } else if (attempt.status === 409) {
+      version = Number((JSON.parse(attempt.body) as { currentVersion: number }).currentVersion);
+    } else {
+      // A 503 answer says to retry in a moment; the editor would wait for the next edit.
+      await new Promise((r) => setTimeout(r, 50));
+    }
+  }
+}
+
+describe('Boards saves in flight while MariaDB stops and starts again', () => {
+  it('acknowledges only stored saves, answers the others 503 with a clear message, and saves again after recovery', async () => {
+    const writer = await newShopUser('builder', 'Database fault shop');
+    const boards = await Promise.all([1, 2, 3].map((i) => insertDesign(writer.shopId, writer.id, { ...fixtureDesign('seven-string-fan'), name: `Fault board ${i}` })));
+    const attempts: SaveAttempt[] = [];
+    const acknowledged: AcknowledgedSave[] = [];
+    let done = false;
+    const savers = boards.map((id) => keepSaving(writer, id, () => done, attempts, acknowledged));
+    const acknowledgedFor = (id: number) => acknowledged.filter((s) => s.designId === id).length;
+
+    expect(await waitFor(async () => boards.every((id) => acknowledgedFor(id) >= 2), 10), 'saves go through before the fault').toBe(true);
+    await databaseCommand('stop');
+    const beforeRestart = acknowledged.length;
+    expect(await waitFor(async () => attempts.filter((a) => a.status === 503).length >= boards.length, 10), 'saves answered 503 while down').toBe(true);
+    expect(acknowledged.length, 'nothing acknowledged while the database is down').toBe(beforeRestart);
+    await databaseCommand('start');
+    const afterRestart = new Map(boards.map((id) => [id, acknowledgedFor(id)]));
+    const recovered = await waitFor(async () => boards.every((id) => acknowledgedFor(id) >= afterRestart.get(id)! + 2), 20);
+    done = true;
+    await Promise.all(savers);
+    expect(recovered, 'every board saves again after the restart, without an app restart').toBe(true);
+
+    const statuses = [...new Set(attempts.map((a) => a.status))].sort();
+    expect(statuses.filter((s) => ![200, 409, 503].includes(s)), 'answers other than 200, 409 and 503').toEqual([]);
+    const unclear = attempts.filter((a) => a.status === 503 && !isClearDatabaseDownAnswer({ target: 'save', ...a }));
+    expect(unclear, '503 answers without a JSON message about the database').toEqual([]);
+    expect(await acknowledgedSaveProblems(acknowledged)).toEqual([]);
   });
 });

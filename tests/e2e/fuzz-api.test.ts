@@ -1,19 +1,30 @@
 /**
  * Property-based fuzzing (fast-check) of every API route file under src/pages/api against the
- * built server: random bodies, query strings, headers, methods and path ids, all anonymous.
- * Properties: never a 5xx; bad input answers carry a JSON `error`; no table's row count changes.
- * FUZZ_RUNS sets the runs per route (default 200); a failure prints the seed to replay it.
+ * built server: random bodies, query strings, headers, methods and path ids.
+ * Anonymous: never a 5xx; bad input answers carry a JSON `error`; no table's row count changes.
+ * Signed in (a Builder of a shop of its own, and a Client of the demo shop), with real ids of
+ * both shops: never a 5xx, and a rejected (4xx) request changes nothing: neither any
+ * table's row count nor the rows it named. Uploads: size limits before parsing, wrong types 415.
+ * FUZZ_RUNS sets the anonymous runs per route (default 200), FUZZ_SIGNED_IN_RUNS the signed-in
+ * runs per route and user (default 30); a failure prints the seed to replay it.
  */
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { apiRoutes, HTTP_METHODS, routePath, type ApiRoute, type HttpMethod } from '../support/api-routes.ts';
+import { eq } from 'drizzle-orm';
+import { shops, users } from '~/lib/db/schema.ts';
+import { DEMO_SHOP_NAME } from '~/lib/db/seed/demo-shop.server.ts';
 import { BASE_URL } from '../support/browser.ts';
+import { ensureDesign } from '../support/designs.ts';
+import { addShopUser, newShopUser, type TestUser } from '../support/sessions.ts';
+import { databaseState, shopRows, type ShopRows } from '../support/shop-rows.ts';
 import { tableCounts } from '../support/table-counts.ts';
-import { closeDb } from '../support/test-db.ts';
+import { closeDb, db } from '../support/test-db.ts';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 200);
+const SIGNED_IN_RUNS = Number(process.env.FUZZ_SIGNED_IN_RUNS ?? 30);
 const DESIGN: unknown = JSON.parse(readFileSync('fixtures/designs/seven-string-fan.json', 'utf8'));
 /** Stand-in replaced by raw JSON number text (1e999 parses to Infinity, which JSON.stringify cannot make). */
 const RAW_MARK = '\u0000raw:';
@@ -55,9 +66,19 @@ function jsonText(value: unknown): string {
   return (JSON.stringify(value) ?? 'null').replace(new RegExp(`"${RAW_MARK.replace('\u0000', '\\\\u0000')}([^"]*)"`, 'g'), '$1');
 }
 
-const mutatedDesign = fc
+const mutatedDesignValue = fc
   .array(fc.tuple(fc.constantFrom(...leafPaths(DESIGN)), nastyValue), { minLength: 1, maxLength: 3 })
-  .map((mutations) => jsonText(mutations.reduce<unknown>((design, [path, value]) => setPath(design, path, value), DESIGN)));
+  .map((mutations) => mutations.reduce<unknown>((design, [path, value]) => setPath(design, path, value), DESIGN));
+const mutatedDesign = mutatedDesignValue.map(jsonText);
+
+/** Bodies shaped like the signed-in routes' own (board saves, archive, restore, proofs, decisions), with random values. */
+const routeShapedBody = fc
+  .dictionary(
+    fc.constantFrom('version', 'design', 'revision', 'archived', 'note', 'clientName', 'instrumentType', 'decision', 'name', 'comment', 'confirmed', 'condition', 'units', 'tolerance', 'measurements'),
+    fc.oneof(nastyValue, mutatedDesignValue, fc.nat(40), fc.boolean()),
+    { minKeys: 1, maxKeys: 5 },
+  )
+  .map(jsonText);
 
 const sclText = fc
   .tuple(printable(30), fc.nat(200), fc.array(fc.oneof(fc.double().map(String), fc.tuple(fc.integer(), fc.integer()).map(([a, b]) => `${a}/${b}`), nastyString), { maxLength: 20 }))
@@ -176,5 +197,184 @@ describe('API fuzzing on the built server (anonymous requests)', () => {
   it('leaves the server healthy afterwards', async () => {
     const response = await fetch(`${BASE_URL}/api/health`);
     expect(response.status).toBe(200);
+  });
+});
+
+interface SignedInRequest {
+  method: HttpMethod;
+  /** Which shop's ids fill the path: 0 = the user's own (or the demo shop for the client), 1 = the other. */
+  shop: 0 | 1;
+  /** A random id instead of a real one. */
+  randomId: string | null;
+  query: Record<string, string>;
+  headers: Record<string, string | undefined>;
+  body: string | Uint8Array<ArrayBuffer> | undefined;
+}
+
+const signedInBody: fc.Arbitrary<string | Uint8Array<ArrayBuffer> | undefined> = fc.oneof({ arbitrary: routeShapedBody, weight: 3 }, { arbitrary: body, weight: 2 });
+const signedInQuery = fc.dictionary(
+  fc.oneof(fc.constantFrom('format', 'q', 'page', 'pageSize', 'sort', 'dir', 'status', 'instrument', 'units', 'revision', 'size', 'tolerance'), fc.string({ maxLength: 10 })),
+  nastyString.map((s) => s.slice(0, 2000)),
+  { maxKeys: 4 },
+);
+
+function signedInRequestFor(route: ApiRoute): fc.Arbitrary<SignedInRequest> {
+  const methods = route.methods.length > 0 ? route.methods : [...HTTP_METHODS];
+  return fc.record({
+    method: fc.oneof({ arbitrary: fc.constantFrom(...methods), weight: 8 }, { arbitrary: fc.constantFrom(...HTTP_METHODS), weight: 1 }),
+    shop: fc.constantFrom(0 as const, 1 as const),
+    randomId: fc.option(pathId, { freq: 4 }),
+    query: signedInQuery,
+    // Mostly what the app's own pages send, so requests get past the same-origin check to the route.
+    headers: fc.record({
+      'content-type': fc.oneof({ arbitrary: fc.constant('application/json'), weight: 4 }, { arbitrary: contentType, weight: 1 }),
+      origin: fc.oneof({ arbitrary: fc.constant(BASE_URL), weight: 6 }, { arbitrary: origin, weight: 1 }),
+      accept,
+    }),
+    body: signedInBody,
+  });
+}
+
+/** The real id a route's parameter names, in `rows`. */
+function idFor(route: ApiRoute, param: string, rows: ShopRows): string {
+  if (param === 'token') return rows.proofToken;
+  if (param === 'proofId') return String(rows.proofId);
+  return String(route.file.includes('/templates/') ? rows.templateId : rows.designId);
+}
+
+interface SignedInActor {
+  label: string;
+  user: TestUser;
+  /** [own shop's rows, other shop's rows]. */
+  rows: [ShopRows, ShopRows];
+}
+
+const actors: SignedInActor[] = [];
+let actorsReady: Promise<void> | undefined;
+
+/** The signed-in users and the rows they name, made once for every describe that needs them. */
+function signedInActors(): Promise<void> {
+  actorsReady ??= (async () => {
+    const [demoShop] = await db().select({ id: shops.id }).from(shops).where(eq(shops.name, DEMO_SHOP_NAME));
+    const [demoBuilder] = await db().select({ id: users.id }).from(users).where(eq(users.email, 'builder@wrenfield.example'));
+    const demoBoard = await ensureDesign(demoShop!.id, demoBuilder!.id, 'Seven-string', 'seven-string-fan');
+    // A client of the demo shop of its own, with proofs from both shops: the demo Client's
+    // decision budget (counted per user by the server) stays whole for the proof tests.
+    const client = await addShopUser(demoShop!.id, 'client');
+    const demoRows = await shopRows(demoShop!.id, demoBuilder!.id, client.email, 'Fuzz board', demoBoard);
+    // The Builder writes in a shop of its own: random requests that are valid really save, and
+    // must not reshape the demo boards other tests read. The demo shop is its "other shop".
+    const builder = await newShopUser('builder', 'Fuzz shop');
+    const builderRows = await shopRows(builder.shopId, builder.id, client.email, 'Fuzz board');
+    actors.push({ label: 'builder', user: builder, rows: [builderRows, demoRows] }, { label: 'client', user: client, rows: [demoRows, builderRows] });
+  })();
+  return actorsReady;
+}
+
+async function sendSignedIn(actor: SignedInActor, route: ApiRoute, request: SignedInRequest): Promise<Response> {
+  const rows = actor.rows[request.shop];
+  const url = new URL(routePath(route, (param) => request.randomId ?? idFor(route, param, rows)), BASE_URL);
+  for (const [k, v] of Object.entries(request.query)) url.searchParams.append(k, v);
+  const headers = { ...Object.fromEntries(Object.entries(request.headers).filter((e): e is [string, string] => e[1] !== undefined)), cookie: actor.user.cookie };
+  const payload = request.method === 'GET' ? undefined : request.body;
+  return fetch(url, { method: request.method, headers, ...(payload === undefined ? {} : { body: payload }), signal: AbortSignal.timeout(10_000) });
+}
+
+describe('API fuzzing on the built server (signed in, real ids of two shops)', () => {
+  beforeAll(signedInActors);
+
+  for (const route of routes) {
+    it(`${route.file}: random requests as a builder and as a client never get a 5xx; a rejected one changes nothing`, async () => {
+      for (const actor of actors) {
+        await fc.assert(
+          fc.asyncProperty(signedInRequestFor(route), async (request) => {
+            const state = await databaseState(actor.rows);
+            const response = await sendSignedIn(actor, route, request);
+            const label = `${request.method} ${route.file} as ${actor.label} (${request.shop === 0 ? 'own' : 'other'} shop ids)`;
+            await expectSaneAnswer(response, label);
+            if (response.status >= 400) expect(await databaseState(actor.rows), `${label}: answered ${response.status}`).toEqual(state);
+          }),
+          { numRuns: SIGNED_IN_RUNS },
+        );
+      }
+    });
+  }
+});
+
+/** A body that never ends within the limit and carries no Content-Length (chunked upload). */
+function streamOf(bytes: number, fill: string): ReadableStream<Uint8Array> {
+  const chunk = new TextEncoder().encode(fill.repeat(Math.ceil(16 * 1024 / fill.length)).slice(0, 16 * 1024));
+  return new ReadableStream<Uint8Array>({
+    start(controller) {
+      for (let sent = 0; sent < bytes; sent += chunk.byteLength) controller.enqueue(chunk);
+      controller.close();
+    },
+  });
+}
+
+describe('uploads (.scl, fret measurements CSV, board JSON import) on the built server', () => {
+  beforeAll(signedInActors);
+  interface Upload {
+    label: string;
+    path: () => string;
+    /** Content types the route takes, each with a body of the right kind that is also broken. */
+    type: string;
+    limitBytes: number;
+  }
+  const builder = () => actors.find((a) => a.label === 'builder')!;
+  const uploads: Upload[] = [
+    { label: '.scl (POST /api/scala)', path: () => '/api/scala', type: 'text/plain', limitBytes: 64 * 1024 },
+    { label: 'measurements CSV (POST /api/templates/{id}/checks)', path: () => `/api/templates/${builder().rows[0].templateId}/checks?units=mm&tolerance=0.1`, type: 'text/csv', limitBytes: 64 * 1024 },
+    { label: 'board JSON import (POST /api/designs/import)', path: () => '/api/designs/import', type: 'application/json', limitBytes: 256 * 1024 },
+    { label: 'board JSON import as a form file', path: () => '/api/designs/import', type: 'multipart/form-data; boundary=kerfline-upload', limitBytes: 256 * 1024 + 8 * 1024 },
+  ];
+
+  async function post(upload: Upload, type: string, payload: BodyInit): Promise<Response> {
+    return fetch(new URL(upload.path(), BASE_URL), {
+      method: 'POST',
+      headers: { 'content-type': type, origin: BASE_URL, cookie: builder().user.cookie },
+      body: payload,
+      duplex: 'half',
+      signal: AbortSignal.timeout(10_000),
+    } as RequestInit);
+  }
+
+  for (const upload of uploads) {
+    it(`${upload.label}: an over-limit body is refused with 413 before it is parsed, declared or streamed, and stores nothing`, async () => {
+      const state = await databaseState(builder().rows);
+      // Unparsable as well as too large: a 413 (not a 400) shows the size was checked first.
+      const broken = '\u0000{not "parsable" at all,\n'.repeat(Math.ceil((upload.limitBytes + 1024) / 25));
+      const declared = await post(upload, upload.type, broken);
+      expect(declared.status).toBe(413);
+      expect(await declared.json()).toMatchObject({ error: expect.stringMatching(/larger than/i) });
+      const streamed = await post(upload, upload.type, streamOf(upload.limitBytes + 64 * 1024, broken.slice(0, 25)));
+      expect(streamed.status).toBe(413);
+      expect(await databaseState(builder().rows)).toEqual(state);
+    });
+
+    it(`${upload.label}: a wrong file type is refused with 415 and stores nothing`, async () => {
+      const state = await databaseState(builder().rows);
+      for (const type of ['image/png', 'application/pdf', 'application/x-www-form-urlencoded']) {
+        const response = await post(upload, type, new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]));
+        expect(response.status, type).toBe(415);
+        expect(await response.json()).toMatchObject({ field: 'content-type' });
+      }
+      expect(await databaseState(builder().rows)).toEqual(state);
+    });
+  }
+
+  it('board JSON import: a form file that is not a JSON text file (PNG bytes, or too large inside the form) is refused and stores nothing', async () => {
+    const state = await databaseState(builder().rows);
+    const send = (file: Blob) => {
+      const form = new FormData();
+      form.set('file', file, 'board.json');
+      return fetch(new URL('/api/designs/import', BASE_URL), { method: 'POST', headers: { origin: BASE_URL, cookie: builder().user.cookie }, body: form });
+    };
+    const png = await send(new Blob([new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0xff, 0xfe])], { type: 'image/png' }));
+    expect(png.status).toBe(400);
+    expect(await png.json()).toMatchObject({ field: 'file' });
+    const big = await send(new Blob(['{'.repeat(300 * 1024)], { type: 'application/json' }));
+    expect(big.status).toBe(413);
+    expect(await databaseState(builder().rows)).toEqual(state);
   });
 });
