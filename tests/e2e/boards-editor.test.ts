@@ -9,8 +9,10 @@ import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
+import { typeFannedSevenString } from '../support/editor-form.ts';
 import { readScene } from '../support/konva-scene.ts';
 import { signInAs, type TestUser } from '../support/sessions.ts';
+import { signedInApi } from '../support/signed-in-api.ts';
 import { closeDb } from '../support/test-db.ts';
 
 let browser: Browser;
@@ -24,15 +26,7 @@ afterAll(async () => {
   await closeDb();
 });
 
-async function api<T>(path: string, method = 'GET', body?: unknown): Promise<T> {
-  const response = await fetch(`${BASE_URL}${path}`, {
-    method,
-    headers: { cookie: builder.cookie, origin: BASE_URL, 'content-type': 'application/json' },
-    body: body === undefined ? null : JSON.stringify(body),
-  });
-  expect(response.ok, `${method} ${path} answered ${response.status}`).toBe(true);
-  return (await response.json()) as T;
-}
+const api = signedInApi(() => builder);
 
 async function signedInContext(user: TestUser): Promise<BrowserContext> {
   const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
@@ -55,16 +49,7 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     await page.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
 
     // The fanned 7-string 648/686 mm, perpendicular at fret 8, from the blank preset by typing.
-    await page.getByLabel('Preset').selectOption({ label: 'Blank design' });
-    await page.getByRole('button', { name: 'Start', exact: true }).click();
-    await page.getByLabel('Design name').fill(name);
-    await page.getByLabel('Strings', { exact: true }).fill('7');
-    await page.getByLabel(/^Treble scale length/).fill('648');
-    await page.getByLabel(/^Bass scale length/).fill('686');
-    await page.getByLabel(/^Perpendicular fret/).fill('8');
-    await page.getByLabel('Frets', { exact: true }).fill('24');
-    await page.getByLabel(/^String spacing at the nut/).fill('41');
-    await page.getByLabel(/^String spacing at the bridge/).fill('63');
+    await typeFannedSevenString(page, name);
     await page.getByText('Server check: the preview matches').waitFor();
     expect((await readScene(page)).frets.length).toBe(24);
 

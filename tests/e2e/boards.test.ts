@@ -5,6 +5,7 @@ import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
 import { signInAs, type TestUser } from '../support/sessions.ts';
+import { signedInApi } from '../support/signed-in-api.ts';
 import { closeDb } from '../support/test-db.ts';
 
 let browser: Browser;
@@ -18,15 +19,7 @@ afterAll(async () => {
   await closeDb();
 });
 
-async function api<T>(path: string, method = 'GET', body?: unknown): Promise<T> {
-  const response = await fetch(`${BASE_URL}${path}`, {
-    method,
-    headers: { cookie: builder.cookie, origin: BASE_URL, 'content-type': 'application/json' },
-    body: body === undefined ? null : JSON.stringify(body),
-  });
-  expect(response.ok).toBe(true);
-  return (await response.json()) as T;
-}
+const api = signedInApi(() => builder);
 
 describe('Boards page in Chromium (built server)', () => {
   it('finds a saved fanned 7-string by search, shows its history, restores revision 1 and archives it', async () => {

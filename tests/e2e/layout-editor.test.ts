@@ -4,6 +4,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
 import { expectNear } from '../support/expect-near.ts';
+import { typeFannedSevenString } from '../support/editor-form.ts';
 import { pagePointOf, readScene } from '../support/konva-scene.ts';
 
 let browser: Browser;
@@ -28,16 +29,7 @@ describe('Layout editor in Chromium (built server)', () => {
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
 
-    await page.getByLabel('Preset').selectOption({ label: 'Blank design' });
-    await page.getByRole('button', { name: 'Start', exact: true }).click();
-    await page.getByLabel('Design name').fill('Wrenfield seven-string fan');
-    await page.getByLabel('Strings', { exact: true }).fill('7');
-    await page.getByLabel(/^Treble scale length/).fill('648');
-    await page.getByLabel(/^Bass scale length/).fill('686');
-    await page.getByLabel(/^Perpendicular fret/).fill('8');
-    await page.getByLabel('Frets', { exact: true }).fill('24');
-    await page.getByLabel(/^String spacing at the nut/).fill('41');
-    await page.getByLabel(/^String spacing at the bridge/).fill('63');
+    await typeFannedSevenString(page, 'Wrenfield seven-string fan');
     await waitForServerMatch(page);
 
     const scene = await readScene(page);
