@@ -2,7 +2,8 @@
  * Reads a request body with the size limit enforced before parsing: Content-Length is checked
  * first, then nothing past the limit is kept or parsed as the stream arrives.
  */
-import { problem } from './problem.ts';
+import type { z, ZodTypeAny } from 'zod';
+import { invalid, problem, zodIssues } from './problem.ts';
 
 export type BodyResult<T> = { ok: true; value: T } | { ok: false; response: Response };
 
@@ -99,3 +100,12 @@ export async function readJson(request: Request, maxBytes: number): Promise<Body
   }
 }
 
+
+/** The JSON body checked against `schema`: its parsed value, or the 4xx to send (400 names the field). */
+export async function readValidJson<S extends ZodTypeAny>(request: Request, maxBytes: number, schema: S): Promise<BodyResult<z.infer<S>>> {
+  const body = await readJson(request, maxBytes);
+  if (!body.ok) return body;
+  const parsed = schema.safeParse(body.value);
+  if (!parsed.success) return { ok: false, response: invalid(zodIssues(parsed.error)) };
+  return { ok: true, value: parsed.data as z.infer<S> };
+}

@@ -1,7 +1,7 @@
 import { decideProof, type ProofLocator } from '~/lib/db/proofs.server.ts';
-import { readJson } from '~/lib/http/body.server.ts';
+import { readValidJson } from '~/lib/http/body.server.ts';
 import { proofRateLimited } from '~/lib/http/proof-rate-limit.ts';
-import { invalid, json, problem, zodIssues } from '~/lib/http/problem.ts';
+import { json, problem } from '~/lib/http/problem.ts';
 import { decisionSchema } from '~/lib/schemas/proof.ts';
 
 /** Room for the longest comment in multi-byte characters, plus the other fields. */
@@ -23,11 +23,9 @@ export async function handleDecision(request: Request, locator: ProofLocator | n
   const wait = proofRateLimited('decision', rateKey);
   if (wait !== null) return tooManyRequests(wait);
   if (!locator) return problem(404, PROOF_NOT_AVAILABLE);
-  const body = await readJson(request, DECISION_BODY_MAX_BYTES);
-  if (!body.ok) return body.response;
-  const parsed = decisionSchema.safeParse(body.value);
-  if (!parsed.success) return invalid(zodIssues(parsed.error));
-  const result = await decideProof(locator, parsed.data, now);
+  const parsed = await readValidJson(request, DECISION_BODY_MAX_BYTES, decisionSchema);
+  if (!parsed.ok) return parsed.response;
+  const result = await decideProof(locator, parsed.value, now);
   if (result.ok) return json({ decision: result.decision });
   switch (result.reason) {
     case 'not_found':

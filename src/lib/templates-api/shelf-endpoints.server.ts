@@ -5,7 +5,7 @@
  */
 import { db } from '~/lib/db/client.server';
 import { createTemplate, createTemplateWithCheck, listTemplates, retireTemplate, updateTemplate } from '~/lib/db/templates.server';
-import { readJson } from '~/lib/http/body.server';
+import { readValidJson } from '~/lib/http/body.server';
 import { invalid, json, problem, zodIssues } from '~/lib/http/problem';
 import type { SessionUser } from '~/lib/auth/index.server';
 import { templateCreateSchema, templateListQuerySchema, templateUpdateSchema } from '~/lib/schemas/template';
@@ -24,11 +24,9 @@ export async function listRoute(user: SessionUser | null, url: URL): Promise<Res
 export async function createRoute(user: SessionUser | null, request: Request): Promise<Response> {
   const allowed = shelfUser(user);
   if (!allowed.ok) return allowed.response;
-  const body = await readJson(request, BODY_MAX_BYTES);
-  if (!body.ok) return body.response;
-  const input = templateCreateSchema.safeParse(body.value);
-  if (!input.success) return invalid(zodIssues(input.error));
-  const { check, ...template } = input.data;
+  const input = await readValidJson(request, BODY_MAX_BYTES, templateCreateSchema);
+  if (!input.ok) return input.response;
+  const { check, ...template } = input.value;
   const created = check
     ? await createTemplateWithCheck(db(), allowed.value.shopId, allowed.value.id, template, check)
     : await createTemplate(db(), allowed.value.shopId, template);
@@ -47,11 +45,9 @@ export async function readRoute(user: SessionUser | null, id: string | undefined
 export async function updateRoute(user: SessionUser | null, id: string | undefined, request: Request): Promise<Response> {
   const found = await shelfTemplate(user, id);
   if (!found.ok) return found.response;
-  const body = await readJson(request, BODY_MAX_BYTES);
-  if (!body.ok) return body.response;
-  const patch = templateUpdateSchema.safeParse(body.value);
-  if (!patch.success) return invalid(zodIssues(patch.error));
-  const updated = await updateTemplate(db(), found.value.user.shopId, found.value.template.id, patch.data);
+  const patch = await readValidJson(request, BODY_MAX_BYTES, templateUpdateSchema);
+  if (!patch.ok) return patch.response;
+  const updated = await updateTemplate(db(), found.value.user.shopId, found.value.template.id, patch.value);
   return updated ? json(updated) : problem(404, 'No such template');
 }
 

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
 import { boardTarget, checkDesign, requestedBoard, writeResponse } from '~/lib/boards/board-responses.server.ts';
 import { updateDesign } from '~/lib/db/designs.server.ts';
-import { readJson } from '~/lib/http/body.server.ts';
-import { invalid, json, zodIssues } from '~/lib/http/problem.ts';
+import { readValidJson } from '~/lib/http/body.server.ts';
+import { invalid, json } from '~/lib/http/problem.ts';
 import { BOARD_FILE_MAX_BYTES, boardUpdateSchema } from '~/lib/schemas/board.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 
@@ -22,15 +22,13 @@ export const PATCH: APIRoute = async ({ locals, params, request }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;
   const { user, id } = target;
-  const body = await readJson(request, BOARD_FILE_MAX_BYTES);
-  if (!body.ok) return body.response;
-  const input = boardUpdateSchema.safeParse(body.value);
-  if (!input.success) return invalid(zodIssues(input.error));
+  const input = await readValidJson(request, BOARD_FILE_MAX_BYTES, boardUpdateSchema);
+  if (!input.ok) return input.response;
   let design: Design | undefined;
-  if (input.data.design !== undefined) {
-    const checked = checkDesign(input.data.design, 'design');
+  if (input.value.design !== undefined) {
+    const checked = checkDesign(input.value.design, 'design');
     if (!checked.ok) return invalid(checked.issues);
     design = checked.design;
   }
-  return writeResponse(await updateDesign(user, id, { ...input.data, design }));
+  return writeResponse(await updateDesign(user, id, { ...input.value, design }));
 };

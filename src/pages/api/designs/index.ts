@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
 import { checkDesign, requireBoardsUser } from '~/lib/boards/board-responses.server.ts';
 import { createDesign, listDesigns } from '~/lib/db/designs.server.ts';
-import { readJson } from '~/lib/http/body.server.ts';
+import { readValidJson } from '~/lib/http/body.server.ts';
 import { invalid, json, zodIssues } from '~/lib/http/problem.ts';
 import { BOARD_FILE_MAX_BYTES, boardCreateSchema, boardListQuerySchema } from '~/lib/schemas/board.ts';
 
@@ -20,12 +20,10 @@ export const GET: APIRoute = async ({ locals, url }) => {
 export const POST: APIRoute = async ({ locals, request }) => {
   const guard = requireBoardsUser(locals.user);
   if (!guard.ok) return guard.response;
-  const body = await readJson(request, BOARD_FILE_MAX_BYTES);
-  if (!body.ok) return body.response;
-  const input = boardCreateSchema.safeParse(body.value);
-  if (!input.success) return invalid(zodIssues(input.error));
-  const design = checkDesign(input.data.design, 'design');
+  const input = await readValidJson(request, BOARD_FILE_MAX_BYTES, boardCreateSchema);
+  if (!input.ok) return input.response;
+  const design = checkDesign(input.value.design, 'design');
   if (!design.ok) return invalid(design.issues);
-  const created = await createDesign(guard.user, { ...input.data, design: design.design });
+  const created = await createDesign(guard.user, { ...input.value, design: design.design });
   return json(created, 201, { location: `/api/designs/${created.id}` });
 };

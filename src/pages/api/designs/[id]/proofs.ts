@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
 import { CAN, requireRole } from '~/lib/auth/index.server.ts';
 import { createProof, listDesignProofs } from '~/lib/db/proofs.server.ts';
-import { readJson } from '~/lib/http/body.server.ts';
-import { invalid, json, problem, zodIssues } from '~/lib/http/problem.ts';
+import { readValidJson } from '~/lib/http/body.server.ts';
+import { json, problem } from '~/lib/http/problem.ts';
 import { createProofSchema, recordIdSchema } from '~/lib/schemas/proof.ts';
 
 export const prerender = false;
@@ -25,10 +25,8 @@ export const POST: APIRoute = async ({ params, request, locals }) => {
   if (!guard.ok) return guard.response;
   const id = recordIdSchema.safeParse(params.id);
   if (!id.success) return problem(404, NO_DESIGN);
-  const body = await readJson(request, BODY_MAX_BYTES);
-  if (!body.ok) return body.response;
-  const parsed = createProofSchema.safeParse(body.value);
-  if (!parsed.success) return invalid(zodIssues(parsed.error));
-  const created = await createProof(guard.user, id.data, parsed.data, new Date());
+  const parsed = await readValidJson(request, BODY_MAX_BYTES, createProofSchema);
+  if (!parsed.ok) return parsed.response;
+  const created = await createProof(guard.user, id.data, parsed.value, new Date());
   return created ? json(created, 201) : problem(404, NO_DESIGN);
 };

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
 import { boardTarget, writeResponse } from '~/lib/boards/board-responses.server.ts';
 import { restoreRevision } from '~/lib/db/designs.server.ts';
-import { readJson } from '~/lib/http/body.server.ts';
-import { invalid, zodIssues } from '~/lib/http/problem.ts';
+import { readValidJson } from '~/lib/http/body.server.ts';
+
 import { boardRestoreSchema } from '~/lib/schemas/board.ts';
 
 export const prerender = false;
@@ -12,9 +12,7 @@ export const POST: APIRoute = async ({ locals, params, request }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;
   const { user, id } = target;
-  const body = await readJson(request, 4096);
-  if (!body.ok) return body.response;
-  const input = boardRestoreSchema.safeParse(body.value);
-  if (!input.success) return invalid(zodIssues(input.error));
-  return writeResponse(await restoreRevision(user, id, input.data.revision, input.data.version));
+  const input = await readValidJson(request, 4096, boardRestoreSchema);
+  if (!input.ok) return input.response;
+  return writeResponse(await restoreRevision(user, id, input.value.revision, input.value.version));
 };
