@@ -15,8 +15,21 @@ describe('safeNextPath (where sign-in may send a person)', () => {
     ['members'],
     ['/\tfoo'],
     [''],
+    ['//x'],
+    ['/\\x'],
+    // URL normalisation turns these into "//x" (another host to a browser).
+    ['/.//x'],
+    ['/./\\x'],
+    ['/a/..//x'],
+    ['%2F%2Fx'],
+    ['https://x'],
+    ['/'],
   ])('falls back for %j', (next) => {
     expect(safeNextPath(next, '/fallback')).toBe('/fallback');
+  });
+
+  it('keeps encoded slashes inside one path segment (a browser does not read them as a host)', () => {
+    expect(safeNextPath('/%2F%2Fx', '/fallback')).toBe('/%2F%2Fx');
   });
 
   it('falls back when there is no next at all', () => {
