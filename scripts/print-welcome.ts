@@ -2,10 +2,16 @@
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SHOP_NAME } from '../src/lib/db/seed/demo-shop.server.ts';
 
 const origin = process.env.APP_ORIGIN ?? 'http://127.0.0.1:4321';
+const demo = process.env.KERFLINE_MODE === 'demo';
 const lines = [
   '',
   `  Kerfline is running: ${origin}`,
-  `  Outbox (e-mails sent by the app): ${origin}/outbox`,
+  ...(demo
+    ? [
+        '  Demo mode (KERFLINE_MODE=demo): e-mails go to a local fake mail server, shown to this machine only at',
+        `  ${origin}/outbox. Set KERFLINE_MODE=production to turn the Outbox off.`,
+      ]
+    : ['  Production mode: no Outbox page; e-mails go to SMTP_URL.']),
   '',
   `  Demo sign-ins for ${DEMO_SHOP_NAME} (password for all: ${DEMO_PASSWORD}):`,
   ...DEMO_PEOPLE.map((p) => `    ${p.role.padEnd(8)} ${p.email}`),

@@ -13,6 +13,7 @@ export APP_ORIGIN=${APP_ORIGIN:-http://127.0.0.1:$PORT}
 export SMTP_PORT=${SMTP_PORT:-2525}
 export SMTP_URL=${SMTP_URL:-smtp://127.0.0.1:$SMTP_PORT}
 export OUTBOX_DIR=${OUTBOX_DIR:-.data/outbox}
+# The app's own default is production; npm start is the demo, so it says demo unless told otherwise.
 export KERFLINE_MODE=${KERFLINE_MODE:-demo}
 
 command -v node >/dev/null || fail "Node.js 20 or newer is needed (apt-get install nodejs npm)"

@@ -1,5 +1,5 @@
 /**
- * Every request passes here: security headers, the same-origin (CSRF) check, the signed-in user,
+ * Every request passes here: security headers and `Cache-Control: no-store`, the same-origin (CSRF) check, the signed-in user,
  * and a 503 instead of a 500 when the database is down. Roles are checked again in each route.
  */
 import { defineMiddleware, sequence } from 'astro:middleware';
@@ -8,11 +8,11 @@ import { config } from '~/lib/config/env.server.ts';
 import { isDbUnavailable } from '~/lib/db/db-errors.ts';
 import { problem } from '~/lib/http/problem.ts';
 import { isSameOriginRequest } from '~/lib/http/same-origin.ts';
-import { withSecurityHeaders } from '~/lib/http/security-headers.ts';
+import { DYNAMIC_RESPONSE_HEADERS, withSecurityHeaders } from '~/lib/http/security-headers.ts';
 
 const DB_DOWN_MESSAGE = 'The database is not answering right now; nothing was changed. Try again in a moment.';
 
-const headers = defineMiddleware(async (_context, next) => withSecurityHeaders(await next()));
+const headers = defineMiddleware(async (_context, next) => withSecurityHeaders(await next(), DYNAMIC_RESPONSE_HEADERS));
 
 const sameOrigin = defineMiddleware((context, next) => {
   // Only APP_ORIGIN: the request URL's own origin is built from an untrusted Host header.

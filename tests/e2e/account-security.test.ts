@@ -1,8 +1,7 @@
 /** Sign-in security on the built server, over plain HTTP as a browser or a script would see it. */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
 import { afterAll, describe, expect, it } from 'vitest';
 import { BASE_URL } from '../support/browser.ts';
+import { startBuiltServer, type BuiltServer } from '../support/built-server.ts';
 import { uniqueEmail } from '../support/outbox.ts';
 import { newShopUser } from '../support/sessions.ts';
 import { closeDb } from '../support/test-db.ts';
@@ -175,29 +174,15 @@ describe('bad input', () => {
 });
 
 describe('development Outbox page', () => {
-  let server: ChildProcess | undefined;
-  afterAll(() => {
-    server?.kill('SIGTERM');
-  });
+  let server: BuiltServer | undefined;
+  afterAll(() => server?.stop());
 
-  it('exists in demo mode and answers 404 in production mode', async () => {
-    expect((await get('/outbox')).status).toBe(200);
-    const port = await new Promise<number>((resolve) => {
-      const s = createServer().listen(0, '127.0.0.1', () => {
-        const p = (s.address() as { port: number }).port;
-        s.close(() => resolve(p));
-      });
-    });
-    server = spawn(process.execPath, ['dist/server/entry.mjs'], {
-      env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), KERFLINE_MODE: 'production' },
-      stdio: 'ignore',
-    });
-    const url = `http://127.0.0.1:${port}`;
-    for (let i = 0; i < 80; i++) {
-      if (await fetch(`${url}/api/version`).then((r) => r.ok, () => false)) break;
-      await new Promise((r) => setTimeout(r, 250));
-    }
-    const response = await fetch(`${url}/outbox`);
+  it('exists in demo mode, says it is a development fake, and is not there when KERFLINE_MODE is unset (production is the default)', async () => {
+    const demo = await get('/outbox');
+    expect(demo.status).toBe(200);
+    expect(await demo.text()).toContain('Development fake');
+    server = await startBuiltServer({ env: { KERFLINE_MODE: undefined } });
+    const response = await fetch(`${server.url}/outbox`);
     expect(response.status).toBe(404);
     expect(await response.text()).not.toContain('Outbox');
   });

@@ -56,7 +56,12 @@ async function cookieFor(actor: Actor): Promise<string | undefined> {
   return (await signInAs(actor === 'otherOwner' ? otherOwnerEmail : DEMO_EMAILS[actor])).cookie;
 }
 
-async function send(route: RouteCase, actor: Actor): Promise<number> {
+interface Answer {
+  status: number;
+  cacheControl: string | null;
+}
+
+async function send(route: RouteCase, actor: Actor): Promise<Answer> {
   const path = typeof route.path === 'function' ? route.path(ids) : route.path;
   const headers: Record<string, string> = { origin: BASE_URL };
   const cookie = await cookieFor(actor);
@@ -74,7 +79,7 @@ async function send(route: RouteCase, actor: Actor): Promise<number> {
   }
   const response = await fetch(`${BASE_URL}${path}`, { method: route.method, headers, body, redirect: 'manual' });
   await response.arrayBuffer();
-  return response.status;
+  return { status: response.status, cacheControl: response.headers.get('cache-control') };
 }
 
 function pageFiles(): string[] {
@@ -99,11 +104,15 @@ describe('role-by-route matrix (built server)', () => {
     expect([...covered].filter((f) => !files.includes(f)), 'RouteCases naming files that do not exist').toEqual([]);
   });
 
-  it('answers every actor with the expected status on every route', async () => {
+  it('answers every actor with the expected status on every route, never to be cached (Cache-Control: no-store, RFC 9111 5.2.2.5)', async () => {
     const wrong: string[] = [];
+    const cacheable: string[] = [];
     for (const route of ROUTE_CASES) {
       for (const actor of ACTORS) {
-        const status = await send(route, actor);
+        const { status, cacheControl } = await send(route, actor);
+        if (!cacheControl?.split(',').some((d) => d.trim() === 'no-store')) {
+          cacheable.push(`${route.method} ${typeof route.path === 'function' ? route.path(ids) : route.path} as ${actor}: cache-control ${cacheControl}`);
+        }
         const expected = route.expect[actor];
         const allowed: readonly number[] = typeof expected === 'number' ? [expected] : expected;
         if (!allowed.includes(status)) {
@@ -113,5 +122,6 @@ describe('role-by-route matrix (built server)', () => {
       }
     }
     expect(wrong).toEqual([]);
+    expect(cacheable).toEqual([]);
   }, 120_000);
 });

@@ -71,7 +71,7 @@ describe('the built server is stopped and started between writes', () => {
 
     await server.stop();
     expect(await fetch(`${url}/api/version`).then(() => 'answered', () => 'down'), 'the server is really stopped').toBe('down');
-    server = await startBuiltServer(port);
+    server = await startBuiltServer({ port });
 
     const account = await fetch(`${url}/account`, { headers: { cookie }, redirect: 'manual' });
     expect(account.status, 'the session from before the restart is still signed in').toBe(200);

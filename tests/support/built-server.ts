@@ -17,15 +17,24 @@ async function answers(url: string): Promise<boolean> {
   return fetch(`${url}/api/version`, { signal: AbortSignal.timeout(1000) }).then((r) => r.ok, () => false);
 }
 
-/** Starts the built server on `port` (a free one by default) and waits up to 20 s for it to answer. */
-export async function startBuiltServer(port?: number): Promise<BuiltServer> {
-  const chosen = port ?? (await freePort());
+export interface BuiltServerOptions {
+  /** A free one by default. */
+  port?: number;
+  /** Settings on top of the test run's; `undefined` removes one (e.g. to get the app's default). */
+  env?: Record<string, string | undefined>;
+}
+
+/** Starts the built server and waits up to 20 s for it to answer. */
+export async function startBuiltServer(options: BuiltServerOptions = {}): Promise<BuiltServer> {
+  const chosen = options.port ?? (await freePort());
   const url = `http://127.0.0.1:${chosen}`;
   // APP_ORIGIN is this server's own origin: the same-origin check compares Origin headers with it.
-  const child: ChildProcess = spawn(process.execPath, ['scripts/serve-built-app.mjs'], {
-    env: { ...process.env, HOST: '127.0.0.1', PORT: String(chosen), APP_ORIGIN: url },
-    stdio: 'ignore',
-  });
+  const env: NodeJS.ProcessEnv = { ...process.env, HOST: '127.0.0.1', PORT: String(chosen), APP_ORIGIN: url };
+  for (const [name, value] of Object.entries(options.env ?? {})) {
+    if (value === undefined) delete env[name];
+    else env[name] = value;
+  }
+  const child: ChildProcess = spawn(process.execPath, ['scripts/serve-built-app.mjs'], { env, stdio: 'ignore' });
   const exited = once(child, 'exit');
   const stop = async () => {
     if (child.exitCode === null && child.signalCode === null) {

@@ -11,8 +11,11 @@ const envSchema = z.object({
   APP_ORIGIN: z.string().url().default('http://127.0.0.1:4321'),
   SMTP_URL: z.string().default('smtp://127.0.0.1:2525'),
   MAIL_FROM: z.string().default('Kerfline <no-reply@kerfline.example>'),
-  /** "demo" shows the development Outbox page; "production" hides it. */
-  KERFLINE_MODE: z.enum(['demo', 'production']).default('demo'),
+  /**
+   * "demo" serves the development Outbox page (to loopback only); anything that does not say
+   * "demo" is production. `npm start` and the test and bench stacks set demo explicitly.
+   */
+  KERFLINE_MODE: z.enum(['demo', 'production']).default('production'),
   OUTBOX_DIR: z.string().default('.data/outbox'),
 });
 

@@ -23,9 +23,17 @@ export function mergeCsp(policy: string, base: string): string {
   return [kept, ...missing.map((d) => d.trim())].join('; ');
 }
 
-/** The headers a response should carry: its own, plus every missing security header. */
-export function securedHeaders(existing: Headers): Headers {
+/**
+ * What every answer the app itself builds (pages and API, not the static files) carries: nothing
+ * it sends may be kept by a browser or a shared cache, since pages and answers show shop data,
+ * proofs and one-time links. This replaces any weaker policy a route set.
+ */
+export const DYNAMIC_RESPONSE_HEADERS: Readonly<Record<string, string>> = { 'cache-control': 'no-store' };
+
+/** The headers a response should carry: its own, every missing security header, then `forced`. */
+export function securedHeaders(existing: Headers, forced: Readonly<Record<string, string>> = {}): Headers {
   const result = new Headers(existing);
+  for (const [name, value] of Object.entries(forced)) result.set(name, value);
   for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
     const current = result.get(name);
     if (current === null) result.set(name, value);
@@ -34,8 +42,8 @@ export function securedHeaders(existing: Headers): Headers {
   return result;
 }
 
-export function withSecurityHeaders(response: Response): Response {
-  const wanted = securedHeaders(response.headers);
+export function withSecurityHeaders(response: Response, forced: Readonly<Record<string, string>> = {}): Response {
+  const wanted = securedHeaders(response.headers, forced);
   try {
     for (const [name, value] of wanted) response.headers.set(name, value);
     return response;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { mergeCsp, securedHeaders, SECURITY_HEADERS, withSecurityHeaders } from '~/lib/http/security-headers.ts';
+import { DYNAMIC_RESPONSE_HEADERS, mergeCsp, securedHeaders, SECURITY_HEADERS, withSecurityHeaders } from '~/lib/http/security-headers.ts';
 
 describe('mergeCsp', () => {
   it("adds the base policy's directives the page policy lacks, keeping the page's own", () => {
@@ -28,5 +28,17 @@ describe('securedHeaders / withSecurityHeaders', () => {
     expect(response.status).toBe(303);
     expect(response.headers.get('location')).toBe('http://127.0.0.1/x');
     expect(response.headers.get('x-frame-options')).toBe('DENY');
+  });
+});
+
+describe('answers the app builds are never cached', () => {
+  it('forces Cache-Control: no-store over a weaker policy a route set', () => {
+    const response = withSecurityHeaders(new Response('x', { headers: { 'cache-control': 'private, max-age=86400' } }), DYNAMIC_RESPONSE_HEADERS);
+    expect(response.headers.get('cache-control')).toBe('no-store');
+  });
+
+  it('also on redirects, whose headers are immutable', () => {
+    const response = withSecurityHeaders(Response.redirect('http://127.0.0.1/x', 303), DYNAMIC_RESPONSE_HEADERS);
+    expect(response.headers.get('cache-control')).toBe('no-store');
   });
 });

@@ -7,15 +7,12 @@ export const prerender = false;
 
 /**
  * GET /api/designs/{id}/thumbnail.svg?revision=N: a small drawing of the board for the list.
- * A revision never changes, so a URL naming one may be cached by the browser.
+ * Like every answer with shop data it is not cached (the middleware sends no-store).
  */
 export const GET: APIRoute = async ({ locals, params, url }) => {
   const found = await requestedBoard(locals.user, params.id, url.searchParams.get('revision'));
   if (!found.ok) return found.response;
   return new Response(boardThumbnailSvg(computeLayout(storedDesign(found.board.design))), {
-    headers: {
-      'content-type': 'image/svg+xml',
-      'cache-control': found.revision === undefined ? 'private, no-cache' : 'private, max-age=86400',
-    },
+    headers: { 'content-type': 'image/svg+xml' },
   });
 };
