@@ -2,10 +2,10 @@
  * Creating a shop. The form answers "check your e-mail" whether or not the address already has
  * an account, so it cannot be used to find out who has one: a new address gets a link to finish
  * (choose name and password, becoming the shop's Owner); a known address gets a note instead.
+ * Until the link is used only the link's row exists: the shop is created when it is used.
  */
 import { config } from '~/lib/config/env.server.ts';
 import { db } from '~/lib/db/client.server.ts';
-import { shops } from '~/lib/db/schema.ts';
 import type { CreateShopInput } from '~/lib/schemas/account.ts';
 import { existingAccountMail, newShopMail } from './account-mail.ts';
 import { INVITATION_TTL_MS } from './links.ts';
@@ -19,10 +19,13 @@ export async function requestNewShop(input: CreateShopInput): Promise<void> {
     await deliver(input.email, existingAccountMail(origin));
     return;
   }
-  // The shop and its Owner link are created together or not at all.
-  const token = await db().transaction(async (tx) => {
-    const [shop] = await tx.insert(shops).values({ name: input.shopName }).$returningId();
-    return issueToken(tx, { kind: 'invite', shopId: shop!.id, email: input.email, role: 'owner', ttlMs: INVITATION_TTL_MS });
+  const token = await issueToken(db(), {
+    kind: 'new-shop',
+    shopId: null,
+    shopName: input.shopName,
+    email: input.email,
+    role: 'owner',
+    ttlMs: INVITATION_TTL_MS,
   });
   await deliver(input.email, newShopMail(origin, input.shopName, token));
 }

@@ -5,7 +5,7 @@
 import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import { hashPassword } from '~/lib/auth/index.server.ts';
 import { config } from '~/lib/config/env.server.ts';
-import { db } from '~/lib/db/client.server.ts';
+import { db, type Db } from '~/lib/db/client.server.ts';
 import { newUserId } from '~/lib/db/ids.ts';
 import { oneTimeTokens, shops, users, type Role } from '~/lib/db/schema.ts';
 import type { AcceptInvitationInput } from '~/lib/schemas/account.ts';
@@ -79,27 +79,35 @@ export interface InvitationView {
   role: Role;
 }
 
+/** The links the invitation page accepts: a shop's invitation, or the one that creates a shop. */
+const JOIN_LINKS = ['invite', 'new-shop'] as const;
+
 /** What the invitation page shows; null when the link cannot be used. */
 export async function describeInvitation(token: string): Promise<InvitationView | null> {
-  const row = await findUsableToken(db(), 'invite', token);
+  const row = await findUsableToken(db(), JOIN_LINKS, token);
   if (!row?.role) return null;
+  if (row.kind === 'new-shop') return row.shopName ? { shopName: row.shopName, email: row.email, role: row.role } : null;
+  if (row.shopId === null) return null;
   const [shop] = await db().select({ name: shops.name }).from(shops).where(eq(shops.id, row.shopId));
   return shop ? { shopName: shop.name, email: row.email, role: row.role } : null;
 }
 
 /**
- * Creates the account and marks the link used, in one transaction. 410 when the link cannot be
- * used; 409 when the address got an account meanwhile (e-mail addresses are unique).
+ * Creates the account and marks the link used, in one transaction; a `new-shop` link creates its
+ * shop in the same transaction, so a link never used leaves no shop behind. 410 when the link
+ * cannot be used; 409 when the address got an account meanwhile (e-mail addresses are unique).
  */
 export async function acceptInvitation(token: string, input: AcceptInvitationInput): Promise<Outcome<{ userId: string; email: string }>> {
   const passwordHash = await hashPassword(input.password);
   const result = await db().transaction(async (tx) => {
-    const row = await findUsableToken(tx, 'invite', token, true);
+    const row = await findUsableToken(tx, JOIN_LINKS, token, true);
     if (!row?.role) return 'gone' as const;
     const [taken] = await tx.select({ id: users.id }).from(users).where(eq(users.email, row.email)).limit(1);
     if (taken) return 'taken' as const;
+    const shopId = row.kind === 'new-shop' ? await createShop(tx, row.shopName) : row.shopId;
+    if (shopId === null) return 'gone' as const;
     const id = newUserId();
-    await tx.insert(users).values({ id, shopId: row.shopId, email: row.email, displayName: input.displayName, passwordHash, role: row.role });
+    await tx.insert(users).values({ id, shopId, email: row.email, displayName: input.displayName, passwordHash, role: row.role });
     await markTokenUsed(tx, row.id);
     return { userId: id, email: row.email };
   });
@@ -108,4 +116,10 @@ export async function acceptInvitation(token: string, input: AcceptInvitationInp
     return refused(409, {}, 'This e-mail address already has a Kerfline account. Sign in with it, or ask the shop to invite another address.');
   }
   return done(result);
+}
+
+async function createShop(tx: Pick<Db, 'insert'>, name: string | null): Promise<number | null> {
+  if (!name) return null;
+  const [shop] = await tx.insert(shops).values({ name }).$returningId();
+  return shop?.id ?? null;
 }

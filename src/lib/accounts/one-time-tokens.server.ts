@@ -1,21 +1,23 @@
 /**
- * Single-use links (invitations and password resets). The link carries a 128-bit random token;
- * the table keeps only its SHA-256, so a leaked database holds no usable link.
+ * Single-use links (invitations, password resets, new shops). The link carries a 128-bit random
+ * token; the table keeps only its SHA-256, so a leaked database holds no usable link.
  */
-import { and, eq, gt, isNull } from 'drizzle-orm';
+import { and, eq, gt, inArray, isNull } from 'drizzle-orm';
 import { isWellFormedToken, newToken, sha256Hex } from '~/lib/auth/index.server.ts';
 import type { Db } from '~/lib/db/client.server.ts';
-import { oneTimeTokens, type Role } from '~/lib/db/schema.ts';
+import { oneTimeTokens, type Role, type TOKEN_KINDS } from '~/lib/db/schema.ts';
 
 /** A transaction or the pool: both can run these queries. */
 type Runner = Pick<Db, 'select' | 'insert' | 'update'>;
 
-export type TokenKind = 'invite' | 'reset';
+export type TokenKind = (typeof TOKEN_KINDS)[number];
 export type TokenRow = typeof oneTimeTokens.$inferSelect;
 
 export interface NewToken {
   kind: TokenKind;
-  shopId: number;
+  /** Null only for a `new-shop` link, which names the shop to create instead. */
+  shopId: number | null;
+  shopName?: string;
   email: string;
   ttlMs: number;
   userId?: string | null;
@@ -30,6 +32,7 @@ export async function issueToken(runner: Runner, spec: NewToken): Promise<string
     kind: spec.kind,
     tokenHash: sha256Hex(token),
     shopId: spec.shopId,
+    shopName: spec.shopName ?? null,
     email: spec.email,
     userId: spec.userId ?? null,
     role: spec.role ?? null,
@@ -46,12 +49,18 @@ const usable = (now: Date) => and(isNull(oneTimeTokens.usedAt), isNull(oneTimeTo
  * tokens alike (callers show one "link no longer valid" page for all of them).
  * With `lock`, the row stays locked until the surrounding transaction ends.
  */
-export async function findUsableToken(runner: Runner, kind: TokenKind, token: string, lock = false): Promise<TokenRow | null> {
+export async function findUsableToken(
+  runner: Runner,
+  kind: TokenKind | readonly TokenKind[],
+  token: string,
+  lock = false,
+): Promise<TokenRow | null> {
   if (!isWellFormedToken(token)) return null;
+  const kinds = typeof kind === 'string' ? [kind] : [...kind];
   const query = runner
     .select()
     .from(oneTimeTokens)
-    .where(and(eq(oneTimeTokens.tokenHash, sha256Hex(token)), eq(oneTimeTokens.kind, kind), usable(new Date())))
+    .where(and(eq(oneTimeTokens.tokenHash, sha256Hex(token)), inArray(oneTimeTokens.kind, kinds), usable(new Date())))
     .limit(1);
   const [row] = lock ? await query.for('update') : await query;
   return row ?? null;

@@ -70,14 +70,23 @@ export const sessions = mysqlTable(
   (t) => [index('sessions_user_idx').on(t.userId)],
 );
 
-/** Single-use links (invitations, password resets). Only the SHA-256 of the token is stored. */
+export const TOKEN_KINDS = ['invite', 'reset', 'new-shop'] as const;
+
+/**
+ * Single-use links (invitations, password resets, and the link that finishes creating a shop).
+ * Only the SHA-256 of the token is stored. A `new-shop` link has no shop yet: it carries the
+ * shop's name, and the shop row is made only when the link is used.
+ */
 export const oneTimeTokens = mysqlTable(
   'one_time_tokens',
   {
     id: idColumn(),
-    kind: mysqlEnum('kind', ['invite', 'reset']).notNull(),
+    kind: mysqlEnum('kind', TOKEN_KINDS).notNull(),
     tokenHash: char('token_hash', { length: 64 }).notNull(),
-    shopId: shopRef(),
+    /** Null only for `new-shop` links. */
+    shopId: bigint('shop_id', { mode: 'number', unsigned: true }).references(() => shops.id, { onDelete: 'cascade' }),
+    /** The name of the shop a `new-shop` link creates; null for every other kind. */
+    shopName: varchar('shop_name', { length: 120 }),
     userId: userRef('user_id'),
     email: varchar('email', { length: 254 }).notNull(),
     role: mysqlEnum('role', ROLES),

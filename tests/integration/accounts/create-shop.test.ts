@@ -25,12 +25,31 @@ describe('creating a shop', () => {
     expect(Math.abs(days - 7)).toBeLessThan(0.01);
 
     expect(await describeInvitation(token)).toEqual({ shopName: 'Hollin Bench Works', email, role: 'owner' });
+    const before = await shopCount();
     const accepted = await acceptInvitation(token, { displayName: 'Ada Hollin', password: 'a-long-password', confirmPassword: 'a-long-password' });
     expect(accepted.ok).toBe(true);
+    expect(await shopCount()).toBe(before + 1);
     const [user] = await db().select().from(users).where(eq(users.email, email));
     expect(user?.role).toBe('owner');
-    expect(user?.shopId).toBe(row!.shopId);
+    const [shop] = await db().select().from(shops).where(eq(shops.id, user!.shopId));
+    expect(shop?.name).toBe('Hollin Bench Works');
     expect(user?.passwordHash.startsWith('$argon2id$')).toBe(true);
+    // The link is single-use: a second try creates no second shop.
+    const again = await acceptInvitation(token, { displayName: 'Ada Hollin', password: 'a-long-password', confirmPassword: 'a-long-password' });
+    expect(again).toMatchObject({ ok: false, status: 410 });
+    expect(await shopCount()).toBe(before + 1);
+  });
+
+  it('writes no shop row until the e-mailed link is used: 5 unfinished requests leave the shop count unchanged', async () => {
+    const before = await shopCount();
+    const emails = Array.from({ length: 5 }, () => uniqueEmail('unfinished'));
+    for (const email of emails) await requestNewShop({ shopName: 'Never Finished Guitars', email });
+    for (const email of emails) await waitForMail(email, /Never Finished Guitars|Finish/);
+    expect(await shopCount()).toBe(before);
+    const [unfinished] = await db().select().from(shops).where(eq(shops.name, 'Never Finished Guitars'));
+    expect(unfinished).toBeUndefined();
+    const links = await db().select().from(oneTimeTokens).where(eq(oneTimeTokens.shopName, 'Never Finished Guitars'));
+    expect(links.map((l) => [l.kind, l.shopId])).toEqual(emails.map(() => ['new-shop', null]));
   });
 
   it('creates nothing for an address that already has an account and mails its owner instead', async () => {
