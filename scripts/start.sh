@@ -46,11 +46,12 @@ node_modules/.bin/tsx scripts/db/setup.ts --seed
 build_if_changed
 
 node_modules/.bin/tsx scripts/mail/fake-smtp.ts & pids+=($!)
-start_app_server >/dev/null & server=$!; pids+=("$server")
+# The supervisor starts the web server again (logged, with a back-off) if it ever dies.
+node scripts/supervise-server.mjs & server=$!; pids+=("$server")
 wait_http "http://127.0.0.1:$PORT/api/version" 30 || fail "the web server did not answer on 127.0.0.1:$PORT within 30 s"
 
 node_modules/.bin/tsx scripts/print-welcome.ts
-# Stay up while the server runs. Also stop when the parent (npm) goes away: npm does not pass a
+# Stay up while the supervisor runs. Also stop when the parent (npm) goes away: npm does not pass a
 # SIGTERM on to this script, so without this check `kill <npm pid>` would orphan the services.
 parent=$PPID
 while kill -0 "$server" 2>/dev/null && kill -0 "$parent" 2>/dev/null; do sleep 1; done
