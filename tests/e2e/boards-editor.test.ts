@@ -9,7 +9,7 @@ import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
-import { typeFannedSevenString } from '../support/editor-form.ts';
+import { typeFannedSevenString, waitUntilFannedSevenStringKept } from '../support/editor-form.ts';
 import { readScene } from '../support/konva-scene.ts';
 import { signInAs, type TestUser } from '../support/sessions.ts';
 import { signedInApi } from '../support/signed-in-api.ts';
@@ -50,7 +50,7 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
 
     // The fanned 7-string 648/686 mm, perpendicular at fret 8, from the blank preset by typing.
     await typeFannedSevenString(page, name);
-    await page.getByText('Server check: the preview matches').waitFor();
+    await waitUntilFannedSevenStringKept(page, name);
     expect((await readScene(page)).frets.length).toBe(24);
 
     await page.getByRole('button', { name: 'Save to Boards' }).click();

@@ -4,8 +4,8 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
 import { expectNear } from '../support/expect-near.ts';
-import { typeFannedSevenString } from '../support/editor-form.ts';
-import { pagePointOf, readScene } from '../support/konva-scene.ts';
+import { typeFannedSevenString, waitUntilFannedSevenStringKept } from '../support/editor-form.ts';
+import { pagePointOf, readScene, waitForDrawing } from '../support/konva-scene.ts';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -19,10 +19,6 @@ async function fretTableText(page: Page): Promise<string> {
   return (await page.getByRole('table', { name: 'Fret table' }).innerText()).trim();
 }
 
-async function waitForServerMatch(page: Page) {
-  await page.getByText('Server check: the preview matches').waitFor({ timeout: 10_000 });
-}
-
 describe('Layout editor in Chromium (built server)', () => {
   it('builds the fanned 7-string 648/686 mm board perpendicular at fret 8 by typing, and draws it exactly', async () => {
     const context = await browser.newContext({ viewport: { width: 1400, height: 1000 }, acceptDownloads: true });
@@ -30,7 +26,7 @@ describe('Layout editor in Chromium (built server)', () => {
     await page.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
 
     await typeFannedSevenString(page, 'Wrenfield seven-string fan');
-    await waitForServerMatch(page);
+    await waitUntilFannedSevenStringKept(page, 'Wrenfield seven-string fan');
 
     const scene = await readScene(page);
     expect(scene.frets.map((f) => f.fret)).toEqual(Array.from({ length: 24 }, (_, i) => i + 1));
@@ -80,9 +76,11 @@ describe('Layout editor in Chromium (built server)', () => {
     expect(await fretTableText(page)).toBe(tableInMm);
     const back = await readScene(page);
     expectNear(length(back.strings.find((s) => s.string === 7)?.points ?? []), 686, 1e-6);
-    await waitForServerMatch(page);
+    await waitUntilFannedSevenStringKept(page, 'Wrenfield seven-string fan');
 
-    // The fret table downloads as the same CSV the API serves.
+    // The fret table downloads as the CSV the API serves, written in the browser by the same code:
+    // the same rows, and numbers that agree within 1e-9 mm (Chromium's and Node's Math.pow may
+    // differ in the last bit, about 1e-13 mm here).
     const download = page.waitForEvent('download');
     await page.getByRole('button', { name: 'Download CSV' }).click();
     const csv = readFileSync((await (await download).path()) ?? '', 'utf8');
@@ -93,7 +91,7 @@ describe('Layout editor in Chromium (built server)', () => {
       body: design ?? '',
     });
     expect(api.status).toBe(200);
-    expect(csv).toBe(await api.text());
+    expectSameCsv(csv, await api.text(), 1e-9);
     expect(csv.trim().split('\n').length).toBe(1 + 7 * 24);
 
     // The Exports tab holds the Export panel for the same design.
@@ -110,7 +108,7 @@ describe('Layout editor in Chromium (built server)', () => {
   it('measures between two clicked points, snapping to fret and string crossings', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     await page.goto(`${BASE_URL}/layout?preset=seven-string-fan`, { waitUntil: 'networkidle' });
-    await waitForServerMatch(page);
+    await waitForDrawing(page);
     const scene = await readScene(page);
     const string1 = scene.strings.find((s) => s.string === 1)?.points ?? [];
     await page.getByRole('button', { name: 'Measure' }).click();
@@ -190,6 +188,54 @@ describe('Layout editor in Chromium (built server)', () => {
     expect(await page.getByRole('tab', { name: 'Exports' }).count()).toBe(0);
   });
 });
+
+describe('the editor trusts the shared geometry module in the browser', () => {
+  it('sends no layout or Scala request while typing, loading a .scl file and downloading the fret table', async () => {
+    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 }, acceptDownloads: true });
+    const page = await context.newPage();
+    const apiCalls: string[] = [];
+    page.on('request', (request) => {
+      const path = new URL(request.url()).pathname;
+      if (path === '/api/layout' || path === '/api/scala') apiCalls.push(`${request.method()} ${path}`);
+    });
+    await page.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
+    await typeFannedSevenString(page, 'Wrenfield seven-string fan');
+    await waitUntilFannedSevenStringKept(page, 'Wrenfield seven-string fan');
+
+    // Twelve equal steps written as a Scala file (the .scl format's own example layout).
+    await page.getByLabel('Scala scale file (.scl)').check();
+    const scl = ['! twelve.scl', 'Twelve equal steps, written out', ' 12', '!', ...Array.from({ length: 11 }, (_, i) => ` ${(i + 1) * 100}.0`), ' 2/1', ''].join('\n');
+    await page.getByLabel('Scala file (.scl)').setInputFiles({ name: 'twelve.scl', mimeType: 'text/plain', buffer: Buffer.from(scl) });
+    await page.getByText('Twelve equal steps, written out').waitFor();
+    await page.getByText('1200.000 cents').waitFor();
+
+    const download = page.waitForEvent('download');
+    await page.getByRole('button', { name: 'Download CSV' }).click();
+    const file = await download;
+    expect(file.suggestedFilename()).toBe('Wrenfield-seven-string-fan-fret-table.csv');
+    const csv = readFileSync((await file.path()) ?? '', 'utf8');
+    expect(csv.split('\n')[0]).toBe('fret,string,scale_length,from_nut,from_previous,x,y');
+    expect(csv.trim().split('\n').length).toBe(1 + 7 * 24);
+    expect(apiCalls).toEqual([]);
+    await context.close();
+  });
+});
+
+/** Same header, same rows, same non-numeric cells, and numeric cells within `toleranceMm`. */
+function expectSameCsv(actual: string, expected: string, toleranceMm: number): void {
+  const rows = (text: string) => text.trim().split('\n').map((line) => line.split(','));
+  const [got, want] = [rows(actual), rows(expected)];
+  expect(got.length).toBe(want.length);
+  expect(got[0]).toEqual(want[0]);
+  got.forEach((cells, r) => {
+    expect(cells.length).toBe(want[r]!.length);
+    cells.forEach((cell, c) => {
+      const wanted = want[r]![c]!;
+      if (r === 0 || Number.isNaN(Number(wanted))) expect(cell).toBe(wanted);
+      else expectNear(Number(cell), Number(wanted), toleranceMm);
+    });
+  });
+}
 
 function formatMm(value: number): string {
   return (Math.round(value * 100) / 100).toFixed(2);

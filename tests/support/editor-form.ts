@@ -13,3 +13,22 @@ export async function typeFannedSevenString(page: Page, name: string): Promise<v
   await page.getByLabel(/^String spacing at the nut/).fill('41');
   await page.getByLabel(/^String spacing at the bridge/).fill('63');
 }
+
+/**
+ * Waits until the editor has kept the typed fanned 7-string as its scratch design (this browser's
+ * storage): the form is valid, the drawing shows it, and the autosave has caught up.
+ */
+export async function waitUntilFannedSevenStringKept(page: Page, name: string): Promise<void> {
+  await page.waitForFunction(
+    (wanted) => {
+      const kept = JSON.parse(localStorage.getItem('kerfline.scratchDesign') ?? '{}') as Record<string, unknown>;
+      const scale = kept.scale as { treble?: number; bass?: number } | undefined;
+      const spacing = kept.stringSpacing as { nut?: number; bridge?: number } | undefined;
+      return kept.name === wanted && kept.strings === 7 && scale?.treble === 648 && scale.bass === 686 && kept.perpendicularFret === 8
+        && kept.frets === 24 && spacing?.nut === 41 && spacing.bridge === 63;
+    },
+    name,
+    { timeout: 10_000 },
+  );
+  await page.getByRole('status').filter({ hasText: /^Saved$/ }).waitFor();
+}

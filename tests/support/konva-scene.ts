@@ -55,3 +55,11 @@ export async function hoverFret(page: Page, fret: number): Promise<void> {
   const at = await pagePointOf(page, ((line[0] ?? 0) + (line[2] ?? 0)) / 2, ((line[1] ?? 0) + (line[3] ?? 0)) / 2);
   await page.mouse.move(at.x, at.y);
 }
+
+/** Waits until the editor's Konva stage has drawn the board's fret lines. */
+export async function waitForDrawing(page: Page): Promise<void> {
+  await page.waitForFunction(() => {
+    const konva = (window as unknown as { Konva?: { stages: { find(selector: string): unknown[] }[] } }).Konva;
+    return (konva?.stages[0]?.find('.fret-line').length ?? 0) > 0;
+  }, undefined, { timeout: 10_000 });
+}

@@ -1,8 +1,9 @@
 /**
  * The Fret table: the same rows and numbers as the CSV (src/lib/export/csv.ts), shown rounded to
- * 0.01 mm / 0.001 in, sortable by any column. Copy and download carry the unrounded CSV from
- * the server (POST /api/layout?format=csv), the authority for exported numbers: the browser's
- * Math functions may differ from the server's in the last bit.
+ * 0.01 mm / 0.001 in, sortable by any column. Copy and download carry the unrounded CSV, written
+ * here by the same shared code that writes the server's (POST /api/layout?format=csv). A browser's
+ * Math.pow may differ from the server's in the last bit (about 1e-13 mm), far below the 0.001 mm
+ * any rule reads; the machine exports (PDF, DXF, SVG) are still made on the server.
  */
 import {
   createColumnHelper,
@@ -14,7 +15,8 @@ import {
 } from '@tanstack/react-table';
 import { memo, useMemo, useState } from 'react';
 import { formatLength } from '~/lib/format/units';
-import { fretTableRows, type FretTableRow } from '~/lib/export/csv';
+import { fretTableCsv, fretTableRows, type FretTableRow } from '~/lib/export/csv';
+import { exportFileName } from '~/lib/export/file-name';
 import type { Layout } from '~/lib/geometry/layout';
 import type { Design } from '~/lib/schemas/design';
 import { BUTTON } from './control-styles';
@@ -48,39 +50,29 @@ export const FretTablePanel = memo(function FretTablePanel({ layout, design }: {
     getSortedRowModel: getSortedRowModel(),
   });
 
-  const [busy, setBusy] = useState(false);
-  const withServerCsv = async (use: (csv: string) => Promise<string>) => {
-    setBusy(true);
-    setNotice('Preparing the CSV…');
+  const copy = async () => {
     try {
-      setNotice(await use(await serverCsv(design)));
+      await navigator.clipboard.writeText(fretTableCsv(layout));
+      setNotice('Fret table copied as CSV.');
     } catch (error) {
-      setNotice(`No CSV: ${error instanceof Error ? error.message : String(error)}`);
-    } finally {
-      setBusy(false);
+      setNotice(`Not copied: ${error instanceof Error ? error.message : String(error)}`);
     }
   };
-  const copy = () =>
-    withServerCsv(async (csv) => {
-      await navigator.clipboard.writeText(csv);
-      return 'Fret table copied as CSV.';
-    });
-  const download = () =>
-    withServerCsv(async (csv) => {
-      const url = URL.createObjectURL(new Blob([csv], { type: 'text/csv;charset=utf-8' }));
-      const link = document.createElement('a');
-      link.href = url;
-      link.download = `${fileNameOf(design.name)}-fret-table.csv`;
-      link.click();
-      setTimeout(() => URL.revokeObjectURL(url), 0);
-      return 'Fret table downloaded as CSV.';
-    });
+  const download = () => {
+    const url = URL.createObjectURL(new Blob([fretTableCsv(layout)], { type: 'text/csv;charset=utf-8' }));
+    const link = document.createElement('a');
+    link.href = url;
+    link.download = exportFileName(design.name, 'csv');
+    link.click();
+    setTimeout(() => URL.revokeObjectURL(url), 0);
+    setNotice('Fret table downloaded as CSV.');
+  };
 
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap items-center gap-2">
-        <button type="button" className={BUTTON} onClick={copy} disabled={busy}>Copy CSV</button>
-        <button type="button" className={BUTTON} onClick={download} disabled={busy}>Download CSV</button>
+        <button type="button" className={BUTTON} onClick={() => void copy()}>Copy CSV</button>
+        <button type="button" className={BUTTON} onClick={download}>Download CSV</button>
         <span className="text-xs text-ink-soft" role="status">{notice}</span>
       </div>
       <p className="text-xs text-ink-soft">
@@ -127,22 +119,3 @@ export const FretTablePanel = memo(function FretTablePanel({ layout, design }: {
     </div>
   );
 });
-
-async function serverCsv(design: Design): Promise<string> {
-  const response = await fetch('/api/layout?format=csv', {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', accept: 'text/csv' },
-    body: JSON.stringify(design),
-  });
-  if (!response.ok) throw new Error(`the server answered ${response.status}`);
-  return response.text();
-}
-
-/** A safe file name from the design's name. */
-export function fileNameOf(name: string): string {
-  const slug = name
-    .toLowerCase()
-    .replace(/[^a-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '');
-  return slug === '' ? 'design' : slug.slice(0, 60);
-}

@@ -1,14 +1,14 @@
 /**
- * The Layout screen's island: parameter form beside a live drawing, readouts, fret table and the
- * server cross-check. In 'view' mode (e.g. a client's Proof) the form is left out: the drawing,
- * navigation, readouts and fret table stay, and nothing is kept or sent but the public layout check.
+ * The Layout screen's island: parameter form beside a live drawing, readouts and fret table. In
+ * 'view' mode (e.g. a client's Proof) the form is left out: the drawing, navigation, readouts and
+ * fret table stay, and nothing is kept or sent.
  *
  * A scratch design is kept in this browser; a signed-in builder or owner can save it to Boards.
- * A board (opened from Boards, or just saved) autosaves through useBoardAutosave, and gets the
+ * Both autosave through useAutosave; a board (opened from Boards, or just saved) also gets the
  * History (compare, restore) and Proofs tabs.
  *
- * The preview is computed here with the shared geometry module at every change; POST /api/layout
- * checks it (see use-server-check.ts) and wins if it ever disagrees.
+ * The layout is computed here with the shared geometry module (src/lib/geometry) at every change:
+ * the same code the server runs for every export, so there is nothing to cross-check.
  */
 import { Suspense, lazy, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { STATUS_LABELS } from '~/components/boards/board-labels';
@@ -16,8 +16,7 @@ import { ConflictNotice } from '~/components/boards/ConflictNotice';
 import { RevisionHistory } from '~/components/boards/RevisionHistory';
 import { SaveStatusBadge } from '~/components/boards/SaveStatusBadge';
 import { SaveToBoardsButton } from '~/components/boards/SaveToBoardsButton';
-import { useBoardAutosave } from '~/components/boards/useBoardAutosave';
-import { computeLayout, type Layout } from '~/lib/geometry/layout';
+import { computeLayout } from '~/lib/geometry/layout';
 import { blankDesign } from '~/lib/presets/blank-design';
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
 import type { BoardDetail, BoardSummary } from '~/lib/schemas/board';
@@ -26,14 +25,14 @@ import { BoardDrawing } from './BoardDrawing';
 import { describeBoard } from './board-summary';
 import { CalibrationPanel } from './CalibrationPanel';
 import { BUTTON } from './control-styles';
-import { createDesignStore, type SaveStatus } from './design-store';
+import { createDesignStore } from './design-store';
 import { draftFromDesign, validateDraft, type DesignDraft } from './design-draft';
 import { DesignForm, type PresetChoice } from './DesignForm';
 import { FretReadout } from './FretReadout';
 import { FretTablePanel } from './FretTablePanel';
 import { redrawStarted } from './redraw-timing';
 import { loadScreenPxPerMm, saveScreenPxPerMm } from './screen-calibration';
-import { useServerCheck, type ServerCheck } from './use-server-check';
+import { useAutosave } from './use-autosave';
 
 export interface LayoutEditorProps {
   /** 'edit' (default) shows the form; 'view' is read-only: drawing, readouts and fret table. */
@@ -69,8 +68,6 @@ const PRESETS: readonly PresetChoice[] = [
   { id: BLANK_PRESET_ID, label: 'Blank design' },
   ...DEMO_DESIGNS.map((demo) => ({ id: demo.id, label: demo.design.name })),
 ];
-/** Wait after the last valid change before keeping the design, in milliseconds. */
-const SAVE_DELAY_MS = 500;
 const SUMMARY_ID = 'board-summary';
 
 function presetDesign(id: string): Design {
@@ -95,7 +92,6 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
   const [draft, setDraft] = useState<DesignDraft>(() => draftFromDesign(initialDesign ?? blankDesign()));
   const [loaded, setLoaded] = useState(initialDesign !== undefined || !editing);
   const [fitRequest, setFitRequest] = useState(0);
-  const [saveStatus, setSaveStatus] = useState<SaveStatus>({ state: 'idle' });
   const [hoveredFret, setHoveredFret] = useState<number | null>(null);
   const [pickedFret, setPickedFret] = useState<number | null>(null);
   const [screen, setScreen] = useState(() => loadScreenPxPerMm(globalThis.localStorage));
@@ -110,9 +106,7 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
   const lastValid = useRef<Design>(initialDesign ?? blankDesign());
   if (validation.ok) lastValid.current = validation.design;
   const design = lastValid.current;
-  const preview = useMemo(() => computeLayout(design), [design]);
-  const serverCheck = useServerCheck(design, preview);
-  const layout: Layout = serverCheck.state === 'mismatch' && serverCheck.layout ? serverCheck.layout : preview;
+  const layout = useMemo(() => computeLayout(design), [design]);
   // The table, summary and warnings follow in a later, interruptible render, keeping typing and
   // redrawing quick.
   const settledLayout = useDeferredValue(layout);
@@ -134,8 +128,8 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
     };
   }, [loaded, store]);
 
-  const autosave = useBoardAutosave({
-    store: opened ? store : null,
+  const autosave = useAutosave({
+    store: editing ? store : null,
     boardId: opened?.id ?? null,
     version: opened?.version ?? 1,
     design,
@@ -157,16 +151,6 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
     setOpened({ id: saved.id, version: saved.version });
     window.history.replaceState(null, '', `/layout?design=${saved.id}`);
   };
-
-  useEffect(() => {
-    // A board autosaves through useBoardAutosave; only the scratch copy is kept here.
-    if (!editing || !loaded || !validation.ok || opened) return;
-    const timer = setTimeout(() => {
-      setSaveStatus({ state: 'saving' });
-      store.save(design).then(setSaveStatus);
-    }, SAVE_DELAY_MS);
-    return () => clearTimeout(timer);
-  }, [editing, loaded, design, validation.ok, store, opened]);
 
   const startFrom = (presetId: string) => {
     setDraft(draftFromDesign(presetId === BLANK_PRESET_ID ? blankDesign() : presetDesign(presetId)));
@@ -191,16 +175,15 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
     <div className="space-y-3">
       <div role="toolbar" aria-label="Layout tools" className="flex flex-wrap items-center gap-x-4 gap-y-2 rounded border border-paper-line bg-white px-3 py-2 text-sm">
         {embedded ? <span className="mr-auto" /> : <h1 className="mr-auto text-lg font-bold">{editing ? 'Layout' : design.name}</h1>}
-        <ServerCheckStatus check={serverCheck} />
         {editing && (
           <div aria-label="Where this design is kept" role="group" className="flex flex-wrap items-center gap-2 text-xs">
             <span>{store.place}</span>
+            <SaveStatusBadge state={autosave.state} />
+            {autosave.state.status === 'error' && (
+              <button type="button" className={BUTTON} onClick={autosave.saveNow}>Try saving again</button>
+            )}
             {board ? (
               <>
-                <SaveStatusBadge state={autosave.state} />
-                {autosave.state.status === 'error' && (
-                  <button type="button" className={BUTTON} onClick={autosave.saveNow}>Try saving again</button>
-                )}
                 <span>
                   Revision <span className="font-mono">{board.currentRevision}</span> · Status:{' '}
                   <strong data-board-status={board.status}>{STATUS_LABELS[board.status]}</strong>
@@ -208,7 +191,6 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
               </>
             ) : (
               <>
-                <span role="status" className="text-ink-soft">{describeSave(saveStatus)}</span>
                 {canSaveToBoards ? (
                   <SaveToBoardsButton design={design} onSaved={switchToBoard} />
                 ) : (
@@ -318,34 +300,4 @@ function TabButton({ id, selected, onSelect, children }: { id: Tab; selected: bo
       {children}
     </button>
   );
-}
-
-function ServerCheckStatus({ check }: { check: ServerCheck }) {
-  const text: Record<ServerCheck['state'], string> = {
-    waiting: 'Checking the preview with the server…',
-    match: 'Server check: the preview matches the server’s layout.',
-    mismatch: 'Server check: MISMATCH. The drawing and table show the server’s numbers.',
-    unavailable: 'Server check unavailable: the preview is not confirmed yet.',
-  };
-  return (
-    <p role="status" aria-live="polite" data-check={check.state} className={check.state === 'mismatch' ? 'font-semibold text-rosewood' : 'text-ink-soft'}>
-      {text[check.state]}
-      {(check.state === 'mismatch' || check.state === 'unavailable') && <span className="block text-xs">{check.detail}</span>}
-    </p>
-  );
-}
-
-function describeSave(status: SaveStatus): string {
-  switch (status.state) {
-    case 'idle':
-      return '';
-    case 'saving':
-      return 'keeping…';
-    case 'saved':
-      return `kept at ${status.at.toLocaleTimeString()}`;
-    case 'error':
-      return `not kept: ${status.message}`;
-    case 'conflict':
-      return 'changed elsewhere';
-  }
 }

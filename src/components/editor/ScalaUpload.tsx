@@ -1,17 +1,19 @@
 /**
- * Loading a Scala .scl file: the server's /api/scala parses it and the form shows its description
- * and pitches; the design keeps the file's text (validated again by the design schema).
+ * Loading a Scala .scl file: the shared parser (geometry/scala.ts, the same code behind the public
+ * POST /api/scala) reads it in the browser and the form shows its description and pitches; the
+ * design keeps the file's text (validated again by the design schema).
  */
 import { useId, useState, type ChangeEvent } from 'react';
-import { scalaScaleResponseSchema, type ScalaScaleResponse } from '~/lib/schemas/scala-scale';
+import { parseScl, type ScalaScale } from '~/lib/geometry/scala';
+import { DESIGN_LIMITS } from '~/lib/schemas/design';
 import { FIELD_ERROR } from './control-styles';
 
-/** Largest .scl file sent to the server, in bytes (the server's own limit is 64 KiB). */
-const SCL_MAX_BYTES = 64 * 1024;
+/** Largest .scl file read, in bytes: the design keeps at most this many characters of it. */
+const SCL_MAX_BYTES = DESIGN_LIMITS.maxSclChars;
 
 export function ScalaUpload({ scl, errors, onLoaded }: { scl: string; errors: readonly string[]; onLoaded: (scl: string) => void }) {
   const inputId = useId();
-  const [parsed, setParsed] = useState<ScalaScaleResponse | null>(null);
+  const [parsed, setParsed] = useState<ScalaScale | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -26,19 +28,13 @@ export function ScalaUpload({ scl, errors, onLoaded }: { scl: string; errors: re
     setProblem(null);
     try {
       const text = await file.text();
-      const response = await fetch('/api/scala', { method: 'POST', headers: { 'content-type': 'text/plain' }, body: text });
-      const body: unknown = await response.json();
-      if (!response.ok) {
+      const result = parseScl(text);
+      if (!result.ok) {
         setParsed(null);
-        setProblem(errorText(body));
+        setProblem(`line ${result.error.line}: ${result.error.message}`);
         return;
       }
-      const scale = scalaScaleResponseSchema.safeParse(body);
-      if (!scale.success) {
-        setProblem('the server sent an answer this page does not understand');
-        return;
-      }
-      setParsed(scale.data);
+      setParsed(result.scale);
       onLoaded(text);
     } catch (error) {
       setProblem(`could not read the file (${String(error)})`);
@@ -79,8 +75,4 @@ export function ScalaUpload({ scl, errors, onLoaded }: { scl: string; errors: re
       )}
     </div>
   );
-}
-
-function errorText(body: unknown): string {
-  return typeof body === 'object' && body !== null && 'error' in body ? String(body.error) : 'the server could not read this file';
 }

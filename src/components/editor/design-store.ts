@@ -3,7 +3,7 @@
  * scratch copy in this browser's local storage. A design saved to the shop's Boards is kept on
  * the server through the Boards API, over the board version the editor last saw, so a save never
  * silently overwrites someone else's (a stale version comes back as a conflict). The editor only
- * talks to this interface; for a board, useBoardAutosave (src/components/boards) decides when to
+ * talks to this interface; useAutosave (use-autosave.ts) decides when to
  * save and keeps the version.
  */
 import { BoardRequestError, fetchBoard, saveBoard } from '~/components/boards/board-requests';

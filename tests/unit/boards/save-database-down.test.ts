@@ -24,7 +24,7 @@ describe('a save answered 503 while the database is down', () => {
     expect((failure as BoardRequestError).status).toBe(503);
     expect((failure as BoardRequestError).message).toBe(DATABASE_DOWN.error);
 
-    // useBoardAutosave dispatches `failed` for every rejection except a 409.
+    // useAutosave dispatches `failed` for every rejection except a 409.
     const saving = autosaveReducer(autosaveReducer(initialAutosave(3), { type: 'edit' }), { type: 'start' });
     const shown = autosaveReducer(saving, { type: 'failed', message: (failure as BoardRequestError).message });
     expect(shown).toMatchObject({ status: 'error', version: 3, error: DATABASE_DOWN.error });

@@ -1,22 +1,23 @@
 /**
- * Autosave for a board open in the editor: debounced saves of the current design over the
- * version last seen, a visible status, conflict handling that keeps the user's edit, and a
- * prompt before leaving the page with unsaved work. The editor owns the design; this hook only
- * watches it and saves it through the editor's board store (design-store.ts).
+ * The editor's one autosave, for a scratch design and for a board alike: debounced saves of the
+ * current design through the editor's store (design-store.ts: this browser's storage, or the
+ * Boards API over the version last seen), a visible status, conflict handling that keeps the
+ * user's edit, and a prompt before leaving the page with unsaved work. The editor owns the
+ * design; this hook only watches it and saves it.
  */
 import { useCallback, useEffect, useReducer, useRef } from 'react';
-import type { DesignStore } from '~/components/editor/design-store.ts';
+import { autosaveReducer, hasUnsavedWork, initialAutosave, type AutosaveState } from '~/components/boards/autosave-state.ts';
+import { createBoard } from '~/components/boards/board-requests.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 import type { Design } from '~/lib/schemas/design.ts';
-import { autosaveReducer, hasUnsavedWork, initialAutosave, type AutosaveState } from './autosave-state.ts';
-import { createBoard } from './board-requests.ts';
+import type { DesignStore } from './design-store.ts';
 
-export interface BoardAutosaveOptions {
-  /** The open board's store; null while the design is not a board (then the hook does nothing). */
+export interface AutosaveOptions {
+  /** Where the design is kept; null when nothing is kept (a read-only view): the hook does nothing. */
   store: DesignStore | null;
-  /** The open board; another id (a board just saved or copied) starts again from `version`. */
+  /** The open board, or null for a scratch design; another id (a board just saved or copied) starts again from `version`. */
   boardId: number | null;
-  /** The board version the editor loaded. */
+  /** The board version the editor loaded (a scratch design has no versions: any number). */
   version: number;
   /** The design as the editor has it now. */
   design: Design;
@@ -25,7 +26,7 @@ export interface BoardAutosaveOptions {
   debounceMs?: number;
 }
 
-export interface BoardAutosave {
+export interface Autosave {
   state: AutosaveState;
   /** Saves at once (e.g. a retry after a failure), skipping the debounce. */
   saveNow: () => void;
@@ -38,7 +39,7 @@ export interface BoardAutosave {
   saveAsCopy: () => Promise<BoardDetail>;
 }
 
-export function useBoardAutosave({ store, boardId, version, design, onSaved, debounceMs = 800 }: BoardAutosaveOptions): BoardAutosave {
+export function useAutosave({ store, boardId, version, design, onSaved, debounceMs = 800 }: AutosaveOptions): Autosave {
   const [state, dispatch] = useReducer(autosaveReducer, version, initialAutosave);
   const latest = useRef(design);
   const seen = useRef(JSON.stringify(design));
@@ -62,9 +63,9 @@ export function useBoardAutosave({ store, boardId, version, design, onSaved, deb
     if (!store || current.status === 'saving' || current.status === 'conflict') return;
     dispatch({ type: 'start' });
     const result = await store.save(latest.current, current.version);
-    if (result.state === 'saved' && result.board) {
-      dispatch({ type: 'succeeded', version: result.board.version });
-      savedRef.current?.(result.board);
+    if (result.state === 'saved') {
+      dispatch({ type: 'succeeded', version: result.board?.version ?? current.version });
+      if (result.board) savedRef.current?.(result.board);
     } else if (result.state === 'conflict') {
       dispatch({ type: 'conflict', currentVersion: result.current.version, current: result.current });
     } else {
