@@ -46,4 +46,4 @@ else
   echo fail >"$results/build.status"
 fi
 
-node_modules/.bin/tsx scripts/test-summary.ts "$results"
+node_modules/.bin/tsx scripts/test-summary.ts "$results" "$ARTIFACTS_DIR"
