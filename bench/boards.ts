@@ -8,7 +8,7 @@
 import { eq } from 'drizzle-orm';
 import { newToken, sha256Hex, SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { closeDb, db } from '~/lib/db/client.server.ts';
-import { newUserId } from '~/lib/db/ids.ts';
+import { newUserId } from '~/lib/db/ids.server.ts';
 import { designRevisions, designs, sessions, shops, users } from '~/lib/db/schema.ts';
 import { toMm } from '~/lib/format/units.ts';
 import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';

@@ -4,7 +4,7 @@
  */
 import { eq } from 'drizzle-orm';
 import { hashPassword, newToken, sha256Hex, SESSION_COOKIE } from '~/lib/auth/index.server.ts';
-import { newUserId } from '~/lib/db/ids.ts';
+import { newUserId } from '~/lib/db/ids.server.ts';
 import { sessions, shops, users, type Role } from '~/lib/db/schema.ts';
 import { db } from '~/lib/db/client.server.ts';
 

@@ -6,7 +6,7 @@ import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import { hashPassword } from '~/lib/auth/index.server.ts';
 import { config } from '~/lib/config/env.server.ts';
 import { db, type Db } from '~/lib/db/client.server.ts';
-import { newUserId } from '~/lib/db/ids.ts';
+import { newUserId } from '~/lib/db/ids.server.ts';
 import { oneTimeTokens, shops, users, type Role } from '~/lib/db/schema.ts';
 import type { AcceptInvitationInput } from '~/lib/schemas/account.ts';
 import { invitationMail } from './account-mail.ts';

@@ -3,4 +3,4 @@ export { startSession, rotateSession, resolveSession, endSession, endOtherSessio
 export { hashPassword, verifyPassword, MIN_PASSWORD_LENGTH } from './passwords.server.ts';
 export { requireRole, requirePageRole, type Guarded } from './guard.server.ts';
 export { CAN, hasRole, type SessionUser } from './session-user.ts';
-export { newToken, sha256Hex, isWellFormedToken } from './tokens.ts';
+export { newToken, sha256Hex, isWellFormedToken } from './tokens.server.ts';

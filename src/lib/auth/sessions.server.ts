@@ -4,7 +4,7 @@
  */
 import type { AstroCookies } from 'astro';
 import { lucia } from './lucia.server.ts';
-import { newToken, sha256Hex } from './tokens.ts';
+import { newToken, sha256Hex } from './tokens.server.ts';
 import type { SessionUser } from './session-user.ts';
 
 export const SESSION_COOKIE = 'kerfline_session';

@@ -2,7 +2,7 @@ import { readFile, writeFile } from 'node:fs/promises';
 import { exportDesign } from '~/lib/export/export-design.server';
 import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note';
 import { validateDesign } from '~/lib/schemas/design';
-import { USAGE, parseCommand } from './parse-command';
+import { USAGE, parseCommand } from './parse-command.server.ts';
 
 export interface CliOutput {
   stdout: (text: string) => void;

@@ -5,7 +5,7 @@
  * Time is always passed in (`now`) so expiry can be tested with a fixed clock.
  */
 import { and, desc, eq, gt, isNull, type SQL } from 'drizzle-orm';
-import { newToken, sha256Hex } from '~/lib/auth/tokens.ts';
+import { newToken, sha256Hex } from '~/lib/auth/tokens.server.ts';
 import { config } from '~/lib/config/env.server.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import type {

@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
-import { parseCommand } from '~/lib/cli/parse-command';
+import { parseCommand } from '~/lib/cli/parse-command.server.ts';
 import { runKerfline } from '~/lib/cli/run-kerfline.server';
 import { expectNear } from '../../support/expect-near';
 

@@ -5,7 +5,7 @@
  * the demo client opens the proof from "Shared with me".
  */
 import { and, eq, like } from 'drizzle-orm';
-import { newToken, sha256Hex } from '~/lib/auth/tokens.ts';
+import { newToken, sha256Hex } from '~/lib/auth/tokens.server.ts';
 import { designs, proofs } from '~/lib/db/schema.ts';
 import type { SeedStep } from './demo-shop.server.ts';
 

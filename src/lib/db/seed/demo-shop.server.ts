@@ -7,7 +7,7 @@ import { eq } from 'drizzle-orm';
 import { hashPassword } from '~/lib/auth/index.server.ts';
 import type { Db } from '~/lib/db/client.server.ts';
 import { shops, users, type Role } from '~/lib/db/schema.ts';
-import { newUserId } from '~/lib/db/ids.ts';
+import { newUserId } from '~/lib/db/ids.server.ts';
 
 export const DEMO_SHOP_NAME = 'Wrenfield Instrument Co.';
 export const DEMO_PASSWORD = 'wrenfield-demo-2026';

@@ -1,0 +1,64 @@
+/**
+ * The import boundaries of docs/architecture.md, enforced (npm test runs `npx eslint .`). Type-only
+ * imports across a boundary are allowed where they are erased (a pure module may name a server type).
+ * - a module without `.server` in its name is pure and browser-safe: it imports no `*.server.ts`
+ *   module and no server-only package;
+ * - the geometry imports only geometry, the units and the design schema;
+ * - src/lib never imports pages or components, and the product never imports tests or fixtures.
+ */
+import tseslint from 'typescript-eslint';
+
+const SERVER_ONLY_PACKAGES = [
+  'node:*', 'fs', 'path', 'os', 'crypto', 'child_process', 'worker_threads',
+  'mysql2', 'mysql2/*', 'nodemailer', 'smtp-server', 'mailparser', '@node-rs/argon2', 'lucia', '@lucia-auth/*',
+  'piscina', 'rate-limiter-flexible', 'proxy-addr', 'makerjs', 'pdf-lib', '@pdf-lib/fontkit', 'qrcode', 'drizzle-orm/mysql2',
+];
+
+const serverModules = { group: ['**/*.server', '**/*.server.ts', '**/*.server.js'], allowTypeImports: true, message: 'a pure module (no .server in its name) must not import a .server module: it may run in the browser' };
+const serverPackages = { group: SERVER_ONLY_PACKAGES, message: 'a pure module (no .server in its name) must not use a server-only package; move this code into a .server.ts file' };
+const noPagesOrComponents = { group: ['~/pages/*', '~/components/*', '**/pages/**', '**/components/**'], message: 'src/lib is below pages and components: it never imports them' };
+const noTests = { group: ['**/tests/**', '**/fixtures/**', '**/bench/**'], message: 'the product never imports tests, fixtures or benchmarks' };
+
+export default tseslint.config(
+  { ignores: ['dist/**', 'node_modules/**', '.astro/**', 'test-results/**', 'bench/results/**', '.data/**', 'backups/**'] },
+  {
+    files: ['**/*.{ts,tsx,js,mjs}'],
+    languageOptions: { parser: tseslint.parser, ecmaVersion: 'latest', sourceType: 'module' },
+    plugins: { '@typescript-eslint': tseslint.plugin },
+    linterOptions: { reportUnusedDisableDirectives: 'error' },
+  },
+  {
+    files: ['src/**/*.{ts,tsx}'],
+    ignores: ['src/**/*.server.ts', 'src/middleware.ts', 'src/pages/**'],
+    rules: { '@typescript-eslint/no-restricted-imports': ['error', { patterns: [serverModules, serverPackages, noTests] }] },
+  },
+  {
+    files: ['src/lib/**/*.server.ts', 'src/middleware.ts', 'src/pages/**/*.ts'],
+    rules: { '@typescript-eslint/no-restricted-imports': ['error', { patterns: [noTests] }] },
+  },
+  {
+    files: ['src/lib/**/*.{ts,tsx}'],
+    ignores: ['src/lib/**/*.server.ts', 'src/lib/geometry/**'],
+    rules: { '@typescript-eslint/no-restricted-imports': ['error', { patterns: [serverModules, serverPackages, noPagesOrComponents, noTests] }] },
+  },
+  {
+    files: ['src/lib/**/*.server.ts'],
+    rules: { '@typescript-eslint/no-restricted-imports': ['error', { patterns: [noPagesOrComponents, noTests] }] },
+  },
+  {
+    files: ['src/lib/geometry/**/*.ts'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '^(?!\\./|~/lib/geometry/|~/lib/format/units(\\.ts)?$|~/lib/schemas/design(\\.ts)?$)',
+              message: 'the geometry imports only geometry, ~/lib/format/units and the design schema',
+            },
+          ],
+        },
+      ],
+    },
+  },
+);
