@@ -58,7 +58,7 @@ describe('Layout editor in Chromium (built server)', () => {
     await page.getByLabel('Frets', { exact: true }).fill('40');
     const fretsField = page.getByLabel('Frets', { exact: true });
     expect(await fretsField.getAttribute('aria-invalid')).toBe('true');
-    const errorId = await fretsField.getAttribute('aria-describedby');
+    const errorId = (await fretsField.getAttribute('aria-describedby'))?.split(' ').find((id) => id.startsWith('error-'));
     expect(await page.locator(`[id="${errorId}"]`).innerText()).toMatch(/whole number from 1 to 36/);
     await page.getByText(/Out of date: this is the last valid layout/).waitFor();
     expect((await readScene(page)).frets.length).toBe(24);

@@ -1,15 +1,19 @@
 /**
- * The parameter form. Every field shows its units in its label and its errors right below it;
- * the errors come from the shared design schema (see design-draft.ts).
+ * The parameter form. Every field shows its units in its label, its help below and its errors
+ * right below that; the errors come from the shared design schema (see design-draft.ts). The
+ * plain fields are rows of the field table (design-fields.ts), shown group by group; name, units,
+ * temperament and markers have controls of their own.
  */
 import { useId, useState, type ChangeEvent, type ReactNode } from 'react';
 import type { DesignIssue } from '~/lib/schemas/design';
+import { DESIGN_FIELDS, type DesignFieldRow, type FieldGroup } from '~/lib/schemas/design-fields';
 import { BUTTON, FIELD_ERROR, INPUT } from './control-styles';
 import {
   fieldOfIssue,
   switchUnits,
   typedLength,
   type DesignDraft,
+  type FlagField,
   type LengthField,
   type NumberField,
 } from './design-draft';
@@ -35,26 +39,48 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
   const errorsOf = (field: string) => issues.filter((issue) => fieldOfIssue(issue.path) === field).map((issue) => issue.message);
   const general = issues.filter((issue) => issue.path === 'design');
 
-  const length = (field: LengthField, label: string) => (
+  const count = (field: NumberField, label: string, inputMode: 'numeric' | 'decimal' = 'numeric', help?: string) => (
     <TextField
-      path={field}
-      label={`${label} (${units})`}
-      value={draft.lengths[field].text}
-      errors={errorsOf(field)}
-      inputMode="decimal"
-      onChange={(text) => onChange((d) => ({ ...d, lengths: { ...d.lengths, [field]: typedLength(text) } }))}
-    />
-  );
-  const count = (field: NumberField, label: string, inputMode: 'numeric' | 'decimal' = 'numeric') => (
-    <TextField
+      key={field}
       path={field}
       label={label}
+      help={help}
       value={draft.numbers[field]}
       errors={errorsOf(field)}
       inputMode={inputMode}
       onChange={(text) => onChange((d) => ({ ...d, numbers: { ...d.numbers, [field]: text } }))}
     />
   );
+  const row = (field: DesignFieldRow) => {
+    if ('shownWhen' in field && !draft.flags[field.shownWhen]) return null;
+    switch (field.kind) {
+      case 'length': {
+        const path: LengthField = field.path;
+        return (
+          <TextField
+            key={path}
+            path={path}
+            label={`${field.label} (${units})`}
+            help={field.help}
+            value={draft.lengths[path].text}
+            errors={errorsOf(path)}
+            inputMode="decimal"
+            onChange={(text) => onChange((d) => ({ ...d, lengths: { ...d.lengths, [path]: typedLength(text) } }))}
+          />
+        );
+      }
+      case 'flag': {
+        const path: FlagField = field.path;
+        return (
+          <Checkbox key={path} label={field.label} checked={draft.flags[path]} onChange={(on) => onChange((d) => ({ ...d, flags: { ...d.flags, [path]: on } }))} />
+        );
+      }
+      case 'whole':
+      case 'real':
+        return count(field.path, field.label, field.kind === 'real' ? 'decimal' : 'numeric', field.help);
+    }
+  };
+  const rowsOf = (group: FieldGroup) => DESIGN_FIELDS.filter((field) => field.group === group).map(row);
 
   return (
     <form className="space-y-3" aria-label="Design parameters" onSubmit={(event) => event.preventDefault()} noValidate>
@@ -99,21 +125,9 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
         </fieldset>
       </Group>
 
-      <Group title="Strings and scale">
-        {count('strings', 'Strings')}
-        {length('scale.treble', 'Treble scale length, string 1')}
-        {length('scale.bass', 'Bass scale length, last string')}
-        {count('perpendicularFret', 'Perpendicular fret (0 = nut)', 'decimal')}
-        {count('frets', 'Frets')}
-        {length('stringSpacing.nut', 'String spacing at the nut')}
-        {length('stringSpacing.bridge', 'String spacing at the bridge')}
-      </Group>
+      <Group title="Strings and scale">{rowsOf('Strings and scale')}</Group>
 
-      <Group title="Board">
-        {length('overhang.nut', 'Edge overhang at the nut')}
-        {length('overhang.end', 'Edge overhang at the board end')}
-        {length('endExtension', 'Board end past the last fret')}
-      </Group>
+      <Group title="Board">{rowsOf('Board')}</Group>
 
       <Group title="Temperament">
         <div className="flex flex-col gap-1 text-sm">
@@ -137,19 +151,9 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
         )}
       </Group>
 
-      <Group title="Slots">
-        {length('slot.width', 'Slot width (kerf)')}
-        <Checkbox label="Stopped slots (end short of both board edges)" checked={draft.slotStopped} onChange={(slotStopped) => onChange((d) => ({ ...d, slotStopped }))} />
-        {draft.slotStopped && length('slot.stopDistance', 'Stop short of each edge by')}
-      </Group>
+      <Group title="Slots">{rowsOf('Slots')}</Group>
 
-      <Group title="Compensation">
-        {length('compensation.nut', 'Nut setback')}
-        {length('compensation.saddleTreble', 'Saddle setback, treble')}
-        {length('compensation.saddleBass', 'Saddle setback, bass')}
-        <Checkbox label="Zero fret" checked={draft.zeroFret} onChange={(zeroFret) => onChange((d) => ({ ...d, zeroFret }))} />
-        {draft.zeroFret && length('zeroFretNutGap', 'Zero fret to nut')}
-      </Group>
+      <Group title="Compensation">{rowsOf('Compensation')}</Group>
 
       <Group title="Markers">
         <TextField path="markers.single" label="Single markers at frets" value={draft.singleMarkers} errors={[]} onChange={(singleMarkers) => onChange((d) => ({ ...d, singleMarkers }))} />
@@ -177,16 +181,19 @@ function Group({ title, children }: { title: string; children: ReactNode }) {
 interface TextFieldProps {
   path: string;
   label: string;
+  help?: string | undefined;
   value: string;
   errors: readonly string[];
   inputMode?: 'numeric' | 'decimal';
   onChange: (text: string) => void;
 }
 
-function TextField({ path, label, value, errors, inputMode, onChange }: TextFieldProps) {
+function TextField({ path, label, help, value, errors, inputMode, onChange }: TextFieldProps) {
   const id = `field-${path}`;
   const errorId = `error-${path}`;
+  const helpId = `help-${path}`;
   const invalid = errors.length > 0;
+  const describedBy = [help ? helpId : '', invalid ? errorId : ''].filter(Boolean).join(' ');
   return (
     <div>
       <label htmlFor={id} className="block text-sm">{label}</label>
@@ -200,9 +207,10 @@ function TextField({ path, label, value, errors, inputMode, onChange }: TextFiel
         className={INPUT}
         value={value}
         aria-invalid={invalid}
-        aria-describedby={invalid ? errorId : undefined}
+        aria-describedby={describedBy || undefined}
         onChange={(event: ChangeEvent<HTMLInputElement>) => onChange(event.target.value)}
       />
+      {help && <p id={helpId} className="text-xs text-ink-soft">{help}</p>}
       {invalid && (
         <p id={errorId} className={FIELD_ERROR}>
           {errors.join('; ')}

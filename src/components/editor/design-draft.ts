@@ -9,26 +9,26 @@
  */
 import { convertLength, type LengthUnit } from '~/lib/format/units';
 import { validateDesign, type Design, type DesignIssue, type Marker } from '~/lib/schemas/design';
+import {
+  COUNT_ROWS,
+  FLAG_ROWS,
+  LENGTH_ROWS,
+  fieldValue,
+  setFieldValue,
+  type CountPath,
+  type FlagPath,
+  type LengthPath,
+} from '~/lib/schemas/design-fields';
 
-export const LENGTH_FIELDS = [
-  'scale.treble',
-  'scale.bass',
-  'stringSpacing.nut',
-  'stringSpacing.bridge',
-  'overhang.nut',
-  'overhang.end',
-  'endExtension',
-  'slot.width',
-  'slot.stopDistance',
-  'compensation.nut',
-  'compensation.saddleTreble',
-  'compensation.saddleBass',
-  'zeroFretNutGap',
-] as const;
-export type LengthField = (typeof LENGTH_FIELDS)[number];
+/** Every length field of the field table (design-fields.ts), by path. */
+export const LENGTH_FIELDS: readonly LengthPath[] = LENGTH_ROWS.map((row) => row.path);
+export type LengthField = LengthPath;
 
-export const NUMBER_FIELDS = ['strings', 'frets', 'perpendicularFret', 'temperament.divisions'] as const;
-export type NumberField = (typeof NUMBER_FIELDS)[number];
+/** The table's counts, and the divisions of an equal temperament (typed like a count). */
+export const NUMBER_FIELDS: readonly NumberField[] = [...COUNT_ROWS.map((row) => row.path), 'temperament.divisions'];
+export type NumberField = CountPath | 'temperament.divisions';
+
+export type FlagField = FlagPath;
 
 export interface LengthText {
   text: string;
@@ -41,8 +41,7 @@ export interface DesignDraft {
   units: LengthUnit;
   numbers: Record<NumberField, string>;
   lengths: Record<LengthField, LengthText>;
-  slotStopped: boolean;
-  zeroFret: boolean;
+  flags: Record<FlagField, boolean>;
   temperamentKind: 'equal' | 'scala';
   /** Text of a Scala .scl file (kept when switching to equal divisions and back). */
   scl: string;
@@ -61,8 +60,10 @@ const CONVERTED_DECIMALS: Readonly<Record<LengthUnit, number>> = { mm: 4, in: 5 
 
 export function draftFromDesign(design: Design): DesignDraft {
   const lengths = Object.fromEntries(
-    LENGTH_FIELDS.map((field) => [field, { text: String(lengthOf(design, field)) }]),
+    LENGTH_FIELDS.map((field) => [field, { text: String(fieldValue(design, field)) }]),
   ) as Record<LengthField, LengthText>;
+  const counts = Object.fromEntries(COUNT_ROWS.map((row) => [row.path, String(fieldValue(design, row.path))]));
+  const flags = Object.fromEntries(FLAG_ROWS.map((row) => [row.path, fieldValue(design, row.path) === true])) as Record<FlagField, boolean>;
   const markersOf = (kind: Marker['kind']) =>
     design.markers
       .filter((marker) => marker.kind === kind)
@@ -72,50 +73,16 @@ export function draftFromDesign(design: Design): DesignDraft {
     name: design.name,
     units: design.units,
     numbers: {
-      strings: String(design.strings),
-      frets: String(design.frets),
-      perpendicularFret: String(design.perpendicularFret),
+      ...counts,
       'temperament.divisions': String(design.temperament.kind === 'equal' ? design.temperament.divisions : 12),
-    },
+    } as Record<NumberField, string>,
     lengths,
-    slotStopped: design.slot.stopped,
-    zeroFret: design.zeroFret,
+    flags,
     temperamentKind: design.temperament.kind,
     scl: design.temperament.kind === 'scala' ? design.temperament.scl : '',
     singleMarkers: markersOf('single'),
     doubleMarkers: markersOf('double'),
   };
-}
-
-function lengthOf(design: Design, field: LengthField): number {
-  switch (field) {
-    case 'scale.treble':
-      return design.scale.treble;
-    case 'scale.bass':
-      return design.scale.bass;
-    case 'stringSpacing.nut':
-      return design.stringSpacing.nut;
-    case 'stringSpacing.bridge':
-      return design.stringSpacing.bridge;
-    case 'overhang.nut':
-      return design.overhang.nut;
-    case 'overhang.end':
-      return design.overhang.end;
-    case 'endExtension':
-      return design.endExtension;
-    case 'slot.width':
-      return design.slot.width;
-    case 'slot.stopDistance':
-      return design.slot.stopDistance;
-    case 'compensation.nut':
-      return design.compensation.nut;
-    case 'compensation.saddleTreble':
-      return design.compensation.saddleTreble;
-    case 'compensation.saddleBass':
-      return design.compensation.saddleBass;
-    case 'zeroFretNutGap':
-      return design.zeroFretNutGap;
-  }
 }
 
 /** Parses a typed number; null when the text is not a plain decimal number. */
@@ -185,30 +152,18 @@ export function validateDraft(draft: DesignDraft): DraftValidation {
     ...parseMarkerList(draft.doubleMarkers, 'double', typingIssues),
   ].sort((a, b) => a.fret - b.fret);
 
-  const input = {
+  const input: Record<string, unknown> = {
     name: draft.name,
     units: draft.units,
-    strings: number('strings', draft.numbers.strings),
-    scale: { treble: length('scale.treble'), bass: length('scale.bass') },
-    perpendicularFret: number('perpendicularFret', draft.numbers.perpendicularFret),
-    frets: number('frets', draft.numbers.frets),
-    stringSpacing: { nut: length('stringSpacing.nut'), bridge: length('stringSpacing.bridge') },
     temperament:
       draft.temperamentKind === 'equal'
         ? { kind: 'equal', divisions: number('temperament.divisions', draft.numbers['temperament.divisions']) }
         : { kind: 'scala', scl: draft.scl },
-    overhang: { nut: length('overhang.nut'), end: length('overhang.end') },
-    endExtension: length('endExtension'),
-    slot: { width: length('slot.width'), stopped: draft.slotStopped, stopDistance: length('slot.stopDistance') },
-    compensation: {
-      nut: length('compensation.nut'),
-      saddleTreble: length('compensation.saddleTreble'),
-      saddleBass: length('compensation.saddleBass'),
-    },
     markers,
-    zeroFret: draft.zeroFret,
-    zeroFretNutGap: length('zeroFretNutGap'),
   };
+  for (const row of COUNT_ROWS) setFieldValue(input, row.path, number(row.path, draft.numbers[row.path]));
+  for (const path of LENGTH_FIELDS) setFieldValue(input, path, length(path));
+  for (const row of FLAG_ROWS) setFieldValue(input, row.path, draft.flags[row.path]);
   const validation = validateDesign(input);
   if (typingIssues.length === 0) return validation;
   const typed = new Set(typingIssues.map((issue) => issue.path));

@@ -26,14 +26,19 @@ export function mergeCsp(policy: string, base: string): string {
 /**
  * What every answer the app itself builds (pages and API, not the static files) carries: nothing
  * it sends may be kept by a browser or a shared cache, since pages and answers show shop data,
- * proofs and one-time links. This replaces any weaker policy a route set.
+ * proofs and one-time links. This replaces any weaker policy a route set; one that already says
+ * no-store is kept.
  */
 export const DYNAMIC_RESPONSE_HEADERS: Readonly<Record<string, string>> = { 'cache-control': 'no-store' };
 
 /** The headers a response should carry: its own, every missing security header, then `forced`. */
 export function securedHeaders(existing: Headers, forced: Readonly<Record<string, string>> = {}): Headers {
   const result = new Headers(existing);
-  for (const [name, value] of Object.entries(forced)) result.set(name, value);
+  for (const [name, value] of Object.entries(forced)) {
+    // A route that already forbids storing (e.g. "private, no-store" on proofs) keeps its own.
+    if (name === 'cache-control' && /\bno-store\b/.test(result.get(name) ?? '')) continue;
+    result.set(name, value);
+  }
   for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
     const current = result.get(name);
     if (current === null) result.set(name, value);

@@ -1,40 +1,32 @@
 import { z } from 'zod';
-import { formatLength, fromMm, type LengthUnit } from '~/lib/format/units';
+import { formatLength } from '~/lib/format/units';
 import { parseScl } from '~/lib/geometry/scala';
+import { COUNT_ROWS, fieldShape, fieldValues, magnitudeProblems, maxLengthMm } from './design-fields';
 
 /**
  * The design: everything needed to lay out one fretboard. The required field names are part of
  * the public API (HTTP and CLI). Every length is in the design's `units`.
- * Optional fields get defaults in `normaliseDesign` (defaults are chosen in mm and converted when
- * the design is in inches), so a parsed `Design` has every field present.
+ * The plain fields (counts, lengths, flags) come from the field table in design-fields.ts, with
+ * their defaults (chosen in mm and converted when the design is in inches), so a parsed `Design`
+ * has every field present. This file adds what is not a plain field: name, units, temperament,
+ * markers, and the checks that need several fields at once.
  */
+
+const countRow = (path: 'strings' | 'frets') => COUNT_ROWS.find((row) => row.path === path) as { min: number; max: number };
 
 export const DESIGN_LIMITS = {
   nameMaxChars: 120,
-  minStrings: 2,
-  maxStrings: 16,
-  minFrets: 1,
-  maxFrets: 36,
+  minStrings: countRow('strings').min,
+  maxStrings: countRow('strings').max,
+  minFrets: countRow('frets').min,
+  maxFrets: countRow('frets').max,
   maxDivisions: 1024,
   maxSclChars: 65_536,
-  /** Upper limits in millimetres; converted for designs in inches. */
+  /** Upper limits in millimetres (from the field table); converted for designs in inches. */
   mm: {
-    length: 5000,
-    overhang: 100,
-    endExtension: 500,
-    slotWidth: 10,
-    stopDistance: 100,
-    compensation: 50,
-    zeroFretNutGap: 50,
+    length: maxLengthMm('scale.treble'),
+    slotWidth: maxLengthMm('slot.width'),
   },
-} as const;
-
-/** Defaults in millimetres (common practice, from memory), converted for designs in inches. */
-export const DESIGN_DEFAULTS_MM = {
-  overhang: { nut: 3.5, end: 4 },
-  endExtension: 6,
-  slot: { width: 0.6, stopDistance: 2 },
-  zeroFretNutGap: 5,
 } as const;
 
 /** Side dot and inlay frets, common practice: 3, 5, 7, 9, 12 (double), 15, 17, 19, 21, 24. */
@@ -50,10 +42,6 @@ export const DEFAULT_MARKERS: readonly Marker[] = [
   { fret: 21, kind: 'single' },
   { fret: 24, kind: 'single' },
 ];
-
-const finiteNumber = z.number().finite({ message: 'must be a finite number' });
-const positiveLength = finiteNumber.positive({ message: 'must be greater than 0' });
-const nonNegativeLength = finiteNumber.nonnegative({ message: 'must not be negative' });
 
 function wholeNumber(min: number, max: number) {
   const message = `must be a whole number from ${min} to ${max}`;
@@ -94,49 +82,9 @@ const designObjectSchema = z
         message: `must be at most ${DESIGN_LIMITS.nameMaxChars} characters`,
       }),
     units: z.enum(['mm', 'in']),
-    strings: wholeNumber(DESIGN_LIMITS.minStrings, DESIGN_LIMITS.maxStrings),
-    /** Along-string nut-to-saddle length of string 1 (treble) and string N (bass). */
-    scale: z.object({ treble: positiveLength, bass: positiveLength }).strict(),
-    /** Fret whose line is square to the centre line; real, 0 = perpendicular nut. */
-    perpendicularFret: finiteNumber.nonnegative({ message: 'must not be negative' }),
-    frets: wholeNumber(DESIGN_LIMITS.minFrets, DESIGN_LIMITS.maxFrets),
-    /** Outer string centre to centre, at the nut and at the saddle. */
-    stringSpacing: z.object({ nut: positiveLength, bridge: positiveLength }).strict(),
+    ...fieldShape(),
     temperament: temperamentSchema,
-    /** Board edge beyond the outer strings (measured square to the centre line). */
-    overhang: z
-      .object({ nut: nonNegativeLength.optional(), end: nonNegativeLength.optional() })
-      .strict()
-      .optional(),
-    /** Board length past the last fret, measured along the centre line. */
-    endExtension: nonNegativeLength.optional(),
-    slot: z
-      .object({
-        /** Slot width (kerf). */
-        width: positiveLength.optional(),
-        /** Stopped slots end short of both board edges by `stopDistance`. */
-        stopped: z.boolean().optional(),
-        stopDistance: nonNegativeLength.optional(),
-      })
-      .strict()
-      .optional(),
-    /**
-     * Setbacks along each outer string: `nut` moves the drawn nut toward the bridge, `saddleTreble`
-     * and `saddleBass` move the drawn saddle away from the nut. Frets ignore them.
-     */
-    compensation: z
-      .object({
-        nut: finiteNumber.optional(),
-        saddleTreble: finiteNumber.optional(),
-        saddleBass: finiteNumber.optional(),
-      })
-      .strict()
-      .optional(),
     markers: z.array(markerSchema).max(DESIGN_LIMITS.maxFrets).optional(),
-    /** A zero fret sits where the nut would be; the nut then only guides the strings. */
-    zeroFret: z.boolean().optional(),
-    /** Distance from the zero fret back to the string-guide nut, along the outer strings. */
-    zeroFretNutGap: nonNegativeLength.optional(),
   })
   .strict();
 
@@ -144,37 +92,14 @@ export type DesignInput = z.input<typeof designObjectSchema>;
 
 /** Fills every optional field; defaults in mm are converted into the design's units. */
 export function normaliseDesign(input: z.output<typeof designObjectSchema>) {
-  const units = input.units;
-  const mm = (value: number) => fromMm(value, units);
   return {
     name: input.name,
-    units,
-    strings: input.strings,
-    scale: { treble: input.scale.treble, bass: input.scale.bass },
-    perpendicularFret: input.perpendicularFret,
-    frets: input.frets,
-    stringSpacing: { nut: input.stringSpacing.nut, bridge: input.stringSpacing.bridge },
+    units: input.units,
+    ...fieldValues(input, input.units),
     temperament: input.temperament,
-    overhang: {
-      nut: input.overhang?.nut ?? mm(DESIGN_DEFAULTS_MM.overhang.nut),
-      end: input.overhang?.end ?? mm(DESIGN_DEFAULTS_MM.overhang.end),
-    },
-    endExtension: input.endExtension ?? mm(DESIGN_DEFAULTS_MM.endExtension),
-    slot: {
-      width: input.slot?.width ?? mm(DESIGN_DEFAULTS_MM.slot.width),
-      stopped: input.slot?.stopped ?? false,
-      stopDistance: input.slot?.stopDistance ?? mm(DESIGN_DEFAULTS_MM.slot.stopDistance),
-    },
-    compensation: {
-      nut: input.compensation?.nut ?? 0,
-      saddleTreble: input.compensation?.saddleTreble ?? 0,
-      saddleBass: input.compensation?.saddleBass ?? 0,
-    },
     markers:
       input.markers ??
       DEFAULT_MARKERS.filter((marker) => marker.fret <= input.frets).map((marker) => ({ ...marker })),
-    zeroFret: input.zeroFret ?? false,
-    zeroFretNutGap: input.zeroFretNutGap ?? mm(DESIGN_DEFAULTS_MM.zeroFretNutGap),
   };
 }
 
@@ -221,7 +146,7 @@ interface Problem {
 /** Checks that need several fields at once, or the design's units. */
 function geometryProblems(design: Design): Problem[] {
   const problems: Problem[] = [
-    ...magnitudeProblems(design),
+    ...magnitudeProblems(design, design.units),
     ...spreadProblems(design),
     ...markerProblems(design),
   ];
@@ -233,33 +158,6 @@ function geometryProblems(design: Design): Problem[] {
   }
   problems.push(...temperamentProblems(design));
   return problems;
-}
-
-function magnitudeProblems(design: Design): Problem[] {
-  const { units } = design;
-  const limits = DESIGN_LIMITS.mm;
-  const checks: [(string | number)[], number, number][] = [
-    [['scale', 'treble'], design.scale.treble, limits.length],
-    [['scale', 'bass'], design.scale.bass, limits.length],
-    [['stringSpacing', 'nut'], design.stringSpacing.nut, limits.length],
-    [['stringSpacing', 'bridge'], design.stringSpacing.bridge, limits.length],
-    [['overhang', 'nut'], design.overhang.nut, limits.overhang],
-    [['overhang', 'end'], design.overhang.end, limits.overhang],
-    [['endExtension'], design.endExtension, limits.endExtension],
-    [['slot', 'width'], design.slot.width, limits.slotWidth],
-    [['slot', 'stopDistance'], design.slot.stopDistance, limits.stopDistance],
-    [['compensation', 'nut'], Math.abs(design.compensation.nut), limits.compensation],
-    [['compensation', 'saddleTreble'], Math.abs(design.compensation.saddleTreble), limits.compensation],
-    [['compensation', 'saddleBass'], Math.abs(design.compensation.saddleBass), limits.compensation],
-    [['zeroFretNutGap'], design.zeroFretNutGap, limits.zeroFretNutGap],
-  ];
-  return checks
-    .filter(([, value, maxMm]) => value > fromMm(maxMm, units))
-    .map(([path, , maxMm]) => ({ path, message: `must be at most ${describeLimit(maxMm, units)}` }));
-}
-
-function describeLimit(maxMm: number, units: LengthUnit): string {
-  return units === 'mm' ? `${maxMm} mm` : `${formatLength(fromMm(maxMm, units), 'in')} in (${maxMm} mm)`;
 }
 
 /** Each outer string must be longer than its sideways spread, or it would have no length along x. */

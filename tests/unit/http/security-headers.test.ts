@@ -37,6 +37,11 @@ describe('answers the app builds are never cached', () => {
     expect(response.headers.get('cache-control')).toBe('no-store');
   });
 
+  it('keeps a stricter policy that already says no-store', () => {
+    const response = withSecurityHeaders(new Response('x', { headers: { 'cache-control': 'private, no-store' } }), DYNAMIC_RESPONSE_HEADERS);
+    expect(response.headers.get('cache-control')).toBe('private, no-store');
+  });
+
   it('also on redirects, whose headers are immutable', () => {
     const response = withSecurityHeaders(Response.redirect('http://127.0.0.1/x', 303), DYNAMIC_RESPONSE_HEADERS);
     expect(response.headers.get('cache-control')).toBe('no-store');
