@@ -15,6 +15,12 @@ import type { ExportJob } from './export-job.server';
 /** The bundled worker, from the project root (the server runs there: npm start, npm test). */
 export const EXPORT_WORKER_FILE = 'dist/workers/export-worker.mjs';
 
+/** What a worker receives: the job and an id it reports back when it starts. */
+export interface PooledJob {
+  id: number;
+  job: ExportJob;
+}
+
 export interface ExportPoolSettings {
   threads: number;
   maxQueue: number;
@@ -64,8 +70,6 @@ export function defaultPoolSettings(): ExportPoolSettings {
   };
 }
 
-const QUEUE_FULL = new Set(['Task queue is at limit', 'No task queue available and all Workers are busy']);
-
 export function createExportPool(settings: ExportPoolSettings = defaultPoolSettings()): ExportPool {
   if (!existsSync(settings.workerFile)) {
     throw new Error(`the export worker ${settings.workerFile} is missing: run \`npm run build\` (it bundles the worker)`);
@@ -74,26 +78,35 @@ export function createExportPool(settings: ExportPoolSettings = defaultPoolSetti
     filename: settings.workerFile,
     minThreads: 0,
     maxThreads: settings.threads,
-    maxQueue: settings.maxQueue,
     // Threads stay a while for the next job, then go: an idle server holds no PDF heap.
     idleTimeout: 30_000,
     resourceLimits: { maxOldGenerationSizeMb: settings.workerHeapMb },
   });
-  const counts = { inFlight: 0, completed: 0, failed: 0, cancelled: 0, timedOut: 0, rejected: 0 };
+  const counts = { completed: 0, failed: 0, cancelled: 0, timedOut: 0, rejected: 0 };
+  /** Jobs asked for and not settled, and those a worker has started. */
+  const inFlight = new Set<number>();
+  const started = new Set<number>();
+  let nextId = 1;
+  pool.on('message', (message: { exportStarted?: number }) => {
+    if (message.exportStarted !== undefined && inFlight.has(message.exportStarted)) started.add(message.exportStarted);
+  });
 
   async function run(job: ExportJob, signal?: AbortSignal): Promise<PoolOutcome> {
+    // The queue bound is kept here: piscina does not count jobs that carry an abort signal.
+    if (inFlight.size >= settings.threads + settings.maxQueue) {
+      counts.rejected++;
+      return { ok: false, reason: 'busy' };
+    }
     const timeout = AbortSignal.timeout(settings.jobTimeoutMs);
     const combined = signal ? AbortSignal.any([signal, timeout]) : timeout;
-    counts.inFlight++;
+    const id = nextId++;
+    inFlight.add(id);
     try {
-      const file = (await pool.run(job, { signal: combined })) as ExportFile;
+      const task: PooledJob = { id, job };
+      const file = (await pool.run(task, { signal: combined })) as ExportFile;
       counts.completed++;
       return { ok: true, file };
     } catch (error) {
-      if (error instanceof Error && QUEUE_FULL.has(error.message)) {
-        counts.rejected++;
-        return { ok: false, reason: 'busy' };
-      }
       if (error instanceof Error && error.name === 'AbortError') {
         if (timeout.aborted) {
           counts.timedOut++;
@@ -105,7 +118,8 @@ export function createExportPool(settings: ExportPoolSettings = defaultPoolSetti
       counts.failed++;
       return { ok: false, reason: 'failed', error };
     } finally {
-      counts.inFlight--;
+      inFlight.delete(id);
+      started.delete(id);
     }
   }
 
@@ -114,14 +128,10 @@ export function createExportPool(settings: ExportPoolSettings = defaultPoolSetti
     run,
     stats: () => ({
       threads: pool.threads.length,
-      inFlight: counts.inFlight,
-      queued: pool.queueSize,
-      running: Math.max(0, counts.inFlight - pool.queueSize),
-      completed: counts.completed,
-      failed: counts.failed,
-      cancelled: counts.cancelled,
-      timedOut: counts.timedOut,
-      rejected: counts.rejected,
+      inFlight: inFlight.size,
+      queued: inFlight.size - started.size,
+      running: started.size,
+      ...counts,
     }),
     onWorkerEnded: (listener) => {
       pool.on('workerDestroy', listener);
