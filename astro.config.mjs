@@ -2,11 +2,21 @@ import { defineConfig } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwind from '@astrojs/tailwind';
+import { bundleExportWorker } from './scripts/lib/export-worker-bundle.mjs';
+
+/** PDF exports run in worker threads that load their own bundle (scripts/lib/export-worker-bundle.mjs). */
+const exportWorker = {
+  name: 'kerfline-export-worker',
+  hooks: {
+    'astro:build:done': () => bundleExportWorker(),
+    'astro:server:setup': () => bundleExportWorker(),
+  },
+};
 
 export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'standalone' }),
-  integrations: [react(), tailwind()],
+  integrations: [react(), tailwind(), exportWorker],
   server: { host: '127.0.0.1', port: 4321 },
   // src/middleware.ts checks the Origin of every non-GET request (forms and JSON alike) against
   // APP_ORIGIN (src/lib/http/same-origin.ts). Astro's own check is off: behind an untrusted Host

@@ -2,6 +2,8 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
 const alias = { '~': fileURLToPath(new URL('./src', import.meta.url)) };
+/** Exports of PDFs run in worker threads that load dist/workers/export-worker.mjs. */
+const EXPORT_WORKER_SETUP = './tests/support/export-worker-setup.mjs';
 
 export default defineConfig({
   resolve: { alias },
@@ -10,6 +12,7 @@ export default defineConfig({
       { resolve: { alias }, test: {
           name: 'unit',
           include: ['tests/unit/**/*.test.{ts,tsx}'],
+          globalSetup: [EXPORT_WORKER_SETUP],
           environment: 'node',
           // Property tests run hundreds of cases; a busy 2-core machine needs headroom (not a speed goal).
           testTimeout: 60_000,
@@ -20,6 +23,7 @@ export default defineConfig({
         test: {
           name: 'integration',
           include: ['tests/integration/**/*.test.ts'],
+          globalSetup: [EXPORT_WORKER_SETUP],
           // One real MariaDB; some tests stop and restart it, so files run one at a time.
           pool: 'forks',
           poolOptions: { forks: { singleFork: true } },

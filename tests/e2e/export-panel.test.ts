@@ -53,6 +53,46 @@ describe('Export a design page in Chromium (built server)', () => {
   });
 });
 
+describe('Export panel messages next to the download buttons (Chromium, built server)', () => {
+  const largest = { ...sevenStringFan, name: 'Largest board', strings: 16, frets: 36, scale: { treble: 5000, bass: 5000 }, perpendicularFret: 0, stringSpacing: { nut: 5000, bridge: 5000 }, markers: [] };
+  const problem = (status: number, body: unknown, headers: Record<string, string> = {}) => ({
+    status,
+    headers: { 'content-type': 'application/json; charset=utf-8', ...headers },
+    body: JSON.stringify(body),
+  });
+
+  it('says which option to change for a template over the page cap (the server\'s 422), when to retry when busy, and the error id of a server error', async () => {
+    const page = await browser.newPage();
+    await page.goto(`${BASE_URL}/export`, { waitUntil: 'networkidle' });
+    await page.getByLabel('Design as JSON').fill(JSON.stringify(largest));
+    await page.getByLabel('Overlap between pages (mm)').fill('99.9');
+    const pdfButton = page.getByRole('button', { name: 'Download Paper template (PDF)' });
+    const status = page.getByRole('status');
+
+    await pdfButton.click();
+    await status.getByText(/^Too large:/).waitFor();
+    await expect(status.textContent()).resolves.toMatch(
+      /^Too large: this paper template would print 2,\d{3} pages; the most is 200: use a larger paper, less overlap or paper "fit"$/,
+    );
+    await saveScreenshot(page, 'export-panel-too-large');
+
+    // A full export queue and an unexpected failure, as the server answers them (src/lib/export/worker/run-export.server.ts).
+    await page.route('**/api/export?*', (route) =>
+      route.fulfill(problem(503, { error: 'The export queue is full: try again in 7 s.', retryAfter: 7 }, { 'retry-after': '7' })),
+    );
+    await pdfButton.click();
+    await status.getByText('The server is busy: try again in 7 s.').waitFor();
+
+    await page.unroute('**/api/export?*');
+    await page.route('**/api/export?*', (route) =>
+      route.fulfill(problem(500, { error: 'The export failed on the server: try again.', errorId: '0a1b2c3d4e5f' })),
+    );
+    await pdfButton.click();
+    await status.getByText('The export failed on the server: try again (error id 0a1b2c3d4e5f).').waitFor();
+    await page.close();
+  });
+});
+
 describe('POST /api/export on the built server', () => {
   const post = (query: string, body: unknown, origin = BASE_URL) =>
     fetch(`${BASE_URL}/api/export${query}`, {

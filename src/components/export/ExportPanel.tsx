@@ -4,7 +4,8 @@
  */
 import { useMemo, useState } from 'react';
 import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note';
-import { PAPER_LABELS, PAPER_NAMES } from '~/lib/export/paper-sizes';
+import { EXPORT_LIMITS } from '~/lib/export/export-limits';
+import { PAPER_LABELS, PAPER_NAMES, ptToMm } from '~/lib/export/paper-sizes';
 import { sheetDrawing } from '~/lib/export/sheet-drawing';
 import { planTiles } from '~/lib/export/tile-pages';
 import { computeLayout } from '~/lib/geometry/layout';
@@ -17,6 +18,7 @@ import {
   validateExportOptions,
   type ExportFormat,
 } from '~/lib/schemas/export-options';
+import { exportFailureMessage, type ExportProblem } from './export-failure';
 import { TilingPreview } from './TilingPreview';
 
 interface Props {
@@ -98,8 +100,8 @@ export default function ExportPanel({ design }: Props) {
         body: JSON.stringify(design),
       });
       if (!response.ok) {
-        const problem = (await response.json().catch(() => ({}))) as { error?: string };
-        setStatus({ state: 'error', message: problem.error ?? `The export failed (${response.status}).` });
+        const problem = (await response.json().catch(() => ({}))) as ExportProblem;
+        setStatus({ state: 'error', message: exportFailureMessage(response.status, problem, response.headers.get('retry-after')) });
         return;
       }
       const blob = await response.blob();
@@ -166,7 +168,8 @@ export default function ExportPanel({ design }: Props) {
             step={1}
             value={form.overlap}
             onChange={(e) => set('overlap', e.target.value)}
-            disabled={form.paper === 'fit'}
+            // A board longer than the largest PDF page tiles even on `fit`, with this overlap.
+            disabled={form.paper === 'fit' && (plan?.tiles.length ?? 1) === 1}
             aria-invalid={errors.has('overlap')}
             aria-describedby={errors.has('overlap') ? 'export-overlap-error' : undefined}
           />
@@ -194,9 +197,16 @@ export default function ExportPanel({ design }: Props) {
             <p className="text-sm text-ink-soft" aria-live="polite">
               {plan.tiles.length} page{plan.tiles.length === 1 ? '' : 's'}
               {plan.paper === 'fit'
-                ? ', one sheet sized to the board'
+                ? plan.tiles.length === 1
+                  ? ', one sheet sized to the board'
+                  : `, sheets sized to the board (${plan.rows} × ${plan.columns}; a PDF page is at most ${Math.round(ptToMm(EXPORT_LIMITS.maxPageSidePt))} mm long)`
                 : ` (${plan.rows} row${plan.rows === 1 ? '' : 's'} × ${plan.columns} column${plan.columns === 1 ? '' : 's'}), ${PAPER_LABELS[plan.paper]} ${plan.orientation}`}
             </p>
+            {plan.tiles.length > EXPORT_LIMITS.maxPages && (
+              <p className="text-sm text-rosewood">
+                More than the {EXPORT_LIMITS.maxPages} pages a paper template may have: use a larger paper, less overlap or the sheet sized to the board.
+              </p>
+            )}
           </>
         ) : (
           <p className="text-sm text-rosewood">Fix the options above to see the pages.</p>

@@ -3,15 +3,22 @@ import { readJson } from '~/lib/http/body.server';
 import { invalid, problem } from '~/lib/http/problem';
 import { validateDesign } from '~/lib/schemas/design';
 import { validateExportOptions } from '~/lib/schemas/export-options';
-import { exportDesign } from './export-design.server';
-import { attachmentHeader } from './file-name';
+import { answerOrServerError } from '~/lib/http/server-error.server';
+import { designExportResponse } from './design-export.server';
+import type { ExportPool } from './worker/export-pool.server';
 
 /**
  * POST /api/export?format=pdf|dxf|svg|csv|json&paper=...: a design as JSON in (saved or not), the
  * file out as an attachment. Public like /api/layout: it stores and reads nothing. Options come
- * from the query string; a bad option is a 400 naming it, a bad design the geometry's 400.
+ * from the query string; a bad option is a 400 naming it, a bad design the geometry's 400, an
+ * export over a cap a 422 naming the option to change (docs/exports.md, "Limits").
+ * `pool` is for tests; the server's own pool by default.
  */
-export async function handleExportRequest(request: Request): Promise<Response> {
+export function handleExportRequest(request: Request, pool?: ExportPool): Promise<Response> {
+  return answerOrServerError('The export', () => answerExport(request, pool));
+}
+
+async function answerExport(request: Request, pool: ExportPool | undefined): Promise<Response> {
   if (request.method !== 'POST') {
     return problem(405, 'Use POST with a design as JSON', {}, { allow: 'POST' });
   }
@@ -22,14 +29,5 @@ export async function handleExportRequest(request: Request): Promise<Response> {
   if (!body.ok) return body.response;
   const design = validateDesign(body.value);
   if (!design.ok) return invalid(design.issues);
-  const file = await exportDesign(design.design, options.options);
-  return new Response(new Uint8Array(file.bytes), {
-    status: 200,
-    headers: {
-      'content-type': file.contentType,
-      'content-disposition': attachmentHeader(file.filename),
-      'content-length': String(file.bytes.byteLength),
-      'cache-control': 'no-store',
-    },
-  });
+  return designExportResponse(design.design, options.options, {}, request.signal, pool);
 }

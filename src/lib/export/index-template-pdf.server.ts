@@ -5,33 +5,16 @@
  */
 import { PDFDocument, degrees, rgb, type PDFPage } from 'pdf-lib';
 import type { Point } from '~/lib/geometry/plane';
-import { PT_PER_MM, ptPerUnit } from './paper-sizes';
 import { CALIBRATION_BARS_TOP_PT, drawCalibrationBars, embedMonoFont, FAINT, INK } from './pdf-kit.server';
 import { PRINT_CAUTION } from './safety-note';
 import type { IndexTemplateStrip } from './index-template';
-
-const MARGIN_PT = 15 * PT_PER_MM;
-const HEADER_PT = 68 * PT_PER_MM;
-const MIN_WIDTH_PT = 200 * PT_PER_MM;
-
-/** Where board point (0, 0) lands on the page and how many points one design unit is. */
-export interface StripPlacement {
-  originX: number;
-  originY: number;
-  scale: number;
-}
+import { indexTemplatePage, STRIP_PAGE_PT, type StripPlacement } from './index-template-page';
 
 export async function indexTemplatePdf(strip: IndexTemplateStrip): Promise<{ bytes: Uint8Array; placement: StripPlacement; pageSize: [number, number] }> {
-  const scale = ptPerUnit(strip.units);
-  const xs = strip.outline.map((p) => p.x);
-  const ys = strip.outline.map((p) => p.y);
-  const minX = Math.min(...xs);
-  const maxY = Math.max(...ys);
-  const stripWidthPt = (Math.max(...xs) - minX) * scale;
-  const stripHeightPt = (maxY - Math.min(...ys)) * scale;
-  const width = Math.max(stripWidthPt + 2 * MARGIN_PT, MIN_WIDTH_PT);
-  const height = stripHeightPt + 2 * MARGIN_PT + HEADER_PT;
-  const placement: StripPlacement = { originX: MARGIN_PT - minX * scale, originY: MARGIN_PT + maxY * scale, scale };
+  const { pageSize, placement } = indexTemplatePage(strip);
+  const [width, height] = pageSize;
+  const { scale } = placement;
+  const margin = STRIP_PAGE_PT.margin;
   const at = (p: Point) => ({ x: placement.originX + p.x * scale, y: placement.originY - p.y * scale });
 
   const doc = await PDFDocument.create();
@@ -62,15 +45,15 @@ export async function indexTemplatePdf(strip: IndexTemplateStrip): Promise<{ byt
     page.drawText(text.text, { x: midX, y: midY, size, font, color: INK, rotate: degrees((angle * 180) / Math.PI) });
   }
 
-  let line = height - MARGIN_PT;
+  let line = height - margin;
   const write = (text: string, size: number, color = INK) => {
     line -= size * 1.5;
-    page.drawText(text, { x: MARGIN_PT, y: line, size, font, color });
+    page.drawText(text, { x: margin, y: line, size, font, color });
   };
   write(`Index template: ${strip.name}`, 11);
   write(PRINT_CAUTION, 9);
   for (const note of strip.notes) write(note, 7, FAINT);
-  drawCalibrationBars(page, font, { x: MARGIN_PT, y: line - 10 - CALIBRATION_BARS_TOP_PT });
+  drawCalibrationBars(page, font, { x: margin, y: line - 10 - CALIBRATION_BARS_TOP_PT });
 
-  return { bytes: await doc.save(), placement, pageSize: [width, height] };
+  return { bytes: await doc.save(), placement, pageSize };
 }

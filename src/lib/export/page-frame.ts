@@ -3,7 +3,8 @@
  * print into, a header (caution, page label, page map) and a footer (calibration bars, title
  * block). What is left is the drawing window, where the board is drawn 1:1.
  */
-import { PAPER_SIZES, ptToMm, type SheetPaperName } from './paper-sizes';
+import { EXPORT_LIMITS } from './export-limits';
+import { PAPER_SIZES, ptToMm, type PaperName, type SheetPaperName } from './paper-sizes';
 
 export const PAGE_FRAME_MM = {
   /** Unprinted edge on every side; 8 mm suits common office printers (common practice). */
@@ -35,11 +36,20 @@ export function pageSizeMm(paper: SheetPaperName, orientation: 'portrait' | 'lan
   return orientation === 'portrait' ? [width, height] : [height, width];
 }
 
+/** The largest drawing window of a `fit` page: the page at EXPORT_LIMITS.maxPageSidePt a side. */
+export function fitWindowLimit(): WindowSize {
+  const side = ptToMm(EXPORT_LIMITS.maxPageSidePt);
+  return {
+    widthMm: side - 2 * PAGE_FRAME_MM.margin,
+    heightMm: side - 2 * PAGE_FRAME_MM.margin - PAGE_FRAME_MM.header - PAGE_FRAME_MM.footer,
+  };
+}
+
 /**
  * The largest overlap allowed on `paper`: under half the window's shorter side, so every page
- * still adds new board to the stack.
+ * still adds new board to the stack (for `fit`, the largest window's).
  */
-export function maxOverlapMm(paper: SheetPaperName): number {
-  const window = drawingWindow(paper, 'portrait');
+export function maxOverlapMm(paper: PaperName): number {
+  const window = paper === 'fit' ? fitWindowLimit() : drawingWindow(paper, 'portrait');
   return Math.min(window.widthMm, window.heightMm) / 2;
 }

@@ -203,10 +203,11 @@ function drawHeader(page: PDFPage, font: PDFFont, plan: TilePlan, tile: Tile, ou
   const top = plan.pageHeightPt - mmToPt(margin);
   const left = mmToPt(margin);
   page.drawText(PRINT_CAUTION, { x: left, y: top - mmToPt(4.5), size: 10, font, color: rgb(...CAUTION) });
+  // A `fit` board too large for one PDF page is on several sheets, each sized to its part.
+  const sheets = plan.paper === 'fit' ? 'sheets sized to the board' : `${PAPER_LABELS[plan.paper]} ${plan.orientation}`;
   const pageLabel =
     plan.tiles.length > 1
-      ? `Page ${tile.index + 1} of ${plan.tiles.length} · row ${tile.row}, column ${tile.column} · ` +
-        `${PAPER_LABELS[plan.paper]} ${plan.orientation} · overlap ${plan.overlapMm} mm`
+      ? `Page ${tile.index + 1} of ${plan.tiles.length} · row ${tile.row}, column ${tile.column} · ${sheets} · overlap ${plan.overlapMm} mm`
       : `Page 1 of 1 · ${PAPER_LABELS[plan.paper]} ${plan.paper === 'fit' ? '' : plan.orientation}`.trim();
   page.drawText(pageLabel, { x: left, y: top - mmToPt(10), size: 7, font });
   if (plan.tiles.length > 1) {

@@ -7,7 +7,8 @@
  * +y up the page (the board's bass side, or its treble side when mirrored).
  */
 import type { ExportOptions } from '~/lib/schemas/export-options';
-import { drawingWindow, PAGE_FRAME_MM } from './page-frame';
+import { EXPORT_LIMITS } from './export-limits';
+import { drawingWindow, fitWindowLimit, PAGE_FRAME_MM } from './page-frame';
 import { PAPER_SIZES, mmToPt, type PaperName, type SheetPaperName } from './paper-sizes';
 
 export interface Box {
@@ -54,13 +55,15 @@ export const DRAWING_PAD_MM = 4;
 /**
  * Plans the pages for a drawing with extent `bounds` (sheet mm).
  * Sheets: tiles of the window size step by (window - overlap); orientation `auto` takes the one
- * needing fewer pages (landscape on a tie, as boards are long). `fit`: one page around the drawing.
+ * needing fewer pages (landscape on a tie, as boards are long). `fit`: one page around the drawing,
+ * or, when that page would be longer than a PDF page may be (EXPORT_LIMITS.maxPageSidePt), equal
+ * pages no larger than that, overlapping by `overlap`.
  */
 export function planTiles(
   bounds: Box,
   options: Pick<ExportOptions, 'paper' | 'orientation' | 'overlap'>,
 ): TilePlan {
-  if (options.paper === 'fit') return fitPlan(bounds);
+  if (options.paper === 'fit') return fitPlan(bounds, options.overlap);
   const paper = options.paper;
   const candidates: Orientation[] =
     options.orientation === 'auto' ? ['landscape', 'portrait'] : [options.orientation];
@@ -74,11 +77,57 @@ function sheetPlan(bounds: Box, paper: SheetPaperName, orientation: Orientation,
     orientation === 'portrait' ? [size.widthPt, size.heightPt] : [size.heightPt, size.widthPt];
   const window = drawingWindow(paper, orientation);
   const span = padded(bounds);
+  const columns = Math.max(1, Math.ceil((span.maxX - span.minX - overlapMm) / (window.widthMm - overlapMm)));
+  const rows = Math.max(1, Math.ceil((span.maxY - span.minY - overlapMm) / (window.heightMm - overlapMm)));
+  return gridPlan({ paper, orientation, pageWidthPt, pageHeightPt, window, overlapMm, rows, columns, bounds });
+}
+
+/**
+ * `fit`: the drawing's own size plus the page furniture. A drawing longer or wider than the
+ * largest window splits into the fewest equal windows, each just large enough, overlapping by
+ * `overlapMm`.
+ */
+function fitPlan(bounds: Box, overlapMm: number): TilePlan {
+  const span = padded(bounds);
+  const frame = PAGE_FRAME_MM;
+  const limit = fitWindowLimit();
+  const drawnWidth = span.maxX - span.minX;
+  const drawnHeight = span.maxY - span.minY;
+  const count = (drawn: number, most: number) => (drawn <= most ? 1 : Math.ceil((drawn - overlapMm) / (most - overlapMm)));
+  const columns = count(drawnWidth, limit.widthMm);
+  const rows = count(drawnHeight, limit.heightMm);
+  // n windows of size w overlapping by o cover n (w - o) + o.
+  const window = {
+    widthMm: Math.max((drawnWidth - overlapMm) / columns + overlapMm, frame.minWidth),
+    heightMm: (drawnHeight - overlapMm) / rows + overlapMm,
+  };
+  const pageWidthMm = window.widthMm + 2 * frame.margin;
+  const pageHeightMm = window.heightMm + 2 * frame.margin + frame.header + frame.footer;
+  // Rounding in the mm-to-pt conversion must not push a page past the limit.
+  const side = (mm: number) => Math.min(mmToPt(mm), EXPORT_LIMITS.maxPageSidePt);
+  return gridPlan({
+    paper: 'fit',
+    orientation: pageWidthMm >= pageHeightMm ? 'landscape' : 'portrait',
+    pageWidthPt: side(pageWidthMm),
+    pageHeightPt: side(pageHeightMm),
+    window,
+    overlapMm: rows * columns > 1 ? overlapMm : 0,
+    rows,
+    columns,
+    bounds,
+  });
+}
+
+interface GridSpec extends Pick<TilePlan, 'paper' | 'orientation' | 'pageWidthPt' | 'pageHeightPt' | 'overlapMm' | 'rows' | 'columns' | 'bounds'> {
+  window: { widthMm: number; heightMm: number };
+}
+
+/** Rows x columns of windows stepping by (window - overlap), the grid centred over the drawing. */
+function gridPlan(spec: GridSpec): TilePlan {
+  const { window, overlapMm, rows, columns } = spec;
+  const span = padded(spec.bounds);
   const stepX = window.widthMm - overlapMm;
   const stepY = window.heightMm - overlapMm;
-  const columns = Math.max(1, Math.ceil((span.maxX - span.minX - overlapMm) / stepX));
-  const rows = Math.max(1, Math.ceil((span.maxY - span.minY - overlapMm) / stepY));
-  // Centre the grid of windows over the drawing.
   const coveredX = columns * stepX + overlapMm;
   const coveredY = rows * stepY + overlapMm;
   const left = span.minX - (coveredX - (span.maxX - span.minX)) / 2;
@@ -96,40 +145,10 @@ function sheetPlan(bounds: Box, paper: SheetPaperName, orientation: Orientation,
     }
   }
   return {
-    paper,
-    orientation,
-    pageWidthPt,
-    pageHeightPt,
+    ...spec,
     window: { xMm: PAGE_FRAME_MM.margin, yMm: PAGE_FRAME_MM.margin + PAGE_FRAME_MM.footer, ...window },
-    overlapMm,
-    rows,
-    columns,
     tiles,
-    bounds,
     marks: alignmentMarks(tiles, rows, columns, window.widthMm, window.heightMm, overlapMm),
-  };
-}
-
-function fitPlan(bounds: Box): TilePlan {
-  const span = padded(bounds);
-  const frame = PAGE_FRAME_MM;
-  const widthMm = Math.max(span.maxX - span.minX, frame.minWidth);
-  const heightMm = span.maxY - span.minY;
-  const x0 = span.minX - (widthMm - (span.maxX - span.minX)) / 2;
-  const pageWidthMm = widthMm + 2 * frame.margin;
-  const pageHeightMm = heightMm + 2 * frame.margin + frame.header + frame.footer;
-  return {
-    paper: 'fit',
-    orientation: pageWidthMm >= pageHeightMm ? 'landscape' : 'portrait',
-    pageWidthPt: mmToPt(pageWidthMm),
-    pageHeightPt: mmToPt(pageHeightMm),
-    window: { xMm: frame.margin, yMm: frame.margin + frame.footer, widthMm, heightMm },
-    overlapMm: 0,
-    rows: 1,
-    columns: 1,
-    tiles: [{ index: 0, row: 1, column: 1, x0, y0: span.minY }],
-    bounds,
-    marks: [],
   };
 }
 

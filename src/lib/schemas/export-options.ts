@@ -45,7 +45,7 @@ export const exportOptionsSchema = z
     paper: choice(PAPER_NAMES).default('letter'),
     /** `auto` picks the orientation that needs the fewest pages. */
     orientation: choice(ORIENTATIONS).default('auto'),
-    /** Overlap between neighbouring tiled pages, in millimetres. */
+    /** Overlap between neighbouring tiled pages, in millimetres (also `fit` pages, when a board needs more than one). */
     overlap: z
       .preprocess(
         numberFromText,
@@ -68,7 +68,6 @@ export const exportOptionsSchema = z
   })
   .strict()
   .superRefine((options, ctx) => {
-    if (options.paper === 'fit') return;
     const limit = maxOverlapMm(options.paper);
     if (options.overlap >= limit) {
       ctx.addIssue({

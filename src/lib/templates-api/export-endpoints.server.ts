@@ -2,17 +2,22 @@
  * GET /api/templates/{id}/label?size=... (label PDF) and
  * GET /api/templates/{id}/index-template?format=dxf|pdf (the strip to cut the template from; a
  * typed fanned template also takes nutSpacing, saddleSpacing and perpendicularFret).
+ * The PDFs are built in the export worker pool; a strip too large for one PDF page is a 422.
  */
 import type { SessionUser } from '~/lib/auth/index.server';
 import { config } from '~/lib/config/env.server';
 import { db } from '~/lib/db/client.server';
 import { templateDesign } from '~/lib/db/templates.server';
+import { tooLarge } from '~/lib/export/design-export.server';
+import { indexTemplateCost, labelCost, refuseOverCap } from '~/lib/export/export-cost';
 import { indexTemplateStrip } from '~/lib/export/index-template';
 import { indexTemplateDxf } from '~/lib/export/index-template-dxf';
-import { LABEL_SIZES, labelSize, templateLabelPdf } from '~/lib/export/index-template-label.server';
-import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server';
+import { LABEL_SIZES, labelSize } from '~/lib/export/index-template-label.server';
+import { indexTemplatePage } from '~/lib/export/index-template-page';
 import { pdfResponse } from '~/lib/export/pdf-kit.server';
+import { runExport } from '~/lib/export/worker/run-export.server';
 import { invalid, problem, zodIssues } from '~/lib/http/problem';
+import { answerOrServerError } from '~/lib/http/server-error.server';
 import type { Design } from '~/lib/schemas/design';
 import { FAN_GEOMETRY_LABELS, fanGeometrySchema, type TemplateView } from '~/lib/schemas/template';
 import { fannedStandInDesign } from '~/lib/template-check/template-design';
@@ -24,18 +29,29 @@ function fileStem(name: string, id: number): string {
   return stem ? `${stem}-${id}` : `template-${id}`;
 }
 
-export async function labelRoute(user: SessionUser | null, id: string | undefined, url: URL): Promise<Response> {
+export function labelRoute(user: SessionUser | null, id: string | undefined, url: URL, signal?: AbortSignal): Promise<Response> {
+  return answerOrServerError('The label', () => label(user, id, url, signal));
+}
+
+async function label(user: SessionUser | null, id: string | undefined, url: URL, signal: AbortSignal | undefined): Promise<Response> {
   const found = await shelfTemplate(user, id);
   if (!found.ok) return found.response;
   const sizeId = url.searchParams.get('size') ?? '89x36';
   const size = labelSize(sizeId);
   if (!size) return problem(400, `size must be one of: ${LABEL_SIZES.map((s) => s.id).join(', ')}`, { field: 'size' });
+  const refusal = refuseOverCap(labelCost(size), 'this label', 'size', 'choose a smaller size');
+  if (refusal) return tooLarge(refusal);
   const { template } = found.value;
-  const bytes = await templateLabelPdf({ ...template, url: `${config().appOrigin}/templates/${template.id}` }, size);
-  return pdfResponse(bytes, `${fileStem(template.name, template.id)}-label-${size.id}.pdf`);
+  const content = { ...template, url: `${config().appOrigin}/templates/${template.id}` };
+  const run = await runExport({ kind: 'label', content, size, filename: `${fileStem(template.name, template.id)}-label-${size.id}.pdf` }, signal);
+  return run.ok ? pdfResponse(run.file.bytes, run.file.filename) : run.response;
 }
 
-export async function indexTemplateRoute(user: SessionUser | null, id: string | undefined, url: URL): Promise<Response> {
+export function indexTemplateRoute(user: SessionUser | null, id: string | undefined, url: URL, signal?: AbortSignal): Promise<Response> {
+  return answerOrServerError('The index template', () => indexTemplate(user, id, url, signal));
+}
+
+async function indexTemplate(user: SessionUser | null, id: string | undefined, url: URL, signal: AbortSignal | undefined): Promise<Response> {
   const found = await shelfTemplate(user, id);
   if (!found.ok) return found.response;
   const format = url.searchParams.get('format') ?? 'pdf';
@@ -45,6 +61,9 @@ export async function indexTemplateRoute(user: SessionUser | null, id: string | 
   if (!design.ok) return design.response;
   const strip = indexTemplateStrip(design.value, template.keyWidth);
   const stem = `${fileStem(template.name, template.id)}-index-template`;
+  const cost = indexTemplateCost(strip, format === 'pdf' ? indexTemplatePage(strip).pageSize : null);
+  const refusal = refuseOverCap(cost, 'this index template', 'format', 'use format=dxf, which has no page size');
+  if (refusal) return tooLarge(refusal);
   if (format === 'dxf') {
     return new Response(indexTemplateDxf(strip), {
       status: 200,
@@ -55,8 +74,8 @@ export async function indexTemplateRoute(user: SessionUser | null, id: string | 
       },
     });
   }
-  const pdf = await indexTemplatePdf(strip);
-  return pdfResponse(pdf.bytes, `${stem}.pdf`);
+  const run = await runExport({ kind: 'index-template', strip, filename: `${stem}.pdf` }, signal);
+  return run.ok ? pdfResponse(run.file.bytes, run.file.filename) : run.response;
 }
 
 const FAN_FIELDS = Object.keys(FAN_GEOMETRY_LABELS) as (keyof typeof FAN_GEOMETRY_LABELS)[];

@@ -1,4 +1,4 @@
-import { mkdtempSync, readFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -98,5 +98,16 @@ describe('kerfline layout --format ... --out', () => {
     expect(bad.code).toBe(2);
     expect(bad.stderr).toContain('--paper');
     expect((await run(['layout', design, '--format', 'pdf'])).code).toBe(2);
+  });
+
+  it('refuses a paper template over the page cap (exit 2) naming --paper, and writes nothing', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'kerfline-cli-'));
+    const largest = join(dir, 'largest.json');
+    const spacing = { nut: 5000, bridge: 5000 };
+    writeFileSync(largest, JSON.stringify({ ...sevenStringFan, strings: 16, frets: 36, scale: { treble: 5000, bass: 5000 }, perpendicularFret: 0, stringSpacing: spacing, markers: [] }));
+    const refused = await run(['layout', largest, '--format', 'pdf', '--paper', 'letter', '--overlap', '99.9', '--out', join(dir, 't.pdf')]);
+    expect(refused.code).toBe(2);
+    expect(refused.stderr).toMatch(/^kerfline: --paper: this paper template would print 2,\d{3} pages; the most is 200: /);
+    expect(existsSync(join(dir, 't.pdf'))).toBe(false);
   });
 });

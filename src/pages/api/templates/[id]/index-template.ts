@@ -3,4 +3,4 @@ import { indexTemplateRoute } from '~/lib/templates-api/export-endpoints.server'
 
 export const prerender = false;
 
-export const GET: APIRoute = ({ locals, params, url }) => indexTemplateRoute(locals.user, params.id, url);
+export const GET: APIRoute = ({ locals, params, url, request }) => indexTemplateRoute(locals.user, params.id, url, request.signal);

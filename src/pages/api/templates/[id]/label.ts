@@ -3,4 +3,4 @@ import { labelRoute } from '~/lib/templates-api/export-endpoints.server';
 
 export const prerender = false;
 
-export const GET: APIRoute = ({ locals, params, url }) => labelRoute(locals.user, params.id, url);
+export const GET: APIRoute = ({ locals, params, url, request }) => labelRoute(locals.user, params.id, url, request.signal);

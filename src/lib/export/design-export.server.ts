@@ -1,0 +1,50 @@
+/**
+ * A design's export as the HTTP answer, for POST /api/export and a saved board's
+ * GET /api/designs/{id}/export: refused with 422 naming the option to change when it would pass
+ * a cap (export-cost.ts), the paper template built in the worker pool, text formats (a few ms at
+ * most) built here.
+ */
+import { computeLayout } from '~/lib/geometry/layout';
+import { problem } from '~/lib/http/problem';
+import type { Design } from '~/lib/schemas/design';
+import type { ExportOptions } from '~/lib/schemas/export-options';
+import { layoutExportRefusal, type ExportRefusal } from './export-cost';
+import { exportDesign, type ExportContext, type ExportFile } from './export-design.server';
+import { TOO_LARGE_STATUS } from './export-limits';
+import { attachmentHeader } from './file-name';
+import type { ExportPool } from './worker/export-pool.server';
+import { runExport } from './worker/run-export.server';
+
+/** 422 in the problem shape, `field` naming the option to change. */
+export function tooLarge(refusal: ExportRefusal): Response {
+  return problem(TOO_LARGE_STATUS, refusal.message, { field: refusal.field, issues: [{ path: refusal.field, message: refusal.message }] });
+}
+
+/** `signal` is the request's: a client that hangs up cancels the job. `pool` is for tests. */
+export async function designExportResponse(
+  design: Design,
+  options: ExportOptions,
+  context: ExportContext,
+  signal: AbortSignal | undefined,
+  pool?: ExportPool,
+): Promise<Response> {
+  const refusal = layoutExportRefusal(computeLayout(design), options);
+  if (refusal) return tooLarge(refusal);
+  let file: ExportFile;
+  if (options.format === 'pdf') {
+    const run = await runExport({ kind: 'design', design, options, context }, signal, pool);
+    if (!run.ok) return run.response;
+    file = run.file;
+  } else {
+    file = await exportDesign(design, options, context);
+  }
+  return new Response(new Uint8Array(file.bytes), {
+    status: 200,
+    headers: {
+      'content-type': file.contentType,
+      'content-disposition': attachmentHeader(file.filename),
+      'content-length': String(file.bytes.byteLength),
+      'cache-control': 'no-store',
+    },
+  });
+}

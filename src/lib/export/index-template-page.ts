@@ -1,0 +1,33 @@
+/**
+ * The page the index template strip PDF is drawn on: the strip 1:1 with a margin, a header for
+ * the caution and notes, at least wide enough for the calibration bars. Pure, so the export's
+ * cost is known before the PDF is built.
+ */
+import { PT_PER_MM, ptPerUnit } from './paper-sizes';
+import type { IndexTemplateStrip } from './index-template';
+
+export const STRIP_PAGE_PT = {
+  margin: 15 * PT_PER_MM,
+  header: 68 * PT_PER_MM,
+  minWidth: 200 * PT_PER_MM,
+} as const;
+
+/** Where board point (0, 0) lands on the page and how many points one design unit is. */
+export interface StripPlacement {
+  originX: number;
+  originY: number;
+  scale: number;
+}
+
+/** Page size (pt, width then height) and placement of `strip`; board y (bass side) runs down the page. */
+export function indexTemplatePage(strip: IndexTemplateStrip): { pageSize: [number, number]; placement: StripPlacement } {
+  const scale = ptPerUnit(strip.units);
+  const xs = strip.outline.map((p) => p.x);
+  const ys = strip.outline.map((p) => p.y);
+  const minX = Math.min(...xs);
+  const maxY = Math.max(...ys);
+  const { margin, header, minWidth } = STRIP_PAGE_PT;
+  const width = Math.max((Math.max(...xs) - minX) * scale + 2 * margin, minWidth);
+  const height = (maxY - Math.min(...ys)) * scale + 2 * margin + header;
+  return { pageSize: [width, height], placement: { originX: margin - minX * scale, originY: margin + maxY * scale, scale } };
+}
