@@ -47,7 +47,7 @@ async function expectOk(target: Target): Promise<void> {
   if (!response.ok) throw new Error(`${target.label} answered ${response.status}: ${(await response.text()).slice(0, 300)}`);
 }
 
-const design = readFileSync('fixtures/designs/seven-string-fan.json', 'utf8');
+const design = readFileSync('src/lib/boards/demo/seven-string-fan.json', 'utf8');
 const version: Target = { label: 'GET /api/version', path: '/api/version', method: 'GET' };
 const layout: Target = {
   label: 'POST /api/layout',

@@ -4,7 +4,7 @@
  * Run with `npm run bench` (or `npx tsx bench/export.ts`).
  */
 import { exportDesign } from '~/lib/export/export-design.server';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options';
 
 const RUNS = 25;

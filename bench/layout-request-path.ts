@@ -17,7 +17,7 @@ const BATCHES = 31;
 const BATCH_SIZE = 200;
 const WARM_UP = 1000;
 
-const text = readFileSync('fixtures/designs/seven-string-fan.json', 'utf8');
+const text = readFileSync('src/lib/boards/demo/seven-string-fan.json', 'utf8');
 const request = () => new Request('http://127.0.0.1/api/layout', { method: 'POST', headers: { 'content-type': 'application/json' }, body: text });
 const validation = validateDesign(JSON.parse(text));
 if (!validation.ok) throw new Error('the demo design does not validate');

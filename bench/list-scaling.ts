@@ -11,7 +11,7 @@ import { newToken, sha256Hex, SESSION_COOKIE } from '~/lib/auth/index.server.ts'
 import { closeDb, db } from '~/lib/db/client.server.ts';
 import { newUserId } from '~/lib/db/ids.server.ts';
 import { designs, sessions, shops, users } from '~/lib/db/schema.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { INSTRUMENT_TYPES } from '~/lib/schemas/board.ts';
 import { baseUrl, reportFigure } from './lib/figure.ts';
 

@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # npm test: installs what it needs, starts a throwaway MariaDB and fake SMTP on free loopback
 # ports (never the start command's data), then runs type checks, unit and integration tests,
-# builds the app and runs the browser tests against the built server. Always tears down.
+# the import-boundary lint, builds the app and runs the browser tests against the built server.
+# Always tears down.
 # The last line is "N passed, N failed" over all suites.
 # `npm test -- FILE...` runs only the test files whose paths contain one of the words (the same
 # stack, no type check): a quick loop while working on one feature.
@@ -27,8 +28,14 @@ start_throwaway_services \
 only=("$@")
 if [ ${#only[@]} -gt 0 ]; then
   say "only test files matching: ${only[*]} (type check skipped)"
-elif say "type check (astro check)"; npx astro check >"$results/astro-check.log" 2>&1; then echo pass >"$results/astro-check.status"
-else cat "$results/astro-check.log" | tail -n 60; echo fail >"$results/astro-check.status"; fi
+else
+  say "type check (astro check)"
+  if npx astro check >"$results/astro-check.log" 2>&1; then echo pass >"$results/astro-check.status"
+  else tail -n 60 "$results/astro-check.log"; echo fail >"$results/astro-check.status"; fi
+  say "lint: import boundaries (eslint)"
+  if npx eslint . >"$results/lint.log" 2>&1; then echo pass >"$results/lint.status"
+  else tail -n 60 "$results/lint.log"; echo fail >"$results/lint.status"; fi
+fi
 
 say "unit and integration tests"
 npx vitest run --project unit --project integration --passWithNoTests "${only[@]}" \

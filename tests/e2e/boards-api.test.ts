@@ -1,7 +1,7 @@
 import mysql from 'mysql2/promise';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { config } from '~/lib/config/env.server.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail, BoardList, BoardRevision } from '~/lib/schemas/board.ts';
 import { BASE_URL } from '../support/browser.ts';
 import { holdNextRevision, waitForLockWait } from '../support/revision-lock.ts';

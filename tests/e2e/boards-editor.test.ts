@@ -6,7 +6,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
 import { typeFannedSevenString, waitUntilFannedSevenStringKept } from '../support/editor-form.ts';

@@ -3,7 +3,7 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
 import { pageText, readPdf } from '../support/pdf-readback.ts';
-import sevenStringFan from '../../fixtures/designs/seven-string-fan.json';
+import sevenStringFan from '../../src/lib/boards/demo/seven-string-fan.json';
 
 let browser: Browser;
 beforeAll(async () => {

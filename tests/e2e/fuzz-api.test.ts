@@ -25,7 +25,7 @@ import { closeDb, db } from '../support/test-db.ts';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 200);
 const SIGNED_IN_RUNS = Number(process.env.FUZZ_SIGNED_IN_RUNS ?? 30);
-const DESIGN: unknown = JSON.parse(readFileSync('fixtures/designs/seven-string-fan.json', 'utf8'));
+const DESIGN: unknown = JSON.parse(readFileSync('src/lib/boards/demo/seven-string-fan.json', 'utf8'));
 /** Stand-in replaced by raw JSON number text (1e999 parses to Infinity, which JSON.stringify cannot make). */
 const RAW_MARK = '\u0000raw:';
 

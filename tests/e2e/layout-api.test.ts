@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { BASE_URL } from '../support/browser.ts';
 
-const fan = readFileSync('fixtures/designs/seven-string-fan.json', 'utf8');
+const fan = readFileSync('src/lib/boards/demo/seven-string-fan.json', 'utf8');
 
 function post(body: string, headers: Record<string, string> = {}, query = ''): Promise<Response> {
   return fetch(`${BASE_URL}/api/layout${query}`, {

@@ -8,7 +8,7 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { designRevisions, designs } from '~/lib/db/schema';
 import { newToken } from '~/lib/auth/index.server';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser';
 import { signInAs, type TestUser } from '../support/sessions';
 import { closeDb, db } from '../support/test-db';

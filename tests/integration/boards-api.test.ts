@@ -2,7 +2,7 @@ import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { designRevisions, designs } from '~/lib/db/schema.ts';
 import { FRET_TABLE_HEADER } from '~/lib/export/csv.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail, BoardList, BoardRevision } from '~/lib/schemas/board.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import * as listRoute from '~/pages/api/designs/index.ts';

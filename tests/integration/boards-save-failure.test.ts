@@ -3,7 +3,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { config } from '~/lib/config/env.server.ts';
 import { isDbUnavailable } from '~/lib/db/db-errors.ts';
 import { createDesign, getDesign, listRevisions, updateDesign } from '~/lib/db/designs.server.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { newShopUser } from '../support/sessions.ts';
 import { closeDb, startDatabase, stopDatabase } from '../support/test-db.ts';
 import { holdNextRevision, waitForLockWait } from '../support/revision-lock.ts';

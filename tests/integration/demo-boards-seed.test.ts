@@ -4,7 +4,7 @@ import { listDesigns, listRevisions } from '~/lib/db/designs.server.ts';
 import { designs } from '~/lib/db/schema.ts';
 import { seedDemoShop } from '~/lib/db/seed/demo-shop.server.ts';
 import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { boardListQuerySchema } from '~/lib/schemas/board.ts';
 import { closeDb, db } from '../support/test-db.ts';
 

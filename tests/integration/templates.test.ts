@@ -5,7 +5,7 @@ import type { SessionUser } from '~/lib/auth/index.server';
 import { designRevisions, designs, templateChecks, templates, users } from '~/lib/db/schema';
 import { seedDemoShop } from '~/lib/db/seed/demo-shop.server';
 import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { TemplateView } from '~/lib/schemas/template';
 import { listChecksRoute, postCheckRoute } from '~/lib/templates-api/check-endpoints.server';
 import { indexTemplateRoute, labelRoute } from '~/lib/templates-api/export-endpoints.server';

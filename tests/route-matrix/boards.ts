@@ -1,5 +1,5 @@
 /** Boards: every /api/designs route, and a board opened in Layout, for each kind of visitor (the Boards page is in site.ts). */
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { Actor, RouteCase } from './types.ts';
 
 /** A name of its own, so boards the matrix saves are not mistaken for the seeded ones. */

@@ -1,5 +1,5 @@
 import type { RouteCase } from './types.ts';
-import sevenStringFan from '../../fixtures/designs/seven-string-fan.json';
+import sevenStringFan from '../../src/lib/boards/demo/seven-string-fan.json';
 
 /** Exports of unsaved designs are public, like POST /api/layout: they store and read nothing. */
 const everyone = (status: number) => ({ anonymous: status, client: status, builder: status, owner: status, otherOwner: status });

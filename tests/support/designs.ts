@@ -1,6 +1,6 @@
 /**
  * Saved designs for tests, inserted as rows (head + revision) the way the designs module stores
- * them, from the demo fixtures in fixtures/designs.
+ * them, from the demo fixtures in src/lib/boards/demo.
  */
 import { readFileSync } from 'node:fs';
 import { and, asc, eq, like } from 'drizzle-orm';
@@ -13,7 +13,7 @@ export type FixtureName = 'seven-string-fan' | 'short-scale-bass' | 'classical-6
 
 /** The fixture as stored JSON (the input shape, not the defaults-filled one). */
 export function fixtureDesign(name: FixtureName): Record<string, unknown> {
-  return JSON.parse(readFileSync(new URL(`../../fixtures/designs/${name}.json`, import.meta.url), 'utf8')) as Record<string, unknown>;
+  return JSON.parse(readFileSync(new URL(`../../src/lib/boards/demo/${name}.json`, import.meta.url), 'utf8')) as Record<string, unknown>;
 }
 
 function validated(data: unknown): Design {

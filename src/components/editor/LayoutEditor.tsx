@@ -18,7 +18,7 @@ import { SaveStatusBadge } from '~/components/boards/SaveStatusBadge';
 import { SaveToBoardsButton } from '~/components/boards/SaveToBoardsButton';
 import { computeLayout } from '~/lib/geometry/layout';
 import { blankDesign } from '~/lib/presets/blank-design';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail, BoardSummary } from '~/lib/schemas/board';
 import { validateDesign, type Design } from '~/lib/schemas/design';
 import { BoardDrawing } from './BoardDrawing';

@@ -3,7 +3,7 @@
  * design file, then export it. The editor mounts ExportPanel directly.
  */
 import { useState } from 'react';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { validateDesign, type Design, type DesignIssue } from '~/lib/schemas/design';
 import ExportPanel from './ExportPanel';
 

@@ -11,7 +11,7 @@ import { templateDesign } from '~/lib/db/templates.server';
 import { tooLarge } from '~/lib/export/design-export.server';
 import { indexTemplateCost, labelCost, refuseOverCap } from '~/lib/export/export-cost';
 import { indexTemplateStrip } from '~/lib/export/index-template';
-import { indexTemplateDxf } from '~/lib/export/index-template-dxf';
+import { indexTemplateDxf } from '~/lib/export/index-template-dxf.server.ts';
 import { LABEL_SIZES, labelSize } from '~/lib/export/index-template-label.server';
 import { indexTemplatePage } from '~/lib/export/index-template-page';
 import { pdfResponse } from '~/lib/export/pdf-kit.server';

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { boardThumbnailSvg, THUMBNAIL_SIZE } from '~/lib/export/board-thumbnail.ts';
 import { computeLayout } from '~/lib/geometry/layout.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 
 describe('board thumbnail SVG', () => {
   for (const { id, design } of DEMO_DESIGNS) {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { diffDesigns, showValue } from '~/components/boards/design-diff.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 
 const fan = () => structuredClone(DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan')!.design);
 

@@ -10,7 +10,7 @@ import { runKerfline } from '~/lib/cli/run-kerfline.server';
 import { expectNear } from '../../support/expect-near';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
-const FAN_FILE = join(ROOT, 'fixtures/designs/seven-string-fan.json');
+const FAN_FILE = join(ROOT, 'src/lib/boards/demo/seven-string-fan.json');
 
 async function run(argv: string[]) {
   let stdout = '';

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { distanceToSegment, nearestFret, snapPoint, snapTargets } from '~/components/editor/board-picking';
 import { computeLayout } from '~/lib/geometry/layout';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 
 const fan = DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan');
 if (!fan) throw new Error('missing demo');

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { BoardRequestError } from '~/components/boards/board-requests';
 import { boardStore, type BoardRequests } from '~/components/editor/design-store';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail } from '~/lib/schemas/board';
 import type { Design } from '~/lib/schemas/design';
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { describeBoard } from '~/components/editor/board-summary';
 import { computeLayout } from '~/lib/geometry/layout';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 
 describe('text summary of the drawing', () => {
   it('names strings, both scales, the square fret and the fret count of a fanned board', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { draftFromDesign, switchUnits, typedLength, validateDraft, type DesignDraft } from '~/components/editor/design-draft';
 import { blankDesign } from '~/lib/presets/blank-design';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { Design } from '~/lib/schemas/design';
 
 function demo(id: string): Design {

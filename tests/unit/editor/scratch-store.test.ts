@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { SCRATCH_STORAGE_KEY, scratchStore } from '~/components/editor/design-store';
 import { loadScreenPxPerMm, measurementProblem, pxPerMmFromMeasurement, saveScreenPxPerMm } from '~/components/editor/screen-calibration';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 
 function memoryStorage() {
   const items = new Map<string, string>();

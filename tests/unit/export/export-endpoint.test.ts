@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { runKerfline } from '~/lib/cli/run-kerfline.server';
 import { handleExportRequest } from '~/lib/export/export-endpoint.server';
 import { exportFileName } from '~/lib/export/file-name';
-import sevenStringFan from '../../../fixtures/designs/seven-string-fan.json';
+import sevenStringFan from '../../../src/lib/boards/demo/seven-string-fan.json';
 
 function post(query: string, body: unknown, type = 'application/json'): Promise<Response> {
   return handleExportRequest(
@@ -77,7 +77,7 @@ describe('kerfline layout --format ... --out', () => {
     const code = await runKerfline(args, { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t) });
     return { code, stdout, stderr };
   };
-  const design = 'fixtures/designs/seven-string-fan.json';
+  const design = 'src/lib/boards/demo/seven-string-fan.json';
 
   it('writes a PDF on A4 and a DXF with closed slot outlines to files', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'kerfline-cli-'));

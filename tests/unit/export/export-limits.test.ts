@@ -5,7 +5,7 @@ import { EXPORT_LIMITS } from '~/lib/export/export-limits';
 import { sheetDrawing } from '~/lib/export/sheet-drawing';
 import { planTiles } from '~/lib/export/tile-pages';
 import { computeLayout } from '~/lib/geometry/layout';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { DESIGN_LIMITS, type Design } from '~/lib/schemas/design';
 import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options';
 import { designOf } from '../../support/design-builders.ts';

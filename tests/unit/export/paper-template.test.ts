@@ -6,7 +6,7 @@ import { exportDesign } from '~/lib/export/export-design.server';
 import { sheetDrawing } from '~/lib/export/sheet-drawing';
 import { planTiles, type TilePlan } from '~/lib/export/tile-pages';
 import { computeLayout, type Layout } from '~/lib/geometry/layout';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { Design } from '~/lib/schemas/design';
 import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options';
 import { pageText, pdfFonts, readPdf, renderPage, type PageSegment, type ReadPage } from '../../support/pdf-readback.ts';

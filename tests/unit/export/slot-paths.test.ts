@@ -2,7 +2,7 @@ import DxfParser from 'dxf-parser';
 import { describe, expect, it } from 'vitest';
 import { exportDesign } from '~/lib/export/export-design.server';
 import { computeLayout, type Layout, type Point } from '~/lib/geometry/layout';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design';
 import { validateExportOptions } from '~/lib/schemas/export-options';
 

@@ -2,11 +2,12 @@ import { readFile, readdir } from 'node:fs/promises';
 import { describe, expect, it } from 'vitest';
 import { fretTableCsv } from '~/lib/export/csv';
 import { computeLayout } from '~/lib/geometry/layout';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { validDesign } from '../../support/design-builders';
 
 const FIXTURES = new URL('../../../fixtures/', import.meta.url);
-const designFiles = (await readdir(new URL('designs/', FIXTURES))).filter((f) => f.endsWith('.json')).sort();
+const DESIGNS = new URL('../../../src/lib/boards/demo/', import.meta.url);
+const designFiles = (await readdir(DESIGNS)).filter((f) => f.endsWith('.json')).sort();
 
 /**
  * Golden tables are regression baselines produced by Kerfline itself (see fixtures/README.md),
@@ -20,7 +21,7 @@ describe('golden fret tables of the demo instruments (regression baselines)', ()
   });
 
   it.each(designFiles)('%s regenerates its golden table byte for byte', async (file) => {
-    const design = validDesign(JSON.parse(await readFile(new URL(`designs/${file}`, FIXTURES), 'utf8')));
+    const design = validDesign(JSON.parse(await readFile(new URL(file, DESIGNS), 'utf8')));
     const golden = await readFile(new URL(`tables/${file.replace(/\.json$/, '.csv')}`, FIXTURES), 'utf8');
     expect(fretTableCsv(computeLayout(design))).toBe(golden);
   });

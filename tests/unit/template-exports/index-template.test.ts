@@ -1,7 +1,7 @@
 import DxfParser from 'dxf-parser';
 import { describe, expect, it } from 'vitest';
 import { indexTemplateStrip } from '~/lib/export/index-template';
-import { INDEX_TEMPLATE_LAYERS, indexTemplateDxf } from '~/lib/export/index-template-dxf';
+import { INDEX_TEMPLATE_LAYERS, indexTemplateDxf } from '~/lib/export/index-template-dxf.server.ts';
 import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server';
 import { computeLayout } from '~/lib/geometry/layout';
 import { designOf } from '../../support/design-builders';

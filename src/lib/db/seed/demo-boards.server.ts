@@ -7,7 +7,7 @@
 import { and, eq } from 'drizzle-orm';
 import { createDesign, updateDesign } from '~/lib/db/designs.server.ts';
 import { designs } from '~/lib/db/schema.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { InstrumentType } from '~/lib/schemas/board.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 import type { SeedStep } from './demo-shop.server.ts';

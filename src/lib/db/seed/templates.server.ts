@@ -9,13 +9,13 @@ import type { SeedContext } from './demo-shop.server.ts';
 import { designs, templateChecks, templates } from '~/lib/db/schema.ts';
 import { createTemplate, getTemplate, saveCheck } from '~/lib/db/templates.server.ts';
 import { equalRemainingFraction } from '~/lib/geometry/temperament.ts';
-import { DEMO_DESIGNS } from '~/lib/presets/demo-designs.ts';
+import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { standInDesign } from '~/lib/template-check/template-design.ts';
 import { runCheck } from '~/lib/template-check/run-check.ts';
 import type { TemplateCreate } from '~/lib/schemas/template.ts';
 
 interface DemoTemplate {
-  /** Demo design (fixtures/designs id) to link to when the shop has it. */
+  /** Demo design (src/lib/boards/demo id) to link to when the shop has it. */
   designPreset: string | null;
   typed: Extract<TemplateCreate, { source: 'typed' }>;
 }

@@ -1,17 +1,18 @@
 /**
  * The demo instruments of the invented shop "Wrenfield Instrument Co.", offered as starting
- * presets in the editor. The same files in fixtures/designs back the golden fret tables.
+ * presets in the editor and seeded as the demo shop's boards. The golden fret tables in
+ * fixtures/tables are computed from these files.
  * Demo data: plausible values, not measurements of any real instrument.
  */
 import { validateDesign, type Design } from '~/lib/schemas/design';
-import classical650 from '../../../fixtures/designs/classical-650.json';
-import mandolin from '../../../fixtures/designs/mandolin.json';
-import sevenStringFan from '../../../fixtures/designs/seven-string-fan.json';
-import shortScaleBass from '../../../fixtures/designs/short-scale-bass.json';
-import tenorUkulele from '../../../fixtures/designs/tenor-ukulele.json';
+import classical650 from './classical-650.json';
+import mandolin from './mandolin.json';
+import sevenStringFan from './seven-string-fan.json';
+import shortScaleBass from './short-scale-bass.json';
+import tenorUkulele from './tenor-ukulele.json';
 
 export interface DemoDesign {
-  /** File name in fixtures/designs without ".json"; stable, usable in URLs. */
+  /** File name in this folder without ".json"; stable, usable in URLs. */
   id: string;
   design: Design;
 }

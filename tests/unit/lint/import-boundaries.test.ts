@@ -1,0 +1,35 @@
+/**
+ * The import boundaries (eslint.config.js) catch what they are meant to: each case lints a line
+ * of code as if it lived at a given path in src/, with the project's own configuration.
+ */
+import { ESLint } from 'eslint';
+import { describe, expect, it } from 'vitest';
+
+const eslint = new ESLint({ cwd: process.cwd() });
+
+async function problems(filePath: string, code: string): Promise<string[]> {
+  const [result] = await eslint.lintText(code, { filePath });
+  return (result?.messages ?? []).map((m) => m.message);
+}
+
+describe('import boundaries', () => {
+  it.each([
+    ['a browser component importing a .server module', 'src/components/editor/Example.tsx', "import { db } from '~/lib/db/client.server.ts';"],
+    ['a pure lib module importing a .server module', 'src/lib/export/example.ts', "import { sendMail } from '~/lib/mail/send.server.ts';"],
+    ['a pure module using a server-only package', 'src/lib/export/example.ts', "import makerjs from 'makerjs';"],
+    ['a pure module using node: built-ins', 'src/lib/boards/example.ts', "import { readFileSync } from 'node:fs';"],
+    ['geometry importing beyond geometry, units and the design schema', 'src/lib/geometry/example.ts', "import { exportFileName } from '~/lib/export/file-name';"],
+    ['lib importing a component', 'src/lib/boards/example.server.ts', "import { BoardsTable } from '~/components/boards/BoardsTable';"],
+    ['the product importing test fixtures', 'src/lib/boards/example.ts', "import table from '../../../fixtures/tables/mandolin.csv?raw';"],
+  ])('refuses %s', async (_what, path, code) => {
+    expect((await problems(path, code)).length).toBeGreaterThan(0);
+  });
+
+  it.each([
+    ['a type-only import of a server type in a component', 'src/components/templates/Example.tsx', "import type { SavedCheck } from '~/lib/db/templates.server';"],
+    ['geometry importing geometry, units and the design schema', 'src/lib/geometry/example.ts', "import { lerpPoint } from './plane';\nimport { fromMm } from '~/lib/format/units';\nimport type { Design } from '~/lib/schemas/design';"],
+    ['a .server module using server packages and modules', 'src/lib/export/example.server.ts', "import makerjs from 'makerjs';\nimport { db } from '~/lib/db/client.server.ts';"],
+  ])('allows %s', async (_what, path, code) => {
+    expect(await problems(path, code)).toEqual([]);
+  });
+});
