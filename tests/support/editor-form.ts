@@ -5,6 +5,8 @@ export async function typeFannedSevenString(page: Page, name: string): Promise<v
   await page.getByLabel('Preset').selectOption({ label: 'Blank design' });
   await page.getByRole('button', { name: 'Start', exact: true }).click();
   await page.getByLabel('Design name').fill(name);
+  // The fan's scales are given along the outer strings (the blank board quotes the centre line).
+  await page.getByLabel('along each outer string').check();
   await page.getByLabel('Strings', { exact: true }).fill('7');
   await page.getByLabel(/^Treble scale length/).fill('648');
   await page.getByLabel(/^Bass scale length/).fill('686');

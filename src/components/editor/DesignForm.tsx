@@ -12,11 +12,13 @@ import {
   fieldOfIssue,
   switchUnits,
   typedLength,
+  type ChoiceField,
   type DesignDraft,
   type FlagField,
   type LengthField,
   type NumberField,
 } from './design-draft';
+import { ScaleConventionFigure } from './ScaleConventionFigure';
 import { ScalaUpload } from './ScalaUpload';
 
 export interface PresetChoice {
@@ -73,6 +75,31 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
         const path: FlagField = field.path;
         return (
           <Checkbox key={path} label={field.label} checked={draft.flags[path]} onChange={(on) => onChange((d) => ({ ...d, flags: { ...d.flags, [path]: on } }))} />
+        );
+      }
+      case 'choice': {
+        const path: ChoiceField = field.path;
+        return (
+          <fieldset key={path} aria-describedby={`help-${path}`}>
+            <legend className="text-sm">{field.label}</legend>
+            <div className="flex flex-col gap-1 text-sm">
+              {field.options.map((option) => (
+                <label key={option} className="flex items-center gap-1">
+                  <input
+                    type="radio"
+                    name={path}
+                    value={option}
+                    checked={draft.choices[path] === option}
+                    onChange={() => onChange((d) => ({ ...d, choices: { ...d.choices, [path]: option } }))}
+                  />
+                  {field.optionLabels[option]}
+                </label>
+              ))}
+            </div>
+            {path === 'scaleAlong' && <ScaleConventionFigure />}
+            <p id={`help-${path}`} className="text-xs text-ink-soft">{field.help}</p>
+            {errorsOf(path).length > 0 && <p id={`error-${path}`} className={FIELD_ERROR}>{errorsOf(path).join('; ')}</p>}
+          </fieldset>
         );
       }
       case 'whole':

@@ -14,6 +14,7 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { memo, useMemo, useState } from 'react';
+import { scaleConventionWords } from '~/lib/format/design-specs';
 import { formatLength } from '~/lib/format/units';
 import { fretTableCsv, fretTableRows, type FretTableRow } from '~/lib/export/csv';
 import { exportFileName } from '~/lib/export/file-name';
@@ -77,7 +78,8 @@ export const FretTablePanel = memo(function FretTablePanel({ layout, design }: {
       </div>
       <p className="text-xs text-ink-soft">
         Distances along each string from its nut end (uncompensated); x and y in board coordinates from where
-        the nut line crosses the centre line. Shown rounded; the CSV carries the unrounded numbers.
+        the nut line crosses the centre line. The design gives its {scaleConventionWords(layout.scaleAlong)}.
+        Shown rounded; the CSV carries the unrounded numbers.
       </p>
       <div className="max-h-80 overflow-auto rounded border border-paper-line bg-white">
         <table className="w-full font-mono text-xs" aria-label="Fret table">

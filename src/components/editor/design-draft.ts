@@ -10,11 +10,13 @@
 import { convertLength, type LengthUnit } from '~/lib/format/units';
 import { validateDesign, type Design, type DesignIssue, type Marker } from '~/lib/schemas/design';
 import {
+  CHOICE_ROWS,
   COUNT_ROWS,
   FLAG_ROWS,
   LENGTH_ROWS,
   fieldValue,
   setFieldValue,
+  type ChoicePath,
   type CountPath,
   type FlagPath,
   type LengthPath,
@@ -29,6 +31,7 @@ export const NUMBER_FIELDS: readonly NumberField[] = [...COUNT_ROWS.map((row) =>
 export type NumberField = CountPath | 'temperament.divisions';
 
 export type FlagField = FlagPath;
+export type ChoiceField = ChoicePath;
 
 export interface LengthText {
   text: string;
@@ -42,6 +45,8 @@ export interface DesignDraft {
   numbers: Record<NumberField, string>;
   lengths: Record<LengthField, LengthText>;
   flags: Record<FlagField, boolean>;
+  /** The chosen word of each choice field (the schema checks it is one of the row's options). */
+  choices: Record<ChoiceField, string>;
   temperamentKind: 'equal' | 'scala';
   /** Text of a Scala .scl file (kept when switching to equal divisions and back). */
   scl: string;
@@ -64,6 +69,7 @@ export function draftFromDesign(design: Design): DesignDraft {
   ) as Record<LengthField, LengthText>;
   const counts = Object.fromEntries(COUNT_ROWS.map((row) => [row.path, String(fieldValue(design, row.path))]));
   const flags = Object.fromEntries(FLAG_ROWS.map((row) => [row.path, fieldValue(design, row.path) === true])) as Record<FlagField, boolean>;
+  const choices = Object.fromEntries(CHOICE_ROWS.map((row) => [row.path, String(fieldValue(design, row.path))])) as Record<ChoiceField, string>;
   const markersOf = (kind: Marker['kind']) =>
     design.markers
       .filter((marker) => marker.kind === kind)
@@ -78,6 +84,7 @@ export function draftFromDesign(design: Design): DesignDraft {
     } as Record<NumberField, string>,
     lengths,
     flags,
+    choices,
     temperamentKind: design.temperament.kind,
     scl: design.temperament.kind === 'scala' ? design.temperament.scl : '',
     singleMarkers: markersOf('single'),
@@ -164,6 +171,7 @@ export function validateDraft(draft: DesignDraft): DraftValidation {
   for (const row of COUNT_ROWS) setFieldValue(input, row.path, number(row.path, draft.numbers[row.path]));
   for (const path of LENGTH_FIELDS) setFieldValue(input, path, length(path));
   for (const row of FLAG_ROWS) setFieldValue(input, row.path, draft.flags[row.path]);
+  for (const row of CHOICE_ROWS) setFieldValue(input, row.path, draft.choices[row.path]);
   const validation = validateDesign(input);
   if (typingIssues.length === 0) return validation;
   const typed = new Set(typingIssues.map((issue) => issue.path));

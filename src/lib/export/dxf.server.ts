@@ -1,9 +1,10 @@
 /**
  * Slot paths as DXF through makerjs: `$INSUNITS` in the header (1 = inches, 4 = millimetres), one
  * layer per slot-path layer, closed outlines as closed polylines, and a comment (group 999)
- * stating the units and the safety caution.
+ * stating the scale convention, the units and the safety caution.
  * Kept server-side so makerjs stays out of the browser bundle.
  */
+import { capitalised, scaleConventionWords } from '~/lib/format/design-specs';
 import makerjs from 'makerjs';
 import { machineCaution } from './safety-note';
 import { SLOT_PATH_LAYERS, type SlotPaths } from './slot-paths';
@@ -55,5 +56,5 @@ export function slotPathsDxf(paths: SlotPaths): string {
     pointMatchingDistance: ACCURACY,
     layerOptions: Object.fromEntries(SLOT_PATH_LAYERS.map((layer) => [layer, { color: LAYER_COLOURS[layer] }])),
   });
-  return `999\n${machineCaution(paths.units)}\n${dxf}\n`;
+  return `999\n${capitalised(scaleConventionWords(paths.scaleAlong))}.\n999\n${machineCaution(paths.units)}\n${dxf}\n`;
 }

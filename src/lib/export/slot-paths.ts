@@ -22,6 +22,7 @@ export interface LayerPaths {
 export interface SlotPaths {
   name: string;
   units: LengthUnit;
+  scaleAlong: Layout['scaleAlong'];
   /** What was added to board coordinates to reach these (zero for the nut-centre origin). */
   offset: Point;
   layers: Record<SlotPathLayer, LayerPaths>;
@@ -69,7 +70,7 @@ export function slotPaths(layout: Layout, options: Pick<ExportOptions, 'slots' |
     saddle: { ...empty(), lines: [moveSegment(layout.saddleLine)] },
     markers: { ...empty(), lines: crosses.map(moveSegment) },
   };
-  return { name: layout.name, units: layout.units, offset, layers };
+  return { name: layout.name, units: layout.units, scaleAlong: layout.scaleAlong, offset, layers };
 }
 
 /** The extent of every path on every layer. */

@@ -4,6 +4,7 @@
  * own, unrounded; only y is negated because SVG's y runs down the screen. Each layer is a group
  * whose id is the layer name.
  */
+import { capitalised, scaleConventionWords } from '~/lib/format/design-specs';
 import { fromMm } from '~/lib/format/units';
 import type { Point } from '~/lib/geometry/layout';
 import { machineCaution } from './safety-note';
@@ -29,6 +30,7 @@ export function slotPathsSvg(paths: SlotPaths): string {
   });
   return [
     '<?xml version="1.0" encoding="UTF-8"?>',
+    `<!-- ${escapeComment(`${capitalised(scaleConventionWords(paths.scaleAlong))}.`)} -->`,
     `<!-- ${escapeComment(machineCaution(paths.units))} -->`,
     `<svg xmlns="http://www.w3.org/2000/svg" width="${num(width)}${paths.units}" height="${num(height)}${paths.units}" ` +
       `viewBox="${num(box.minX)} ${num(-box.maxY)} ${num(width)} ${num(height)}" ` +

@@ -2,6 +2,7 @@
  * The title block printed on every page of the paper template: what the design is, so a print
  * found on the bench months later can be matched to its design and revision.
  */
+import { scaleConventionWords } from '~/lib/format/design-specs';
 import { formatLength } from '~/lib/format/units';
 import { parseScl } from '~/lib/geometry/scala';
 import type { Design } from '~/lib/schemas/design';
@@ -29,6 +30,7 @@ export function titleBlockLines(design: Design, options: Pick<ExportOptions, 'mi
   return [
     design.name,
     `${scale} · units ${design.units}`,
+    `(${scaleConventionWords(design.scaleAlong)})`,
     `Perpendicular fret ${design.perpendicularFret} · ${design.frets} frets · ${design.strings} strings`,
     `Temperament ${temperamentName(design)}`,
     slot,

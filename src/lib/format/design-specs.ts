@@ -1,6 +1,17 @@
 import { parseScl } from '~/lib/geometry/scala';
 import type { Design } from '~/lib/schemas/design';
+import { CHOICE_ROWS } from '~/lib/schemas/design-fields';
 import { formatLength } from './units';
+
+const SCALE_ALONG_WORDS = CHOICE_ROWS.find((row) => row.path === 'scaleAlong')!.optionLabels;
+
+/**
+ * How the design's scale lengths are measured, as every output says it: "scale lengths measured
+ * along each outer string" or "... along the centre line (square to the nut)".
+ */
+export function scaleConventionWords(scaleAlong: Design['scaleAlong']): string {
+  return `scale lengths measured ${SCALE_ALONG_WORDS[scaleAlong]}`;
+}
 
 /** One line of a design's key specifications, in plain words for a client. */
 export interface DesignSpec {
@@ -25,6 +36,11 @@ function perpendicularWords(fret: number): string {
   return Number.isInteger(fret) ? `fret ${fret}` : `between frets ${Math.floor(fret)} and ${Math.ceil(fret)} (${fret})`;
 }
 
+/** `text` with its first letter in capitals. */
+export function capitalised(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
 /** Scale lengths, strings, frets, perpendicular fret, string spacing and temperament. */
 export function designSpecs(design: Design): DesignSpec[] {
   const length = (value: number) => formatLength(value, design.units, true);
@@ -36,6 +52,7 @@ export function designSpecs(design: Design): DesignSpec[] {
         ? `${length(design.scale.treble)} on the treble side to ${length(design.scale.bass)} on the bass side (multi-scale)`
         : length(design.scale.treble),
     },
+    { label: 'Measured', value: SCALE_ALONG_WORDS[design.scaleAlong] },
     { label: 'Strings', value: String(design.strings) },
     { label: 'Frets', value: String(design.frets) },
   ];

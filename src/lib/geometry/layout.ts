@@ -1,5 +1,7 @@
 import type { LengthUnit } from '~/lib/format/units';
 import type { Design } from '~/lib/schemas/design';
+
+export type ScaleConvention = Design['scaleAlong'];
 import { acrossBoard, boardOutline } from './board-outline';
 import { layoutMarkers, type LayoutMarker } from './markers';
 import { layoutWarnings, type ClosestGap, type LayoutWarning } from './layout-warnings';
@@ -52,6 +54,8 @@ export interface LayoutFret extends FretLine {
 export interface Layout {
   name: string;
   units: LengthUnit;
+  /** How the design's scale lengths were given: along each outer string, or as its run along the centre line. */
+  scaleAlong: ScaleConvention;
   slotWidth: number;
   /** The fret square to the centre line, and its x. */
   perpendicularFret: { fret: number; x: number };
@@ -79,7 +83,9 @@ export interface Layout {
  * Computes the fret layout of a validated design.
  *
  * Model: the outer strings are symmetric about the centre line (y = ∓nut/2 at the nut,
- * ∓bridge/2 at the saddle), each as long as its scale; their nut ends are offset along x so that
+ * ∓bridge/2 at the saddle). Each is as long as its scale (`scaleAlong: 'strings'`), or runs its
+ * scale along the centre line, nut to saddle square to the nut (`'centreLine'`: a single-scale
+ * board then has every fret n at x = L (1 - r(n)) on every string). Their nut ends are offset along x so that
  * the perpendicular fret p has the same x on string 1 and string N. Inner strings are spaced
  * equally along the nut and saddle lines. Fret n lies on each string at the fraction 1 - r(n)
  * from its nut end (r from the temperament), so every fret line is straight.
@@ -92,11 +98,12 @@ export function computeLayout(design: Design): Layout {
   const stringCount = design.strings;
   const fretCount = design.frets;
 
-  const trebleLength = design.scale.treble;
-  const bassLength = design.scale.bass;
   const spread = (design.stringSpacing.bridge - design.stringSpacing.nut) / 2;
-  const trebleRun = Math.sqrt(trebleLength * trebleLength - spread * spread);
-  const bassRun = Math.sqrt(bassLength * bassLength - spread * spread);
+  const alongCentre = design.scaleAlong === 'centreLine';
+  const trebleRun = alongCentre ? design.scale.treble : Math.sqrt(design.scale.treble ** 2 - spread * spread);
+  const bassRun = alongCentre ? design.scale.bass : Math.sqrt(design.scale.bass ** 2 - spread * spread);
+  const trebleLength = alongCentre ? Math.hypot(trebleRun, spread) : design.scale.treble;
+  const bassLength = alongCentre ? Math.hypot(bassRun, spread) : design.scale.bass;
   // Fret p at x_t + (1 - r(p)) * run_t on both outer strings; offsets ±shift keep the nut line
   // crossing the centre line at x = 0.
   const perpendicularFraction = 1 - r(design.perpendicularFret);
@@ -199,6 +206,7 @@ export function computeLayout(design: Design): Layout {
   return {
     name: design.name,
     units: design.units,
+    scaleAlong: design.scaleAlong,
     slotWidth: design.slot.width,
     perpendicularFret: {
       fret: design.perpendicularFret,

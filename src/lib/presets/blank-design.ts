@@ -9,6 +9,8 @@ const BLANK_INPUT = {
   units: 'mm',
   strings: 6,
   scale: { treble: 650, bass: 650 },
+  // A single-scale board is quoted along the centre line, as the trade quotes it.
+  scaleAlong: 'centreLine',
   perpendicularFret: 0,
   frets: 22,
   stringSpacing: { nut: 35, bridge: 52 },

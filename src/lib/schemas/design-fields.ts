@@ -54,15 +54,33 @@ export interface FlagRow extends RowBase {
   default: boolean;
 }
 
-export type FieldRow = LengthRow | WholeRow | RealRow | FlagRow;
+/** One of a few words, each with the form's label for it. */
+export interface ChoiceRow extends RowBase {
+  kind: 'choice';
+  options: readonly [string, ...string[]];
+  optionLabels: Readonly<Record<string, string>>;
+  default: string;
+}
+
+export type FieldRow = LengthRow | WholeRow | RealRow | FlagRow | ChoiceRow;
 
 /** Longest scale length or string spacing, in millimetres. */
 const LONGEST_MM = 5000;
 
 export const DESIGN_FIELDS = [
   { path: 'strings', kind: 'whole', min: 2, max: 16, group: 'Strings and scale', label: 'Strings', help: 'Number of strings; string 1 is the treble (highest) string.' },
-  { path: 'scale.treble', kind: 'length', sign: 'positive', maxMm: LONGEST_MM, group: 'Strings and scale', label: 'Treble scale length, string 1', help: 'Nut to saddle along string 1.' },
-  { path: 'scale.bass', kind: 'length', sign: 'positive', maxMm: LONGEST_MM, group: 'Strings and scale', label: 'Bass scale length, last string', help: 'Nut to saddle along the last string; the same as the treble for a single-scale board.' },
+  { path: 'scale.treble', kind: 'length', sign: 'positive', maxMm: LONGEST_MM, group: 'Strings and scale', label: 'Treble scale length, string 1', help: 'Nut to saddle on string 1.' },
+  { path: 'scale.bass', kind: 'length', sign: 'positive', maxMm: LONGEST_MM, group: 'Strings and scale', label: 'Bass scale length, last string', help: 'Nut to saddle on the last string; the same as the treble for a single-scale board.' },
+  {
+    path: 'scaleAlong',
+    kind: 'choice',
+    options: ['strings', 'centreLine'],
+    optionLabels: { strings: 'along each outer string', centreLine: 'along the centre line (square to the nut)' },
+    default: 'strings',
+    group: 'Strings and scale',
+    label: 'Scale lengths are measured',
+    help: 'Along the string itself, or as the string’s run along the centre line from the nut to the saddle. On a single-scale board the centre line reads the scale exactly.',
+  },
   { path: 'perpendicularFret', kind: 'real', group: 'Strings and scale', label: 'Perpendicular fret (0 = nut)', help: 'The fret whose line is square to the centre line; it may lie between frets.' },
   { path: 'frets', kind: 'whole', min: 1, max: 36, group: 'Strings and scale', label: 'Frets', help: 'Number of frets.' },
   { path: 'stringSpacing.nut', kind: 'length', sign: 'positive', maxMm: LONGEST_MM, group: 'Strings and scale', label: 'String spacing at the nut', help: 'Outer string centre to centre at the nut.' },
@@ -87,14 +105,20 @@ export type FieldPath = Row['path'];
 export type LengthPath = Extract<Row, { kind: 'length' }>['path'];
 export type CountPath = Extract<Row, { kind: 'whole' | 'real' }>['path'];
 export type FlagPath = Extract<Row, { kind: 'flag' }>['path'];
+export type ChoicePath = Extract<Row, { kind: 'choice' }>['path'];
 
 type RowAt<P> = Extract<Row, { path: P }>;
 type TopPath = Exclude<FieldPath, `${string}.${string}`>;
 type GroupKey = FieldPath extends infer P ? (P extends `${infer G}.${string}` ? G : never) : never;
 type MemberKey<G extends string> = FieldPath extends infer P ? (P extends `${G}.${infer M}` ? M : never) : never;
-type IsOptional<R> = R extends { defaultMm: number } | { default: boolean } ? true : false;
-type ValueOf<R> = R extends { kind: 'flag' } ? boolean : number;
-type ZodOf<R> = IsOptional<R> extends true ? z.ZodOptional<R extends { kind: 'flag' } ? z.ZodBoolean : z.ZodNumber> : z.ZodNumber;
+type IsOptional<R> = R extends { defaultMm: number } | { default: boolean | string } ? true : false;
+type Options<R> = R extends { options: infer O extends readonly [string, ...string[]] } ? O : never;
+type ValueOf<R> = R extends { kind: 'flag' } ? boolean : R extends { kind: 'choice' } ? Options<R>[number] : number;
+type ZodOf<R> = R extends { kind: 'choice' }
+  ? z.ZodOptional<z.ZodEnum<z.Writeable<Options<R>>>>
+  : IsOptional<R> extends true
+    ? z.ZodOptional<R extends { kind: 'flag' } ? z.ZodBoolean : z.ZodNumber>
+    : z.ZodNumber;
 type RequiredMember<G extends string> = Extract<Row, { path: `${G}.${string}` }> extends infer R ? (IsOptional<R> extends true ? never : R) : never;
 type GroupShape<G extends string> = { [M in MemberKey<G>]: ZodOf<RowAt<`${G}.${M}`>> };
 type GroupZod<G extends string> = [RequiredMember<G>] extends [never]
@@ -118,6 +142,8 @@ function schemaOf(row: FieldRow): z.ZodTypeAny {
   switch (row.kind) {
     case 'flag':
       return z.boolean().optional();
+    case 'choice':
+      return z.enum(row.options, { errorMap: () => ({ message: `must be one of: ${row.options.join(', ')}` }) }).optional();
     case 'whole':
       return wholeNumber(row.min, row.max);
     case 'real':
@@ -135,7 +161,7 @@ function schemaOf(row: FieldRow): z.ZodTypeAny {
 }
 
 function isOptional(row: FieldRow): boolean {
-  return row.kind === 'flag' || (row.kind === 'length' && row.defaultMm !== undefined);
+  return row.kind === 'flag' || row.kind === 'choice' || (row.kind === 'length' && row.defaultMm !== undefined);
 }
 
 function split(path: string): [string] | [string, string] {
@@ -191,7 +217,7 @@ export function setFieldValue(target: Record<string, unknown>, path: string, val
 }
 
 function defaultOf(row: FieldRow, units: LengthUnit): unknown {
-  if (row.kind === 'flag') return row.default;
+  if (row.kind === 'flag' || row.kind === 'choice') return row.default;
   if (row.kind === 'length' && row.defaultMm !== undefined) return fromMm(row.defaultMm, units);
   return undefined;
 }
@@ -210,6 +236,7 @@ export function fieldValues(input: unknown, units: LengthUnit): FieldValues {
 export const LENGTH_ROWS = DESIGN_FIELDS.filter((row): row is Extract<Row, { kind: 'length' }> => row.kind === 'length');
 export const COUNT_ROWS = DESIGN_FIELDS.filter((row): row is Extract<Row, { kind: 'whole' | 'real' }> => row.kind === 'whole' || row.kind === 'real');
 export const FLAG_ROWS = DESIGN_FIELDS.filter((row): row is Extract<Row, { kind: 'flag' }> => row.kind === 'flag');
+export const CHOICE_ROWS = DESIGN_FIELDS.filter((row): row is Extract<Row, { kind: 'choice' }> => row.kind === 'choice');
 
 /** The largest accepted value of a length field, in millimetres. */
 export function maxLengthMm(path: LengthPath): number {

@@ -160,8 +160,12 @@ function geometryProblems(design: Design): Problem[] {
   return problems;
 }
 
-/** Each outer string must be longer than its sideways spread, or it would have no length along x. */
+/**
+ * A scale given along the string must be longer than the string's sideways spread, or it would
+ * have no length along x (a run along the centre line has no such limit).
+ */
 function spreadProblems(design: Design): Problem[] {
+  if (design.scaleAlong === 'centreLine') return [];
   const spread = Math.abs(design.stringSpacing.bridge - design.stringSpacing.nut) / 2;
   const problems: Problem[] = [];
   for (const side of ['treble', 'bass'] as const) {

@@ -144,10 +144,12 @@ describe('slot paths DXF read back with dxf-parser', () => {
     });
   });
 
-  it('states the units and a caution in a DXF comment (group 999)', async () => {
+  it('states the scale convention, the units and a caution in DXF comments (group 999)', async () => {
     const { text } = await dxf(demo('tenor-ukulele'), {});
-    const [code, comment] = text.split('\n');
+    const [code, convention, code2, comment] = text.split('\n');
     expect(code).toBe('999');
+    expect(convention).toBe('Scale lengths measured along the centre line (square to the nut).');
+    expect(code2).toBe('999');
     expect(comment).toMatch(/Units: (millimetres \(mm\)|inches \(in\))/);
     expect(comment).toMatch(/Verify units and scale on scrap/);
     expect(comment).toMatch(/eye and hearing protection/);

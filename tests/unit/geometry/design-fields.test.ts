@@ -33,7 +33,7 @@ describe('the design field table', () => {
 
   it.each(DESIGN_FIELDS.map((row) => [row.path, row] as const))('%s: missing is refused when required, defaulted otherwise', (path, row) => {
     const result = validateDesign(without(path));
-    const optional = row.kind === 'flag' || (row.kind === 'length' && 'defaultMm' in row);
+    const optional = row.kind === 'flag' || row.kind === 'choice' || (row.kind === 'length' && 'defaultMm' in row);
     if (!optional) {
       expect(result.ok).toBe(false);
       if (!result.ok) expect(result.issues.map((i) => i.path)).toContain(path);
@@ -41,7 +41,7 @@ describe('the design field table', () => {
     }
     expect(result.ok).toBe(true);
     if (!result.ok) return;
-    const expected = row.kind === 'flag' ? row.default : (row as { defaultMm: number }).defaultMm;
+    const expected = row.kind === 'flag' || row.kind === 'choice' ? row.default : (row as { defaultMm: number }).defaultMm;
     expect(fieldValue(result.design, path)).toBe(expected);
   });
 
@@ -71,8 +71,15 @@ describe('the design field table', () => {
     expect(validateDesign(withValue(path, 'yes')).ok).toBe(false);
   });
 
+  it.each(DESIGN_FIELDS.filter((row) => row.kind === 'choice').map((row) => [row.path, row.options] as const))('%s takes one of its words only', (path, options) => {
+    for (const option of options) expect(validateDesign(withValue(path, option)).ok).toBe(true);
+    const refused = validateDesign(withValue(path, 'sideways'));
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) expect(refused.issues).toContainEqual({ path, message: `must be one of: ${options.join(', ')}` });
+  });
+
   it('the editor draft carries every row there and back', () => {
-    const design = validateDesign(withValue('slot.stopped', true, withValue('zeroFret', true)));
+    const design = validateDesign(withValue('scaleAlong', 'centreLine', withValue('slot.stopped', true, withValue('zeroFret', true))));
     expect(design.ok).toBe(true);
     if (!design.ok) return;
     const back = validateDraft(draftFromDesign(design.design));
