@@ -1,4 +1,4 @@
-import { intersectLines, type Point, type Segment } from './plane';
+import { distance, intersectLines, lerpPoint, moveToward, type Point, type Segment } from './plane';
 
 export interface BoardOutlineInput {
   /** Drawn nut line ends on string 1 (treble) and string N (bass); the board starts here. */
@@ -68,4 +68,41 @@ export function acrossBoard(
     start: intersectLines(edges.treble.start, edges.treble.end, treble, bass),
     end: intersectLines(edges.bass.start, edges.bass.end, treble, bass),
   };
+}
+
+/** sin of the angle between two segments' directions (1 when square, near 0 when nearly parallel). */
+function sineBetween(a: Segment, b: Segment): number {
+  const ax = a.end.x - a.start.x;
+  const ay = a.end.y - a.start.y;
+  const bx = b.end.x - b.start.x;
+  const by = b.end.y - b.start.y;
+  return Math.abs(ax * by - ay * bx) / (Math.hypot(ax, ay) * Math.hypot(bx, by));
+}
+
+/**
+ * A stopped slot: the edge-to-edge `line` (treble edge first) shortened at each end so that the
+ * end lies `stopDistance` from its edge measured square to that edge (on a slanted fret the slot
+ * gives up more than `stopDistance` along itself). Collapses to the midpoint when too short.
+ */
+export function stopShortOfEdges(line: Segment, edges: BoardOutline['edges'], stopDistance: number): Segment {
+  const atStart = stopDistance / sineBetween(line, edges.treble);
+  const atEnd = stopDistance / sineBetween(line, edges.bass);
+  if (atStart + atEnd >= distance(line.start, line.end)) {
+    const middle = lerpPoint(line.start, line.end, 0.5);
+    return { start: middle, end: middle };
+  }
+  return { start: moveToward(line.start, line.start, line.end, atStart), end: moveToward(line.end, line.end, line.start, atEnd) };
+}
+
+/**
+ * The least overrun (along the slot, past each edge) at which a through slot's whole width, not
+ * just its centre line, clears the board edge: (width / 2) |cot θ| for the sharper of the two
+ * angles θ between the slot and the edges. 0 for slots square to both edges.
+ */
+export function minimumOverrun(line: Segment, edges: BoardOutline['edges'], slotWidth: number): number {
+  const cotangent = (edge: Segment) => {
+    const sine = sineBetween(line, edge);
+    return Math.sqrt(Math.max(0, 1 - sine * sine)) / sine;
+  };
+  return (slotWidth / 2) * Math.max(cotangent(edges.treble), cotangent(edges.bass));
 }

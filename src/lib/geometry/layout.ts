@@ -2,10 +2,10 @@ import type { LengthUnit } from '~/lib/format/units';
 import type { Design } from '~/lib/schemas/design';
 
 export type ScaleConvention = Design['scaleAlong'];
-import { acrossBoard, boardOutline } from './board-outline';
+import { acrossBoard, boardOutline, minimumOverrun, stopShortOfEdges } from './board-outline';
 import { layoutMarkers, type LayoutMarker } from './markers';
 import { layoutWarnings, type ClosestGap, type LayoutWarning } from './layout-warnings';
-import { intersectLines, lerpPoint, moveToward, shortenBothEnds, type Point, type Segment } from './plane';
+import { extendBothEnds, intersectLines, lerpPoint, moveToward, type Point, type Segment } from './plane';
 import { remainingFraction } from './temperament';
 
 export type { LayoutMarker } from './markers';
@@ -36,7 +36,7 @@ export interface FretPoint {
 export interface FretLine {
   /** The fret line from the treble edge of the board to the bass edge. */
   line: Segment;
-  /** The slot to cut: the full line, or stopped short of both edges. */
+  /** The slot to cut: the full line plus the design's overrun, or stopped short of both edges. */
   slot: Segment;
 }
 
@@ -57,6 +57,11 @@ export interface Layout {
   /** How the design's scale lengths were given: along each outer string, or as its run along the centre line. */
   scaleAlong: ScaleConvention;
   slotWidth: number;
+  /**
+   * The least `slot.overrun` at which every through slot's whole width clears both board edges
+   * (0 when every slot is square to the edges).
+   */
+  minimumOverrun: number;
   /** The fret square to the centre line, and its x. */
   perpendicularFret: { fret: number; x: number };
   strings: LayoutString[];
@@ -174,8 +179,10 @@ export function computeLayout(design: Design): Layout {
     endExtension: design.endExtension,
   });
 
+  // Stopped slots end stopDistance short of each edge, square to the edge; through slots run
+  // edge to edge and `overrun` past each edge along the slot.
   const cutSlot = (line: Segment): Segment =>
-    design.slot.stopped ? shortenBothEnds(line, design.slot.stopDistance) : line;
+    design.slot.stopped ? stopShortOfEdges(line, board.edges, design.slot.stopDistance) : extendBothEnds(line, design.slot.overrun);
 
   const spans: Segment[] = [{ start: nutTreble, end: nutBass }];
   const edgeLines: Segment[] = [acrossBoard(board.edges, nutTreble, nutBass)];
@@ -208,6 +215,7 @@ export function computeLayout(design: Design): Layout {
     units: design.units,
     scaleAlong: design.scaleAlong,
     slotWidth: design.slot.width,
+    minimumOverrun: Math.max(0, ...[...frets, ...(zeroFret ? [zeroFret] : [])].map((fret) => minimumOverrun(fret.line, board.edges, design.slot.width))),
     perpendicularFret: {
       fret: design.perpendicularFret,
       x: (perpendicularFraction * (trebleRun + bassRun)) / 2,

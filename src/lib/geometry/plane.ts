@@ -51,9 +51,8 @@ export function intersectLines(a1: Point, a2: Point, b1: Point, b2: Point): Poin
   return { x: a1.x + ax * s, y: a1.y + ay * s };
 }
 
-/** The segment shortened by `length` at both ends (collapses to its midpoint if too short). */
-export function shortenBothEnds(segment: Segment, length: number): Segment {
-  const span = distance(segment.start, segment.end);
-  const t = span > 2 * length ? length / span : 0.5;
-  return { start: lerpPoint(segment.start, segment.end, t), end: lerpPoint(segment.end, segment.start, t) };
+/** The segment made longer by `length` at both ends, along its own direction. */
+export function extendBothEnds(segment: Segment, length: number): Segment {
+  if (length === 0) return segment;
+  return { start: moveToward(segment.start, segment.end, segment.start, length), end: moveToward(segment.end, segment.start, segment.end, length) };
 }

@@ -5,6 +5,7 @@ import { computeLayout, type Layout, type Point } from '~/lib/geometry/layout';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design';
 import { validateExportOptions } from '~/lib/schemas/export-options';
+import { distanceToLine } from '../../support/expect-near';
 
 /** Slot end points must survive the file round trip to within 1e-9 of the design's unit. */
 const TOLERANCE = 1e-9;
@@ -132,15 +133,14 @@ describe('slot paths DXF read back with dxf-parser', () => {
     expect(matched.size).toBe(layout.frets.length);
   });
 
-  it('stops slots short of each board edge by the stop distance', async () => {
-    const design = withSlots(demo('classical-650'), { stopped: true, stopDistance: 2.5 });
+  it('stops slots short of each board edge by the stop distance, square to the edge (the fanned 7-string)', async () => {
+    const design = withSlots(demo('seven-string-fan'), { stopped: true, stopDistance: 2.5 });
     const layout = computeLayout(design);
     const { onLayer } = await dxf(design, {});
     onLayer('slots').forEach((line, index) => {
-      const edge = layout.frets[index]!.line;
       const [start, end] = line.vertices;
-      expectNear(distance(start!, edge.start), 2.5, `fret ${index + 1} treble stop (mm)`);
-      expectNear(distance(end!, edge.end), 2.5, `fret ${index + 1} bass stop (mm)`);
+      expectNear(distanceToLine(start!, layout.edges.treble), 2.5, `fret ${index + 1} treble stop (mm)`);
+      expectNear(distanceToLine(end!, layout.edges.bass), 2.5, `fret ${index + 1} bass stop (mm)`);
     });
   });
 

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { fretTableCsv } from '~/lib/export/csv';
 import { distance, type Point } from '~/lib/geometry/plane';
-import { expectNear } from '../../support/expect-near';
+import { kerfOutline } from '~/lib/export/kerf-outline';
+import { distanceToLine, expectNear } from '../../support/expect-near';
 import { fretPoint, layoutOf } from '../../support/design-builders';
 
 const FAN = {
@@ -151,12 +152,46 @@ describe('board, slots and compensation', () => {
     ]);
   });
 
-  it('stopped slots end stopDistance short of each edge', () => {
+  it('stopped slots end stopDistance short of each edge, measured square to the edge, on their fret line', () => {
     const layout = layoutOf({ ...FAN, slot: { stopped: true, stopDistance: 2.5 } });
     for (const fret of layout.frets) {
-      expectNear(distance(fret.line.start, fret.slot.start), 2.5, 1e-9); // mm
-      expectNear(distance(fret.line.end, fret.slot.end), 2.5, 1e-9);
+      expectNear(distanceToLine(fret.slot.start, layout.edges.treble), 2.5, 1e-9); // mm
+      expectNear(distanceToLine(fret.slot.end, layout.edges.bass), 2.5, 1e-9);
+      expectNear(distanceToLine(fret.slot.start, fret.line), 0, 1e-9);
+      expectNear(distanceToLine(fret.slot.end, fret.line), 0, 1e-9);
     }
+    // On the slanted high frets the slot gives up more than 2.5 mm along itself.
+    const last = layout.frets.at(-1)!;
+    expect(distance(last.line.start, last.slot.start)).toBeGreaterThan(2.5 + 1e-6);
+  });
+
+  it('through slots run `overrun` past each edge along the slot; from the layout minimum overrun on, both kerf corners clear the board', () => {
+    const width = 0.6;
+    const flush = layoutOf({ ...FAN, slot: { width } });
+    expect(flush.frets.every((fret) => distance(fret.slot.start, fret.line.start) === 0)).toBe(true);
+    // With no overrun, a slanted kerf leaves one corner inside the board at the high frets.
+    const outsideBy = (corner: Point, edge: { start: Point; end: Point }, inward: Point) =>
+      Math.sign((edge.end.x - edge.start.x) * (corner.y - edge.start.y) - (edge.end.y - edge.start.y) * (corner.x - edge.start.x)) ===
+      Math.sign((edge.end.x - edge.start.x) * (inward.y - edge.start.y) - (edge.end.y - edge.start.y) * (inward.x - edge.start.x))
+        ? -distanceToLine(corner, edge)
+        : distanceToLine(corner, edge);
+    const cornersOutside = (layout: typeof flush) =>
+      layout.frets.every((fret) => {
+        const [startLeft, endLeft, endRight, startRight] = kerfOutline(fret.slot, width);
+        const inside = { x: (fret.line.start.x + fret.line.end.x) / 2, y: 0 };
+        return [startLeft!, startRight!].every((c) => outsideBy(c, layout.edges.treble, inside) >= -1e-12)
+          && [endLeft!, endRight!].every((c) => outsideBy(c, layout.edges.bass, inside) >= -1e-12);
+      });
+    expect(flush.minimumOverrun).toBeGreaterThan(0);
+    expect(cornersOutside(flush)).toBe(false);
+    const over = layoutOf({ ...FAN, slot: { width, overrun: flush.minimumOverrun } });
+    for (const fret of over.frets) {
+      expectNear(distance(fret.slot.start, fret.line.start), flush.minimumOverrun, 1e-9); // mm
+      expectNear(distanceToLine(fret.slot.start, fret.line), 0, 1e-9);
+    }
+    expect(cornersOutside(over)).toBe(true);
+    // Square frets need none: (w/2)·cot 90° = 0 on a single-scale board with parallel edges.
+    expectNear(layoutOf({ ...FAN, scale: { treble: 650, bass: 650 }, stringSpacing: { nut: 50, bridge: 50 }, overhang: { nut: 4, end: 4 }, perpendicularFret: 0 }).minimumOverrun, 0, 1e-12);
   });
 
   it('compensation moves the drawn nut and saddle along the outer strings, never the frets', () => {
