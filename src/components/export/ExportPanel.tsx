@@ -9,6 +9,7 @@ import { PAPER_LABELS, PAPER_NAMES, ptToMm } from '~/lib/export/paper-sizes';
 import { sheetDrawing } from '~/lib/export/sheet-drawing';
 import { planTiles } from '~/lib/export/tile-pages';
 import { computeLayout } from '~/lib/geometry/layout';
+import { formatLength, fromMm } from '~/lib/format/units';
 import type { Design } from '~/lib/schemas/design';
 import {
   DEFAULT_EXPORT_OPTIONS,
@@ -235,6 +236,7 @@ export default function ExportPanel({ design }: Props) {
             ))}
           </select>
         </div>
+        <OverrunNote design={design} minimumOverrun={layout.minimumOverrun} />
       </fieldset>
 
       <div className="grid gap-4 md:grid-cols-2">
@@ -275,5 +277,18 @@ export default function ExportPanel({ design }: Props) {
         </aside>
       </div>
     </section>
+  );
+}
+
+/** For CNC: a note when through slots end flush with a slanted edge, suggesting an overrun. */
+function OverrunNote({ design, minimumOverrun }: { design: Design; minimumOverrun: number }) {
+  if (design.slot.stopped || design.slot.overrun >= minimumOverrun) return null;
+  const suggested = formatLength(Math.max(fromMm(1, design.units), minimumOverrun), design.units, true);
+  return (
+    <p className="text-xs text-ink-soft sm:col-span-2" role="note">
+      Through slots end on the board edge, so a slanted slot leaves uncut wood at the corners (they need at least{' '}
+      {formatLength(minimumOverrun, design.units, true)} past the edge). For CNC, set "Through slots run past each edge by" under
+      Slots to about {suggested}.
+    </p>
   );
 }
