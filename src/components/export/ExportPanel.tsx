@@ -33,6 +33,7 @@ interface FormState {
   strings: boolean;
   kerf: boolean;
   mirror: boolean;
+  toSaddle: boolean;
   slots: string;
   origin: string;
 }
@@ -69,6 +70,7 @@ export default function ExportPanel({ design }: Props) {
     strings: defaults.strings,
     kerf: defaults.kerf,
     mirror: defaults.mirror,
+    toSaddle: defaults.toSaddle,
     slots: defaults.slots,
     origin: defaults.origin,
   });
@@ -93,7 +95,7 @@ export default function ExportPanel({ design }: Props) {
   async function download(format: ExportFormat) {
     if (!validation.ok) return;
     setStatus({ state: 'busy', format });
-    const query = new URLSearchParams({ ...form, format, strings: String(form.strings), kerf: String(form.kerf), mirror: String(form.mirror) });
+    const query = new URLSearchParams({ ...form, format, strings: String(form.strings), kerf: String(form.kerf), mirror: String(form.mirror), toSaddle: String(form.toSaddle) });
     try {
       const response = await fetch(`/api/export?${query}`, {
         method: 'POST',
@@ -187,6 +189,10 @@ export default function ExportPanel({ design }: Props) {
         <label className="flex items-center gap-2 text-sm">
           <input type="checkbox" checked={form.mirror} onChange={(e) => set('mirror', e.target.checked)} />
           Mirror (template glued face-down)
+        </label>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={form.toSaddle} onChange={(e) => set('toSaddle', e.target.checked)} />
+          Draw on to the saddle (otherwise the board only, with a saddle mark on each outer string)
         </label>
       </fieldset>
 

@@ -40,7 +40,7 @@ import { planTiles, type Tile, type TilePlan } from './tile-pages';
 import { titleBlockLines, type ExportContext } from './title-block';
 
 type Rgb = [number, number, number];
-interface Pen {
+export interface Pen {
   widthPt: number;
   dashPt?: number[];
   colour: Rgb;
@@ -62,9 +62,16 @@ const PENS: Record<LineStyle, Pen> = {
   /** Thin, so a knife or saw lines up on the line's centre. */
   fret: { widthPt: 0.25, colour: BLACK },
   marker: { widthPt: 0.3, colour: BLACK },
+  'saddle-mark': { widthPt: 0.8, colour: BLACK },
 };
-const KERF_FILL: Rgb = [0.85, 0.85, 0.85];
-const WINDOW_EDGE: Pen = { widthPt: 0.2, dashPt: [3, 3], colour: LIGHT };
+/**
+ * The slot-width band: grey level 0.55 (sRGB), contrast 3.4:1 against white paper by the WCAG 2
+ * relative-luminance formula, so it shows on a 600 dpi laser print; the black fret line on top
+ * stays 6:1 against it.
+ */
+export const KERF_FILL: Rgb = [0.55, 0.55, 0.55];
+/** Where to trim overlapping tiles: dashed, 0.5 pt, grey level 0.3 (contrast 8:1 on white). */
+export const TRIM_LINE: Pen = { widthPt: 0.5, dashPt: [3, 2], colour: [0.3, 0.3, 0.3] };
 
 /** Alignment mark: a circle of 3 mm radius with a cross 8 mm long. */
 const MARK = { radiusMm: 3, armMm: 4 } as const;
@@ -178,7 +185,7 @@ function drawTile(
   page.pushOperators(popGraphicsState());
   if (plan.tiles.length > 1) {
     page.pushOperators(
-      ...penOps(WINDOW_EDGE),
+      ...penOps(TRIM_LINE),
       rectangle(window.x, window.y, window.width, window.height),
       stroke(),
     );

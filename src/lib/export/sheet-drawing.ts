@@ -3,8 +3,9 @@
  * nut toward the bridge, +y up the page = the bass side, or the treble side when mirrored).
  * The PDF writer draws these 1:1; nothing here knows about pages.
  */
-import { fromMm, toMm } from '~/lib/format/units';
+import { formatLength, fromMm, toMm } from '~/lib/format/units';
 import type { Layout, Point, Segment } from '~/lib/geometry/layout';
+import { distance, intersectLines } from '~/lib/geometry/plane';
 import type { ExportOptions } from '~/lib/schemas/export-options';
 import { kerfOutline } from './kerf-outline';
 import { ptToMm } from './paper-sizes';
@@ -19,7 +20,8 @@ export type LineStyle =
   | 'saddle-uncompensated'
   | 'string'
   | 'fret'
-  | 'marker';
+  | 'marker'
+  | 'saddle-mark';
 
 export type SheetItem =
   /** `fret` is set on fret lines (0 for a zero fret). */
@@ -44,10 +46,20 @@ const MONO_ADVANCE_EM = 0.6;
 /** Distinct nut/saddle lines are drawn only when compensation moves them further than this (mm). */
 const SAME_LINE_MM = 1e-6;
 
-/** Builds the drawing of a computed layout for the paper template. */
+/** How far the saddle marks run past the board end along the outer strings (mm). */
+const SADDLE_MARK_MM = 12;
+/** The side names sit this far outside the board edges (mm), clear of the fret numbers. */
+const SIDE_LABEL_OFFSET_MM = 10;
+
+/**
+ * Builds the drawing of a computed layout for the paper template: the board from the nut to its
+ * end (or on to the saddle with `toSaddle`), string numbers at the nut, "treble side" and
+ * "bass side" beside the edges, and, when the saddle is not drawn, a saddle mark on each outer
+ * string with the saddle's distance from the nut along that string.
+ */
 export function sheetDrawing(
   layout: Layout,
-  options: Pick<ExportOptions, 'strings' | 'kerf' | 'mirror'>,
+  options: Pick<ExportOptions, 'strings' | 'kerf' | 'mirror' | 'toSaddle'>,
 ): SheetDrawing {
   const flip = options.mirror ? -1 : 1;
   const sheet = (p: Point): Point => ({ x: toMm(p.x, layout.units), y: flip * toMm(p.y, layout.units) });
@@ -73,18 +85,26 @@ export function sheetDrawing(
       items.push({ kind: 'polygon', style: 'kerf', points: kerfOutline(slot, slotWidthMm) });
     }
   }
+  // Without the saddle, strings and the centre line stop at the board end.
+  const endOf = (from: Point, to: Point): Point =>
+    options.toSaddle ? to : intersectLines(from, to, layout.boardEnd.start, layout.boardEnd.end);
   if (options.strings) {
-    for (const string of layout.strings) items.push(line('string', { start: string.nut, end: string.saddle }));
+    for (const string of layout.strings) items.push(line('string', { start: string.nut, end: endOf(string.nut, string.saddle) }));
   }
-  items.push(line('centre-line', layout.centreLine));
+  items.push(line('centre-line', { start: layout.centreLine.start, end: endOf(layout.centreLine.start, layout.centreLine.end) }));
   items.push(line('nut', layout.nutLine));
   if (differs(layout.nutLine, layout.uncompensated.nutLine, layout)) {
     items.push(line('nut-uncompensated', layout.uncompensated.nutLine));
   }
-  items.push(line('saddle', layout.saddleLine));
-  if (differs(layout.saddleLine, layout.uncompensated.saddleLine, layout)) {
-    items.push(line('saddle-uncompensated', layout.uncompensated.saddleLine));
+  if (options.toSaddle) {
+    items.push(line('saddle', layout.saddleLine));
+    if (differs(layout.saddleLine, layout.uncompensated.saddleLine, layout)) {
+      items.push(line('saddle-uncompensated', layout.uncompensated.saddleLine));
+    }
+  } else {
+    items.push(...saddleMarks(layout, sheet));
   }
+  items.push(...stringNumbers(layout, sheet), ...sideNames(layout, sheet));
   for (const fret of fretLines) {
     const drawn = line('fret', fret.line, fret.number);
     items.push(drawn);
@@ -95,8 +115,51 @@ export function sheetDrawing(
     items.push({ kind: 'circle', style: 'marker', centre: sheet(marker.side), radiusMm: MARKER_RADIUS_MM.side });
   }
   items.push(endLabel('nut', sheet(layout.nutLine.end), sheet(layout.nutLine.start)));
-  items.push(endLabel('saddle', sheet(layout.saddleLine.end), sheet(layout.saddleLine.start)));
+  if (options.toSaddle) items.push(endLabel('saddle', sheet(layout.saddleLine.end), sheet(layout.saddleLine.start)));
   return { items, bounds: drawingBounds(items) };
+}
+
+/**
+ * On each outer string: a short line from the board end toward the saddle and the saddle's
+ * distance from the nut along that string (from the drawn nut line to the drawn saddle line).
+ */
+function saddleMarks(layout: Layout, sheet: (p: Point) => Point): SheetItem[] {
+  const outer = [
+    { string: layout.strings[0]!, saddle: layout.saddleLine.start },
+    { string: layout.strings.at(-1)!, saddle: layout.saddleLine.end },
+  ];
+  return outer.flatMap(({ string, saddle }) => {
+    const nut = intersectLines(string.nut, string.saddle, layout.nutLine.start, layout.nutLine.end);
+    const atEnd = sheet(intersectLines(string.nut, string.saddle, layout.boardEnd.start, layout.boardEnd.end));
+    const toward = sheet(string.saddle);
+    const span = distance(atEnd, toward);
+    const tip = { x: atEnd.x + ((toward.x - atEnd.x) / span) * SADDLE_MARK_MM, y: atEnd.y + ((toward.y - atEnd.y) / span) * SADDLE_MARK_MM };
+    const text = `saddle ${formatLength(distance(nut, saddle), layout.units, true)} from nut, string ${string.index}`;
+    const halfWidth = labelHalfWidthMm(text, LABEL_SIZE_PT);
+    return [
+      { kind: 'line', style: 'saddle-mark', start: atEnd, end: tip } satisfies SheetItem,
+      { kind: 'label', text, centre: { x: tip.x + 2 + halfWidth, y: tip.y }, sizePt: LABEL_SIZE_PT } satisfies SheetItem,
+    ];
+  });
+}
+
+/** The string numbers just before the nut line, 1 = treble. */
+function stringNumbers(layout: Layout, sheet: (p: Point) => Point): SheetItem[] {
+  return layout.strings.map((string) => {
+    const atNut = sheet(intersectLines(string.nut, string.saddle, layout.nutLine.start, layout.nutLine.end));
+    return { kind: 'label', text: String(string.index), centre: { x: atNut.x - LABEL_OFFSET_MM, y: atNut.y }, sizePt: LABEL_SIZE_PT };
+  });
+}
+
+/** "treble side" below the treble edge and "bass side" beyond the bass edge, halfway along. */
+function sideNames(layout: Layout, sheet: (p: Point) => Point): SheetItem[] {
+  const beside = (edge: Segment, otherEdge: Segment, text: string): SheetItem => {
+    const middle = sheet({ x: (edge.start.x + edge.end.x) / 2, y: (edge.start.y + edge.end.y) / 2 });
+    const across = sheet({ x: (otherEdge.start.x + otherEdge.end.x) / 2, y: (otherEdge.start.y + otherEdge.end.y) / 2 });
+    const outward = Math.sign(middle.y - across.y) || 1;
+    return { kind: 'label', text, centre: { x: middle.x, y: middle.y + outward * SIDE_LABEL_OFFSET_MM }, sizePt: LABEL_SIZE_PT };
+  };
+  return [beside(layout.edges.treble, layout.edges.bass, 'treble side'), beside(layout.edges.bass, layout.edges.treble, 'bass side')];
 }
 
 /** Whether `other`'s end points lie off the infinite line through `drawn` (compared in mm). */

@@ -61,6 +61,11 @@ export const exportOptionsSchema = z
     kerf: flag.default(true),
     /** Mirror the paper template across the centre line, for templates glued face-down. */
     mirror: flag.default(false),
+    /**
+     * Draw the paper template on to the saddle. By default it stops at the board end, with a
+     * saddle mark on each outer string giving its distance from the nut.
+     */
+    toSaddle: flag.default(false),
     /** Slot paths: single lines, or closed outlines of the slot width. */
     slots: choice(SLOT_STYLES).default('lines'),
     /** Slot paths origin: the nut centre (board coordinates) or the board's lower-left corner. */

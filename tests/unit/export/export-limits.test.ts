@@ -16,8 +16,9 @@ const ISO_MAX_PAGE_SIDE_PT = 14_400;
 const PT_PER_MM = 72 / 25.4;
 const TOLERANCE_PT = 0.01;
 
+/** The board sizes below were chosen for templates drawn on to the saddle (`toSaddle`). */
 function options(input: Record<string, unknown>): ExportOptions {
-  const result = validateExportOptions({ format: 'pdf', ...input });
+  const result = validateExportOptions({ format: 'pdf', toSaddle: true, ...input });
   if (!result.ok) throw new Error(JSON.stringify(result.issues));
   return result.options;
 }

@@ -91,8 +91,12 @@ describe('paper template PDF read back with pdfjs-dist and poppler', () => {
     expect(portrait.pages.length).toBeGreaterThanOrEqual(auto.pages.length);
     const fit = await template(design, { paper: 'fit' });
     expect(fit.pages.length).toBe(1);
-    // The saddle of the 686 mm bass string lies past 686 mm from the nut's bass end: the page is wider.
-    expect(fit.pages[0]!.widthPt).toBeGreaterThan(686 * PT_PER_MM);
+    // By default the template stops at the board end (fret 24 is under 3/4 of 686 mm from the nut):
+    // the page is narrower than the bass string. Drawn on to the saddle it is wider.
+    expect(fit.pages[0]!.widthPt).toBeLessThan(686 * PT_PER_MM);
+    const toSaddle = await template(design, { paper: 'fit', toSaddle: true });
+    expect(toSaddle.pages.length).toBe(1);
+    expect(toSaddle.pages[0]!.widthPt).toBeGreaterThan(686 * PT_PER_MM);
   });
 
   it('draws a 100 mm bar of 283.465 pt and a 4 in bar of 288 pt on every page (ISO 32000-1 units)', async () => {
@@ -197,5 +201,68 @@ describe('paper template PDF read back with pdfjs-dist and poppler', () => {
     let dark = 0;
     for (let i = 0; i < png.data.length; i += 4) if (png.data[i]! < 100) dark++;
     expect(dark).toBeGreaterThan(1000);
+  });
+});
+
+/** WCAG 2.x relative luminance of an sRGB colour with channels 0..255, and the contrast ratio. */
+function luminance([r, g, b]: readonly number[]): number {
+  const linear = (c: number) => {
+    const s = c / 255;
+    return s <= 0.04045 ? s / 12.92 : ((s + 0.055) / 1.055) ** 2.4;
+  };
+  return 0.2126 * linear(r!) + 0.7152 * linear(g!) + 0.0722 * linear(b!);
+}
+const contrast = (a: readonly number[], b: readonly number[]) => {
+  const [hi, lo] = [luminance(a), luminance(b)].sort((x, y) => y - x);
+  return (hi! + 0.05) / (lo! + 0.05);
+};
+
+/** The fill colours a page sets (pdfjs reads `rg` operators back as #rrggbb). */
+async function fillColours(bytes: Uint8Array, pageNumber: number): Promise<number[][]> {
+  const pdfjs = await import('pdfjs-dist/legacy/build/pdf.mjs');
+  const document = await pdfjs.getDocument({ data: new Uint8Array(bytes) }).promise;
+  const page = await document.getPage(pageNumber);
+  const list = await page.getOperatorList();
+  const colours: number[][] = [];
+  list.fnArray.forEach((fn, i) => {
+    if (fn !== pdfjs.OPS.setFillRGBColor) return;
+    const [hex] = list.argsArray[i] as [string];
+    colours.push([1, 3, 5].map((at) => parseInt(hex.slice(at, at + 2), 16)));
+  });
+  return colours;
+}
+
+describe('a paper template a bench can work from', () => {
+  it('stops at the board end by default, with a saddle mark and its distance from the nut on each outer string', async () => {
+    const fan = demo('seven-string-fan');
+    const { bytes } = await template(fan, { paper: 'fit' });
+    const text = pageText(bytes, 1);
+    // No nut setback on the demo fan: the drawn saddle lies its scale plus its saddle setback from
+    // the nut along each outer string (648 + 1.5 and 686 + 4 mm, the demo's own numbers).
+    expect(fan.compensation.nut).toBe(0);
+    expect(text).toContain(`saddle ${(648 + fan.compensation.saddleTreble).toFixed(2)} mm from nut, string 1`);
+    expect(text).toContain(`saddle ${(686 + fan.compensation.saddleBass).toFixed(2)} mm from nut, string 7`);
+    const drawnToSaddle = pageText((await template(demo('seven-string-fan'), { paper: 'fit', toSaddle: true })).bytes, 1);
+    expect(drawnToSaddle).not.toContain('from nut, string');
+    expect(drawnToSaddle).toMatch(/\bsaddle\b/);
+  });
+
+  it('numbers the strings at the nut and names the treble and bass sides, mirrored or not', async () => {
+    for (const mirror of [false, true]) {
+      const { bytes } = await template(demo('seven-string-fan'), { paper: 'fit', mirror });
+      const words = pageText(bytes, 1).split(/\s+/);
+      for (const n of ['1', '2', '3', '4', '5', '6', '7']) expect(words).toContain(n);
+      expect(pageText(bytes, 1)).toMatch(/treble side/);
+      expect(pageText(bytes, 1)).toMatch(/bass side/);
+    }
+  });
+
+  it('prints the slot-width band dark enough for a laser print: at least 3:1 against white paper (WCAG 2 contrast), read back from the PDF', async () => {
+    const { bytes } = await template(demo('classical-650'), { paper: 'fit', kerf: true });
+    const greys = (await fillColours(bytes, 1)).filter(([r, g, b]) => r === g && g === b && r! > 0 && r! < 255);
+    expect(greys.length).toBeGreaterThan(0);
+    for (const grey of greys) expect(contrast(grey, [255, 255, 255])).toBeGreaterThanOrEqual(3);
+    // The black fret line on top of the band still stands out from it.
+    for (const grey of greys) expect(contrast(grey, [0, 0, 0])).toBeGreaterThanOrEqual(3);
   });
 });
