@@ -9,9 +9,10 @@
  * exactly L (1 - r(n)) from the nut; a fanned strip follows the design's own string lines and
  * each slot keeps its angle.
  */
+import { scaleConventionWords } from '~/lib/format/design-specs';
 import { fromMm, formatLength, type LengthUnit } from '~/lib/format/units';
 import { computeLayout } from '~/lib/geometry/layout';
-import { intersectLines, type Point, type Segment } from '~/lib/geometry/plane';
+import { distance, intersectLines, type Point, type Segment } from '~/lib/geometry/plane';
 import type { Design } from '~/lib/schemas/design';
 
 /** Strip proportions in mm (our own plain choices), converted for designs in inches. */
@@ -60,8 +61,19 @@ export interface IndexTemplateStrip {
   nutSlot: IndexSlot;
   slots: IndexSlot[];
   engraving: EngravedText[];
+  /**
+   * How the strip registers: along its treble edge (the long straight reference edge) from the
+   * nut-end corner to the nut slot's centre line, and the angle between the nut slot and that edge
+   * (90° when the nut is square to it).
+   */
+  registration: { fromEndAlongEdge: number; nutAngleToEdgeDeg: number };
   /** Cautions and instructions that travel with every export of the strip. */
   notes: string[];
+}
+
+/** Where the strip's design came from: a saved board revision, or typed scale lengths only. */
+export interface StripSource {
+  revision: number | null;
 }
 
 export const MACHINE_CAUTIONS = [
@@ -74,7 +86,7 @@ export const MACHINE_CAUTIONS = [
  * The strip for `design` with slots as wide as the jig key (`keyWidth`, design units), not the
  * saw kerf. Fret positions come from computeLayout.
  */
-export function indexTemplateStrip(design: Design, keyWidth: number): IndexTemplateStrip {
+export function indexTemplateStrip(design: Design, keyWidth: number, source: StripSource = { revision: null }): IndexTemplateStrip {
   const fanned = design.scale.treble !== design.scale.bass;
   const stripDesign: Design = fanned ? design : { ...design, stringSpacing: { ...design.stringSpacing, bridge: design.stringSpacing.nut } };
   const layout = computeLayout(stripDesign);
@@ -136,10 +148,17 @@ export function indexTemplateStrip(design: Design, keyWidth: number): IndexTempl
     height: mm(STRIP_MM.titleHeight),
   });
 
+  const nutOnEdge = intersectLines(treble.nut, bass.nut, trebleEdge.start, trebleEdge.end);
+  const registration = {
+    fromEndAlongEdge: distance(outline[0]!, nutOnEdge),
+    nutAngleToEdgeDeg: angleBetweenDeg({ start: treble.nut, end: bass.nut }, trebleEdge),
+  };
   const notes = [
-    `Index template for ${design.name}: ${design.frets} frets, scale ${scales}.`,
+    `Index template for ${design.name}: ${design.frets} frets, scale ${scales} (${scaleConventionWords(design.scaleAlong)}).`,
+    source.revision === null ? 'Made from typed scale lengths, not from a saved board revision.' : `Made from revision ${source.revision} of the board.`,
     `Units: ${design.units === 'mm' ? 'millimetres' : 'inches'}. Slot width = jig key width ${formatLength(keyWidth, design.units, true)} (not the saw kerf).`,
-    'The NUT slot and the strip end are the registration for the nut line.',
+    `Registration: the treble edge is the reference edge; the NUT slot's centre line crosses it ${formatLength(registration.fromEndAlongEdge, design.units, true)} from the strip's nut end, measured along that edge.`,
+    ...(fanned ? [`The NUT slot meets the treble edge at ${registration.nutAngleToEdgeDeg.toFixed(2)}° (90° would be square to it).`] : []),
     ...(fanned
       ? [
           `Fanned layout: every slot has its own angle (${Math.min(...slots.map((s) => s.angleDeg)).toFixed(2)}° to ${Math.max(...slots.map((s) => s.angleDeg)).toFixed(2)}° from square); the jig must follow each slot's angle.`,
@@ -159,6 +178,17 @@ export function indexTemplateStrip(design: Design, keyWidth: number): IndexTempl
     nutSlot,
     slots,
     engraving,
+    registration,
     notes,
   };
+}
+
+/** The angle between two lines, 0° to 90°. */
+function angleBetweenDeg(a: Segment, b: Segment): number {
+  const ax = a.end.x - a.start.x;
+  const ay = a.end.y - a.start.y;
+  const bx = b.end.x - b.start.x;
+  const by = b.end.y - b.start.y;
+  const cosine = Math.abs(ax * bx + ay * by) / (Math.hypot(ax, ay) * Math.hypot(bx, by));
+  return (Math.acos(Math.min(1, cosine)) * 180) / Math.PI;
 }

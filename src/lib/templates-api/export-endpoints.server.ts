@@ -59,7 +59,7 @@ async function indexTemplate(user: SessionUser | null, id: string | undefined, u
   const { template } = found.value;
   const design = await stripDesign(found.value.user.shopId, template, url);
   if (!design.ok) return design.response;
-  const strip = indexTemplateStrip(design.value, template.keyWidth);
+  const strip = indexTemplateStrip(design.value.design, template.keyWidth, { revision: design.value.revision });
   const stem = `${fileStem(template.name, template.id)}-index-template`;
   const cost = indexTemplateCost(strip, format === 'pdf' ? indexTemplatePage(strip).pageSize : null);
   const refusal = refuseOverCap(cost, 'this index template', 'format', 'use format=dxf, which has no page size');
@@ -85,10 +85,12 @@ const FAN_FIELDS = Object.keys(FAN_GEOMETRY_LABELS) as (keyof typeof FAN_GEOMETR
  * template's slot angles depend on the string spacing and perpendicular fret it has no record
  * of, so those come from the query (`nutSpacing`, `saddleSpacing`, `perpendicularFret`).
  */
-async function stripDesign(shopId: number, template: TemplateView, url: URL): Promise<Allowed<Design>> {
+/** The design the strip is drawn from, and the board revision it is (null for a stand-in from typed values). */
+async function stripDesign(shopId: number, template: TemplateView, url: URL): Promise<Allowed<{ design: Design; revision: number | null }>> {
   const reference = await templateDesign(db(), shopId, template);
   if (!reference) return { ok: false, response: problem(409, "This template's design could not be read", { field: 'designId' }) };
-  if (!reference.standIn || template.trebleScale === template.bassScale) return { ok: true, value: reference.design };
+  if (!reference.standIn) return { ok: true, value: { design: reference.design, revision: template.revision } };
+  if (template.trebleScale === template.bassScale) return { ok: true, value: { design: reference.design, revision: null } };
 
   const given = FAN_FIELDS.filter((field) => (url.searchParams.get(field) ?? '').trim() !== '');
   const missing = FAN_FIELDS.filter((field) => !given.includes(field));
@@ -105,5 +107,5 @@ async function stripDesign(shopId: number, template: TemplateView, url: URL): Pr
   const fan = fanGeometrySchema.safeParse(Object.fromEntries(given.map((field) => [field, Number(url.searchParams.get(field))])));
   if (!fan.success) return { ok: false, response: invalid(zodIssues(fan.error)) };
   const design = fannedStandInDesign(template, fan.data);
-  return design.ok ? { ok: true, value: design.design } : { ok: false, response: invalid(design.issues) };
+  return design.ok ? { ok: true, value: { design: design.design, revision: null } } : { ok: false, response: invalid(design.issues) };
 }

@@ -6,6 +6,7 @@ import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server';
 import { computeLayout } from '~/lib/geometry/layout';
 import { designOf } from '../../support/design-builders';
 import { expectNear } from '../../support/expect-near';
+import { pageText } from '../../support/pdf-readback.ts';
 import { readPdf } from './pdf-readback';
 
 /** Closed form for 12-tone equal temperament: d(n) = L (1 - 2^(-n/12)). */
@@ -123,5 +124,43 @@ describe('index template PDF (read back with pdfjs-dist)', () => {
     expect(vertical.some((s) => Math.abs(s.x1 - (out.placement.originX - 15 * PT_PER_MM)) < 0.01)).toBe(true);
     expect(page!.text).toMatch(/Print at 100 % \/ actual size\. Measure both bars before cutting/);
     expect(page!.text).toMatch(/100 mm/);
+  });
+});
+
+describe('index template notes say how to use it', () => {
+  const fan = designOf({ name: 'Fan 7', strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 0, stringSpacing: { nut: 48, bridge: 75 }, frets: 24 });
+
+  it('single scale: the nut slot crosses the treble reference edge 15 mm from the strip end (the strip proportion), square to it', () => {
+    const strip = indexTemplateStrip(classical, 0.6, { revision: 3 });
+    expectNear(strip.registration.fromEndAlongEdge, 15, 1e-9); // mm
+    expectNear(strip.registration.nutAngleToEdgeDeg, 90, 1e-9); // degrees
+    expect(strip.notes).toContain('Made from revision 3 of the board.');
+    expect(strip.notes.join(' ')).toMatch(/crosses it 15\.00 mm from the strip's nut end, measured along that edge/);
+    expect(strip.notes.join(' ')).toMatch(/scale 650\.00 mm \(scale lengths measured along each outer string\)/);
+    expect(strip.notes.join(' ')).toMatch(/jig key width 0\.60 mm/);
+  });
+
+  it('fan perpendicular at the nut: the treble edge runs along string 1, so the nut slot meets it at the angle between string 1 and the nut (hand-computed with atan2)', () => {
+    const layout = computeLayout(fan);
+    const string1 = layout.strings[0]!;
+    // Our own worked check: the nut is square to the centre line here (perpendicular fret 0), and
+    // string 1 leaves the centre-line direction by atan2(spread, run); the angle to the nut is 90° minus that.
+    const slope = (Math.atan2(string1.saddle.y - string1.nut.y, string1.saddle.x - string1.nut.x) * 180) / Math.PI;
+    const strip = indexTemplateStrip(fan, 0.7, { revision: null });
+    expectNear(strip.registration.nutAngleToEdgeDeg, 90 - Math.abs(slope), 1e-9); // degrees
+    expect(strip.notes).toContain('Made from typed scale lengths, not from a saved board revision.');
+    expect(strip.notes.join(' ')).toMatch(/The NUT slot meets the treble edge at \d+\.\d\d° \(90° would be square to it\)/);
+    // The registration distance along the slanted edge is a little over the 15 mm taken along the centre line.
+    expect(strip.registration.fromEndAlongEdge).toBeGreaterThan(15);
+  });
+
+  it('the same notes are in the PDF and the DXF', async () => {
+    const strip = indexTemplateStrip(classical, 0.6, { revision: 3 });
+    const dxf = indexTemplateDxf(strip);
+    expect(dxf).toContain('Made from revision 3 of the board.');
+    const pdf = await indexTemplatePdf(strip);
+    const text = pageText(pdf.bytes, 1).replace(/\s+/g, ' ');
+    expect(text).toContain('Made from revision 3 of the board.');
+    expect(text).toContain("crosses it 15.00 mm from the strip's nut end");
   });
 });
