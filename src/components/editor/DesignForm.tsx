@@ -92,7 +92,7 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
                     checked={draft.choices[path] === option}
                     onChange={() => onChange((d) => ({ ...d, choices: { ...d.choices, [path]: option } }))}
                   />
-                  {field.optionLabels[option]}
+                  {(field.optionLabels as Readonly<Record<string, string>>)[option]}
                 </label>
               ))}
             </div>

@@ -13,13 +13,17 @@ export interface BoardOutlineInput {
   /** Edge beyond the outer strings at the nut and at the board end, square to the centre line. */
   overhangNut: number;
   overhangEnd: number;
-  /** Board end = last fret line moved this far toward the bridge along the centre line. */
+  /** How far the board end lies past the last fret, measured as `endMarginAt` says. */
   endExtension: number;
+  /** `centreLine`: along the centre line; `edge`: along each edge, the smaller of the two. */
+  endMarginAt: 'centreLine' | 'edge';
+  /** The end line's direction: parallel to the last fret, or square to the centre line. */
+  endLine: 'parallelToLastFret' | 'squareToCentreLine';
 }
 
 export interface BoardOutline {
   edges: { treble: Segment; bass: Segment };
-  /** The board end line, treble edge to bass edge, parallel to the last fret. */
+  /** The board end line, treble edge to bass edge. */
   boardEnd: Segment;
   /** The drawn nut line, treble edge to bass edge. */
   nutLine: Segment;
@@ -27,15 +31,71 @@ export interface BoardOutline {
   outline: Point[];
 }
 
+/** Iterations allowed for an end placed by its margin along the edges (it converges in a few). */
+const EDGE_MARGIN_ITERATIONS = 50;
+
 /**
  * The board's outline: straight edges that pass `overhangNut` outside the outer strings at the nut
- * line and `overhangEnd` outside them at the board end; the end is parallel to the last fret.
+ * line and `overhangEnd` outside them at the board end. The end lies `endExtension` past the last
+ * fret, along the centre line or (`endMarginAt: 'edge'`) along each edge where that is smallest,
+ * parallel to the last fret or square to the centre line.
  */
 export function boardOutline(input: BoardOutlineInput): BoardOutline {
-  const endTreble = { x: input.lastFretTreble.x + input.endExtension, y: input.lastFretTreble.y };
-  const endBass = { x: input.lastFretBass.x + input.endExtension, y: input.lastFretBass.y };
-  const trebleAtEnd = intersectLines(input.nutTreble, input.trebleStringFar, endTreble, endBass);
-  const bassAtEnd = intersectLines(input.nutBass, input.bassStringFar, endTreble, endBass);
+  const fretTreble = input.lastFretTreble;
+  const fretBass = input.lastFretBass;
+  const direction = input.endLine === 'parallelToLastFret' ? { x: fretBass.x - fretTreble.x, y: fretBass.y - fretTreble.y } : { x: 0, y: 1 };
+  const through = (p: Point): Segment => ({ start: p, end: { x: p.x + direction.x, y: p.y + direction.y } });
+  if (input.endLine === 'parallelToLastFret' && input.endMarginAt === 'centreLine') {
+    // The last fret line moved along x: kept in this form so boards laid out before the end
+    // options existed come out exactly as they did.
+    return outlineWithEnd(input, {
+      start: { x: fretTreble.x + input.endExtension, y: fretTreble.y },
+      end: { x: fretBass.x + input.endExtension, y: fretBass.y },
+    });
+  }
+  const fretOnCentre = intersectLines(fretTreble, fretBass, { x: 0, y: 0 }, { x: 1, y: 0 });
+  let board = outlineWithEnd(input, through({ x: fretOnCentre.x + input.endExtension, y: 0 }));
+  if (input.endMarginAt === 'centreLine') return board;
+  for (let i = 0; i < EDGE_MARGIN_ITERATIONS; i++) {
+    const end = endByEdgeMargin(board.edges, fretTreble, fretBass, input.endExtension, through);
+    const next = outlineWithEnd(input, end);
+    const moved = distance(next.boardEnd.start, board.boardEnd.start) + distance(next.boardEnd.end, board.boardEnd.end);
+    board = next;
+    if (moved <= 1e-13 * Math.max(1, Math.abs(fretOnCentre.x))) break;
+  }
+  return board;
+}
+
+/**
+ * The end line (through `through(point)`) that lies `margin` past the last fret along the edge
+ * where the gap is smallest: the candidate placed from one edge is kept when the other edge's gap
+ * is at least as large.
+ */
+function endByEdgeMargin(
+  edges: BoardOutline['edges'],
+  fretTreble: Point,
+  fretBass: Point,
+  margin: number,
+  through: (p: Point) => Segment,
+): Segment {
+  const gapAlong = (edge: Segment, end: Segment) => {
+    const fret = intersectLines(edge.start, edge.end, fretTreble, fretBass);
+    const atEnd = intersectLines(edge.start, edge.end, end.start, end.end);
+    const forward = (atEnd.x - fret.x) * (edge.end.x - edge.start.x) + (atEnd.y - fret.y) * (edge.end.y - edge.start.y);
+    return Math.sign(forward) * distance(fret, atEnd);
+  };
+  const fromEdge = (edge: Segment): Segment => {
+    const fret = intersectLines(edge.start, edge.end, fretTreble, fretBass);
+    return through(moveToward(fret, edge.start, edge.end, margin));
+  };
+  const [treble, bass] = [fromEdge(edges.treble), fromEdge(edges.bass)];
+  return gapAlong(edges.bass, treble) >= gapAlong(edges.treble, bass) ? treble : bass;
+}
+
+/** The outline whose end runs along `end` (any two points on the end line). */
+function outlineWithEnd(input: BoardOutlineInput, end: Segment): BoardOutline {
+  const trebleAtEnd = intersectLines(input.nutTreble, input.trebleStringFar, end.start, end.end);
+  const bassAtEnd = intersectLines(input.nutBass, input.bassStringFar, end.start, end.end);
 
   const trebleEdgeA = { x: input.nutTreble.x, y: input.nutTreble.y - input.overhangNut };
   const trebleEdgeB = { x: trebleAtEnd.x, y: trebleAtEnd.y - input.overhangEnd };
@@ -44,8 +104,8 @@ export function boardOutline(input: BoardOutlineInput): BoardOutline {
 
   const nutTrebleCorner = intersectLines(trebleEdgeA, trebleEdgeB, input.nutTreble, input.nutBass);
   const nutBassCorner = intersectLines(bassEdgeA, bassEdgeB, input.nutTreble, input.nutBass);
-  const endTrebleCorner = intersectLines(trebleEdgeA, trebleEdgeB, endTreble, endBass);
-  const endBassCorner = intersectLines(bassEdgeA, bassEdgeB, endTreble, endBass);
+  const endTrebleCorner = intersectLines(trebleEdgeA, trebleEdgeB, end.start, end.end);
+  const endBassCorner = intersectLines(bassEdgeA, bassEdgeB, end.start, end.end);
 
   return {
     edges: {

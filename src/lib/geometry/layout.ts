@@ -177,6 +177,8 @@ export function computeLayout(design: Design): Layout {
     overhangNut: design.overhang.nut,
     overhangEnd: design.overhang.end,
     endExtension: design.endExtension,
+    endMarginAt: design.endMarginAt,
+    endLine: design.endLine,
   });
 
   // Stopped slots end stopDistance short of each edge, square to the edge; through slots run

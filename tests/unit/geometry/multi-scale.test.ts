@@ -258,3 +258,40 @@ describe('board, slots and compensation', () => {
     expect(layoutOf().warnings).toEqual([]);
   });
 });
+
+describe('where the board ends', () => {
+  const gapAlong = (edge: { start: Point; end: Point }, fret: { start: Point; end: Point }, end: { start: Point; end: Point }) => {
+    const cross = (a: { start: Point; end: Point }, b: { start: Point; end: Point }) => {
+      const ax = a.end.x - a.start.x, ay = a.end.y - a.start.y, bx = b.end.x - b.start.x, by = b.end.y - b.start.y;
+      const s = ((b.start.x - a.start.x) * by - (b.start.y - a.start.y) * bx) / (ax * by - ay * bx);
+      return { x: a.start.x + ax * s, y: a.start.y + ay * s };
+    };
+    return distance(cross(edge, fret), cross(edge, end));
+  };
+
+  it('today: the end is the last fret moved endExtension along the centre line, parallel to it', () => {
+    const layout = layoutOf({ ...FAN, endExtension: 10 });
+    const last = layout.frets.at(-1)!;
+    const direction = (s: { start: Point; end: Point }) => Math.atan2(s.end.y - s.start.y, s.end.x - s.start.x);
+    expectNear(direction(layout.boardEnd), direction(last.line), 1e-12); // radians
+    const onCentre = (s: { start: Point; end: Point }) => s.start.x + ((s.end.x - s.start.x) * (0 - s.start.y)) / (s.end.y - s.start.y);
+    expectNear(onCentre(layout.boardEnd) - onCentre(last.line), 10, 1e-9); // mm
+  });
+
+  it('a margin at the edge where it is smallest: at least endExtension past the last fret along both edges, exactly on one', () => {
+    for (const endLine of ['parallelToLastFret', 'squareToCentreLine'] as const) {
+      const layout = layoutOf({ ...FAN, endExtension: 10, endMarginAt: 'edge', endLine });
+      const last = layout.frets.at(-1)!.line;
+      const gaps = [gapAlong(layout.edges.treble, last, layout.boardEnd), gapAlong(layout.edges.bass, last, layout.boardEnd)];
+      expectNear(Math.min(...gaps), 10, 1e-9); // mm
+      expect(Math.max(...gaps)).toBeGreaterThanOrEqual(10 - 1e-9);
+    }
+  });
+
+  it('square to the centre line: both end corners have the same x', () => {
+    for (const endMarginAt of ['centreLine', 'edge'] as const) {
+      const layout = layoutOf({ ...FAN, endExtension: 10, endMarginAt, endLine: 'squareToCentreLine' });
+      expectNear(layout.boardEnd.start.x, layout.boardEnd.end.x, 1e-9); // mm
+    }
+  });
+});
