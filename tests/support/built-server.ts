@@ -17,13 +17,16 @@ async function answers(url: string): Promise<boolean> {
   return fetch(`${url}/api/version`, { signal: AbortSignal.timeout(1000) }).then((r) => r.ok, () => false);
 }
 
-/** Starts the built server on `port` (a free one by default) and waits up to 20 s for it to answer. */
-export async function startBuiltServer(port?: number): Promise<BuiltServer> {
+/**
+ * Starts the built server on `port` (a free one by default) and waits up to 20 s for it to answer.
+ * `env` adds settings such as TRUSTED_PROXIES or RATE_LIMIT_SCALE (README, Configuration).
+ */
+export async function startBuiltServer(port?: number, env: Record<string, string> = {}): Promise<BuiltServer> {
   const chosen = port ?? (await freePort());
   const url = `http://127.0.0.1:${chosen}`;
   // APP_ORIGIN is this server's own origin: the same-origin check compares Origin headers with it.
   const child: ChildProcess = spawn(process.execPath, ['scripts/serve-built-app.mjs'], {
-    env: { ...process.env, HOST: '127.0.0.1', PORT: String(chosen), APP_ORIGIN: url },
+    env: { ...process.env, HOST: '127.0.0.1', PORT: String(chosen), APP_ORIGIN: url, ...env },
     stdio: 'ignore',
   });
   const exited = once(child, 'exit');

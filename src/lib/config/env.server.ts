@@ -14,6 +14,8 @@ const envSchema = z.object({
   /** "demo" shows the development Outbox page; "production" hides it. */
   KERFLINE_MODE: z.enum(['demo', 'production']).default('demo'),
   OUTBOX_DIR: z.string().default('.data/outbox'),
+  /** Multiplies every rate limit budget; only for a load-test server (docs/operations.md). */
+  RATE_LIMIT_SCALE: z.coerce.number().positive().max(1_000_000).default(1),
 });
 
 export interface AppConfig {
@@ -23,6 +25,8 @@ export interface AppConfig {
   mailFrom: string;
   mode: 'demo' | 'production';
   outboxDir: string;
+  /** Factor on every rate limit budget's points (1 in normal use). */
+  rateLimitScale: number;
 }
 
 let cached: AppConfig | undefined;
@@ -44,6 +48,7 @@ export function config(): AppConfig {
     mailFrom: parsed.data.MAIL_FROM,
     mode: parsed.data.KERFLINE_MODE,
     outboxDir: parsed.data.OUTBOX_DIR,
+    rateLimitScale: parsed.data.RATE_LIMIT_SCALE,
   };
   return cached;
 }
