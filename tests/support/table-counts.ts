@@ -10,7 +10,8 @@ let countQuery: string | undefined;
 export async function tableCounts(): Promise<Record<string, number>> {
   if (!countQuery) {
     const [tables] = await getPool().query<RowDataPacket[]>(
-      'SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name <> 'rate_limits' ORDER BY table_name',
+      'SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name <> ? ORDER BY table_name',
+      ['rate_limits'],
     );
     countQuery = `SELECT ${tables.map(({ name }) => `(SELECT COUNT(*) FROM \`${String(name)}\`) AS \`${String(name)}\``).join(', ')}`;
   }
