@@ -112,16 +112,20 @@ export async function consume(counter: Counter, key: string, points = 1): Promis
   }
 }
 
-/** Counts one request against every (counter, key) pair; the longest wait wins when any refuses. */
+/**
+ * Counts one request against each (counter, key) pair in turn. The first pair that refuses
+ * answers, and the pairs before it get their point back, so a request refused by one budget
+ * (say a user's) does not spend another (the shop's).
+ */
 export async function consumeEach(checks: readonly (readonly [Counter, string])[]): Promise<LimitVerdict> {
-  return worstOf(await Promise.all(checks.map(([counter, key]) => consume(counter, key))));
-}
-
-/** The longest wait among refused verdicts, or ok. */
-export function worstOf(verdicts: readonly LimitVerdict[]): LimitVerdict {
-  let wait = 0;
-  for (const v of verdicts) if (!v.ok) wait = Math.max(wait, v.retryAfterSeconds);
-  return wait > 0 ? { ok: false, retryAfterSeconds: wait } : { ok: true };
+  for (const [index, [counter, key]] of checks.entries()) {
+    const verdict = await consume(counter, key);
+    if (!verdict.ok) {
+      await Promise.all(checks.slice(0, index).map(([taken, takenKey]) => refund(taken, takenKey)));
+      return verdict;
+    }
+  }
+  return { ok: true };
 }
 
 /** Points counted against `key` in its current window (0 when none), without counting. */

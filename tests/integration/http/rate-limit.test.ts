@@ -78,13 +78,15 @@ describe('shared fixed-window rate limiter (MariaDB store)', () => {
     expect((await consume(c, 'shared')).ok).toBe(false);
   });
 
-  it('consumeEach counts every pair and answers the longest wait', async () => {
-    const short = counter(1, 10);
-    const long = counter(1, 100);
-    expect((await consumeEach([[short, 'x'], [long, 'x']])).ok).toBe(true);
-    const refused = await consumeEach([[short, 'x'], [long, 'x']]);
+  it('consumeEach counts every pair; when one refuses, the pairs before it get their point back', async () => {
+    const wide = counter(5, 10);
+    const narrow = counter(1, 100);
+    expect((await consumeEach([[wide, 'x'], [narrow, 'x']])).ok).toBe(true);
+    expect(await countOf(wide, 'x')).toBe(1);
+    const refused = await consumeEach([[wide, 'x'], [narrow, 'x']]);
     expect(refused.ok).toBe(false);
     if (!refused.ok) expect(refused.retryAfterSeconds).toBeGreaterThan(10);
+    expect(await countOf(wide, 'x')).toBe(1);
   });
 
   it('takes keys longer than the column (a 254-character e-mail and an address) without an error', async () => {
