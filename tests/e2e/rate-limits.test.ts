@@ -9,7 +9,6 @@
  * 198.51.100.0/24, 203.0.113.0/24) of its own, so no test spends another's (or 127.0.0.1's)
  * budget. Lock-outs follow OWASP ASVS 2.2.1 and the OWASP Authentication Cheat Sheet.
  */
-import { randomInt } from 'node:crypto';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
@@ -36,10 +35,12 @@ afterAll(async () => {
   await closeDb();
 });
 
-/** A fresh documentation-range address for one test (see the header). */
+let addressesGiven = 0;
+/** A documentation-range address no other test in this run gets (see the header). */
 function testAddress(): string {
   const nets = ['192.0.2', '198.51.100', '203.0.113'];
-  return `${nets[randomInt(3)]}.${randomInt(1, 255)}`;
+  const n = addressesGiven++;
+  return `${nets[Math.floor(n / 254) % nets.length]}.${(n % 254) + 1}`;
 }
 
 interface Send {
@@ -169,8 +170,9 @@ describe('route budgets on CPU-heavy public routes', () => {
   it('per signed-in user too: one user spread over many addresses is refused once the user budget is used', async () => {
     const builder = await newShopUser('builder');
     const budget = ROUTE_BUDGETS.export.perUser.points;
-    for (let i = 0; i < budget; i++) expect((await exportBody(proxied.url, { forwardedFor: `198.51.100.${(i % 250) + 1}`, cookie: builder.cookie })).status).toBe(400);
-    expect((await exportBody(proxied.url, { forwardedFor: '192.0.2.200', cookie: builder.cookie })).status).toBe(429);
+    // IPv6 documentation addresses (RFC 3849), apart from every other test's.
+    for (let i = 0; i < budget; i++) expect((await exportBody(proxied.url, { forwardedFor: `2001:db8::${(i + 1).toString(16)}`, cookie: builder.cookie })).status).toBe(400);
+    expect((await exportBody(proxied.url, { forwardedFor: '2001:db8::ffff', cookie: builder.cookie })).status).toBe(429);
   });
 
   it('the proof page per address: 429 with Retry-After and the proof-page headers', async () => {

@@ -19,6 +19,7 @@ export interface Who {
 function countersOf(action: LimitedAction, who: Who): [Counter, string][] {
   const list: [Counter, string][] = [[{ name: `${action}-address`, budget: ACCOUNT_BUDGETS.perAddress }, who.address]];
   if (who.person) list.push([{ name: `${action}-person`, budget: ACCOUNT_BUDGETS.perPerson }, who.person]);
+  if (action === 'create-shop') list.push([{ name: 'create-shop-mail-address', budget: ACCOUNT_BUDGETS.newShopMailsPerAddress }, who.address]);
   return list;
 }
 

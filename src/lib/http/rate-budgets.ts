@@ -24,6 +24,8 @@ const DAY = 24 * HOUR;
 export const ACCOUNT_BUDGETS = {
   perAddress: { points: 50, seconds: QUARTER_HOUR },
   perPerson: { points: 10, seconds: QUARTER_HOUR },
+  /** Create-shop mails a link (with the shop name typed) to any address: per client address per hour. */
+  newShopMailsPerAddress: { points: 20, seconds: HOUR },
 } as const satisfies Record<string, Budget>;
 
 /**

@@ -28,8 +28,16 @@ describe('account form limits (per address and per person)', () => {
 
   it('refuses one address after perAddress requests over many e-mails', async () => {
     const from = address();
-    for (let i = 0; i < ACCOUNT_BUDGETS.perAddress.points; i++) expect((await limitRequest('create-shop', { address: from, person: uniqueEmail('p') })).ok).toBe(true);
-    expect((await limitRequest('create-shop', { address: from, person: uniqueEmail('fresh') })).ok).toBe(false);
+    for (let i = 0; i < ACCOUNT_BUDGETS.perAddress.points; i++) expect((await limitRequest('forgot-password', { address: from, person: uniqueEmail('p') })).ok).toBe(true);
+    expect((await limitRequest('forgot-password', { address: from, person: uniqueEmail('fresh') })).ok).toBe(false);
+  });
+
+  it('create-shop mails a link to any address: one client address gets newShopMailsPerAddress an hour', async () => {
+    const from = address();
+    for (let i = 0; i < ACCOUNT_BUDGETS.newShopMailsPerAddress.points; i++) expect((await limitRequest('create-shop', { address: from, person: uniqueEmail('p') })).ok).toBe(true);
+    const refused = await limitRequest('create-shop', { address: from, person: uniqueEmail('fresh') });
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) expect(refused.retryAfterSeconds).toBeGreaterThan(15 * 60);
   });
 
   it('keeps actions apart', async () => {
