@@ -3,10 +3,21 @@
  * plain node:http server that first puts the security headers on every response. The adapter
  * serves files from dist/client (/_astro/*, the favicon) before Astro's middleware runs, so
  * without this those responses would carry none of them. Headers the app sets itself win.
- * Environment: HOST (default 127.0.0.1) and PORT (default 4321), as for the adapter.
+ * It also makes the client address honest before the adapter reads it (scripts/lib/client-address.mjs):
+ * X-Forwarded-For counts only when a proxy listed in TRUSTED_PROXIES sent it.
+ * Environment: HOST (default 127.0.0.1) and PORT (default 4321), as for the adapter; TRUSTED_PROXIES.
  */
 import http from 'node:http';
 import securityHeaders from '../src/lib/http/security-headers.json' with { type: 'json' };
+import { compileTrustedProxies, makeForwardingHonest } from './lib/client-address.mjs';
+
+let trust;
+try {
+  trust = compileTrustedProxies(process.env.TRUSTED_PROXIES);
+} catch (error) {
+  console.error(`kerfline: ${error.message}`);
+  process.exit(1);
+}
 
 process.env.ASTRO_NODE_AUTOSTART = 'disabled';
 const { handler } = await import('../dist/server/entry.mjs');
@@ -16,6 +27,7 @@ const port = Number(process.env.PORT ?? 4321);
 
 const server = http.createServer((req, res) => {
   for (const [name, value] of Object.entries(securityHeaders)) res.setHeader(name, value);
+  makeForwardingHonest(req, trust);
   handler(req, res);
 });
 server.listen(port, host, () => console.log(`kerfline: serving on http://${host}:${port}`));

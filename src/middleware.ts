@@ -1,12 +1,18 @@
 /**
- * Every request passes here: security headers and `Cache-Control: no-store`, the same-origin (CSRF) check, the signed-in user,
- * and a 503 instead of a 500 when the database is down. Roles are checked again in each route.
+ * Every request passes here: security headers and `Cache-Control: no-store`, the same-origin
+ * (CSRF) check, the signed-in user, the route budgets of CPU-heavy public routes, and a 503
+ * instead of a 500 when the database is down (rate limit counters live there too). Roles are
+ * checked again in each route.
  */
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { resolveSession } from '~/lib/auth/index.server.ts';
 import { config } from '~/lib/config/env.server.ts';
 import { isDbUnavailable } from '~/lib/db/db-errors.ts';
+import { clientIp } from '~/lib/http/client-ip.ts';
 import { problem } from '~/lib/http/problem.ts';
+import { ROUTE_BUDGETS } from '~/lib/http/rate-budgets.ts';
+import { consumeEach, type Counter } from '~/lib/http/rate-limit.server.ts';
+import { limitedRouteFor } from '~/lib/http/route-budgets.ts';
 import { isSameOriginRequest } from '~/lib/http/same-origin.ts';
 import { DYNAMIC_RESPONSE_HEADERS, withSecurityHeaders } from '~/lib/http/security-headers.ts';
 
@@ -34,6 +40,24 @@ const session = defineMiddleware(async (context, next) => {
   return next();
 });
 
+const TOO_MANY_MESSAGE = 'Too many requests; wait a moment and try again.';
+
+/** Counts the request against its route budget per client address and per signed-in user. */
+const routeBudgets = defineMiddleware(async (context, next) => {
+  const route = limitedRouteFor(context.request.method, context.url.pathname);
+  if (!route) return next();
+  const budgets = ROUTE_BUDGETS[route.budget];
+  const whenDatabaseDown = route.needsDatabase ? 'refuse' : 'per-process';
+  const checks: [Counter, string][] = [[{ name: `route-${route.budget}-address`, budget: budgets.perAddress, whenDatabaseDown }, clientIp(context)]];
+  const user = context.locals.user;
+  if (user) checks.push([{ name: `route-${route.budget}-user`, budget: budgets.perUser, whenDatabaseDown }, user.id]);
+  const verdict = await consumeEach(checks);
+  if (verdict.ok) return next();
+  const headers = { ...route.headers, 'retry-after': String(verdict.retryAfterSeconds) };
+  if (context.url.pathname.startsWith('/api/')) return problem(429, TOO_MANY_MESSAGE, {}, headers);
+  return new Response(TOO_MANY_MESSAGE, { status: 429, headers: { 'content-type': 'text/plain; charset=utf-8', 'cache-control': 'no-store', ...headers } });
+});
+
 const databaseDown = defineMiddleware(async (context, next) => {
   try {
     return await next();
@@ -44,4 +68,4 @@ const databaseDown = defineMiddleware(async (context, next) => {
   }
 });
 
-export const onRequest = sequence(headers, sameOrigin, databaseDown, session);
+export const onRequest = sequence(headers, sameOrigin, databaseDown, session, routeBudgets);

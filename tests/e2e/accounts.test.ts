@@ -43,7 +43,9 @@ describe('accounts in Chromium (built server)', () => {
     await page.getByRole('button', { name: 'Create shop' }).click();
     await expect(page.getByRole('status').textContent()).resolves.toContain('Check your e-mail');
 
-    const welcome = await waitForMail(ownerEmail, /Finish setting up Alder & Pine Lutherie/);
+    // Fixed subject; the shop name someone typed is quoted in the body only.
+    const welcome = await waitForMail(ownerEmail, /^Finish setting up your Kerfline shop$/);
+    expect(welcome.text).toContain('"Alder & Pine Lutherie"');
     await page.goto(linkIn(welcome, '/invitations/').url);
     await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe('Join Alder & Pine Lutherie');
     expect(await page.getByText('Owner', { exact: true }).count()).toBe(1);
@@ -62,7 +64,8 @@ describe('accounts in Chromium (built server)', () => {
     await saveScreenshot(page, 'members-after-invite');
 
     // The Builder opens the invitation from the captured e-mail, in another browser.
-    const invitation = await waitForMail(builderEmail, /Wen Alder invites you to Alder & Pine Lutherie/);
+    const invitation = await waitForMail(builderEmail, /^You are invited to a shop on Kerfline$/);
+    expect(invitation.text).toContain('Wen Alder invites you to join Alder & Pine Lutherie');
     const builderContext = await browser.newContext();
     const builderPage = await builderContext.newPage();
     await builderPage.goto(linkIn(invitation, '/invitations/').url);

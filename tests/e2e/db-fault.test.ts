@@ -92,8 +92,24 @@ describe('MariaDB stops while requests are in flight, then comes back', () => {
     expect(JSON.parse(down.body)).toMatchObject({ error: expect.stringMatching(/database is not answering/i) });
     expect(await call({ name: 'health', path: '/api/health', signedIn: false })).toMatchObject({ status: 503 });
     expect((await call({ name: 'home page as builder', path: '/', signedIn: true })).status).toBe(503);
-    // What needs no database keeps working.
+    // What needs no database keeps working: the layout endpoint's budget counts per process meanwhile.
     expect((await call({ name: 'API anonymous', path: '/api/version', signedIn: false })).status).toBe(200);
+    const layout = await fetch(`${BASE_URL}/api/layout`, {
+      method: 'POST',
+      headers: { origin: BASE_URL, 'content-type': 'application/json' },
+      body: JSON.stringify(fixtureDesign('seven-string-fan')),
+      signal: AbortSignal.timeout(5000),
+    });
+    expect(layout.status).toBe(200);
+    // Sign-in needs its rate limit counters, which live in MariaDB: a clear 503, never a 500.
+    const signIn = await fetch(`${BASE_URL}/sign-in`, {
+      method: 'POST',
+      headers: { origin: BASE_URL, 'content-type': 'application/x-www-form-urlencoded' },
+      body: new URLSearchParams({ email: 'owner@wrenfield.example', password: 'whatever-it-is' }).toString(),
+      signal: AbortSignal.timeout(5000),
+    });
+    expect(signIn.status).toBe(503);
+    expect(await signIn.text()).toMatch(/database is not answering/i);
 
     await databaseCommand('start');
     const recovered = await waitFor(async () => (await Promise.all(TARGETS.map(call))).every((s) => s.status === 200), 15);

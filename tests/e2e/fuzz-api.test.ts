@@ -7,6 +7,12 @@
  * table's row count nor the rows it named. Uploads: size limits before parsing, wrong types 415.
  * FUZZ_RUNS sets the anonymous runs per route (default 200), FUZZ_SIGNED_IN_RUNS the signed-in
  * runs per route and user (default 30); a failure prints the seed to replay it.
+ *
+ * Requests go to a second built server of its own (same database, same public origin) started
+ * with RATE_LIMIT_SCALE=1000: fuzzing sends each route hundreds of requests a minute from
+ * 127.0.0.1, past the real per-address budgets, and a 429 would hide what the route itself
+ * answers. Its counters live under their own key prefix, so the main server's budgets stay
+ * whole. The budgets are tested in rate-limits.test.ts against the real numbers.
  */
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
@@ -17,6 +23,7 @@ import { eq } from 'drizzle-orm';
 import { shops, users } from '~/lib/db/schema.ts';
 import { DEMO_SHOP_NAME } from '~/lib/db/seed/demo-shop.server.ts';
 import { BASE_URL } from '../support/browser.ts';
+import { startBuiltServer, type BuiltServer } from '../support/built-server.ts';
 import { ensureDesign } from '../support/designs.ts';
 import { addShopUser, newShopUser, type TestUser } from '../support/sessions.ts';
 import { databaseState, shopRows, type ShopRows } from '../support/shop-rows.ts';
@@ -126,7 +133,7 @@ function requestFor(route: ApiRoute): fc.Arbitrary<FuzzRequest> {
 }
 
 async function send(route: ApiRoute, request: FuzzRequest): Promise<Response> {
-  const url = new URL(routePath(route, () => request.id), BASE_URL);
+  const url = new URL(routePath(route, () => request.id), target.url);
   for (const [k, v] of Object.entries(request.query)) url.searchParams.append(k, v);
   const headers = Object.fromEntries(Object.entries(request.headers).filter((e): e is [string, string] => e[1] !== undefined));
   const body = request.method === 'GET' ? undefined : request.body;
@@ -148,10 +155,19 @@ async function expectSaneAnswer(response: Response, label: string): Promise<void
 const routes = apiRoutes();
 let before: Record<string, number>;
 
+/** RATE_LIMIT_SCALE of the fuzzing server (README, Configuration): load and fuzz testing only. */
+const FUZZ_RATE_LIMIT_SCALE = '1000';
+let target: BuiltServer;
+
 beforeAll(async () => {
+  // The main server's origin, so the Origin headers the arbitraries send mean the same here.
+  target = await startBuiltServer({ env: { RATE_LIMIT_SCALE: FUZZ_RATE_LIMIT_SCALE, APP_ORIGIN: BASE_URL } });
   before = await tableCounts();
 });
-afterAll(() => closeDb());
+afterAll(async () => {
+  await target?.stop();
+  await closeDb();
+});
 
 describe('API fuzzing on the built server (anonymous requests)', () => {
   it('finds the route files, including the ones that exist today', () => {
@@ -175,7 +191,7 @@ describe('API fuzzing on the built server (anonymous requests)', () => {
     it(`${route.file}: bodies over the size limit, declared or streamed, are refused without a 5xx`, async () => {
       const big = 'x'.repeat(2 * 1024 * 1024);
       for (const method of route.methods.filter((m) => m !== 'GET')) {
-        const url = new URL(routePath(route, () => '1'), BASE_URL);
+        const url = new URL(routePath(route, () => '1'), target.url);
         const headers = { 'content-type': 'application/json', origin: BASE_URL };
         const declared = await fetch(url, { method, headers, body: big, signal: AbortSignal.timeout(10_000) });
         await expectSaneAnswer(declared, `${method} ${route.file} with Content-Length`);
@@ -195,7 +211,7 @@ describe('API fuzzing on the built server (anonymous requests)', () => {
   }
 
   it('leaves the server healthy afterwards', async () => {
-    const response = await fetch(`${BASE_URL}/api/health`);
+    const response = await fetch(`${target.url}/api/health`);
     expect(response.status).toBe(200);
   });
 });
@@ -273,7 +289,7 @@ function signedInActors(): Promise<void> {
 
 async function sendSignedIn(actor: SignedInActor, route: ApiRoute, request: SignedInRequest): Promise<Response> {
   const rows = actor.rows[request.shop];
-  const url = new URL(routePath(route, (param) => request.randomId ?? idFor(route, param, rows)), BASE_URL);
+  const url = new URL(routePath(route, (param) => request.randomId ?? idFor(route, param, rows)), target.url);
   for (const [k, v] of Object.entries(request.query)) url.searchParams.append(k, v);
   const headers = { ...Object.fromEntries(Object.entries(request.headers).filter((e): e is [string, string] => e[1] !== undefined)), cookie: actor.user.cookie };
   const payload = request.method === 'GET' ? undefined : request.body;
@@ -330,7 +346,7 @@ describe('uploads (.scl, fret measurements CSV, board JSON import) on the built 
   ];
 
   async function post(upload: Upload, type: string, payload: BodyInit): Promise<Response> {
-    return fetch(new URL(upload.path(), BASE_URL), {
+    return fetch(new URL(upload.path(), target.url), {
       method: 'POST',
       headers: { 'content-type': type, origin: BASE_URL, cookie: builder().user.cookie },
       body: payload,
@@ -368,7 +384,7 @@ describe('uploads (.scl, fret measurements CSV, board JSON import) on the built 
     const send = (file: Blob) => {
       const form = new FormData();
       form.set('file', file, 'board.json');
-      return fetch(new URL('/api/designs/import', BASE_URL), { method: 'POST', headers: { origin: BASE_URL, cookie: builder().user.cookie }, body: form });
+      return fetch(new URL('/api/designs/import', target.url), { method: 'POST', headers: { origin: BASE_URL, cookie: builder().user.cookie }, body: form });
     };
     const png = await send(new Blob([new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0xff, 0xfe])], { type: 'image/png' }));
     expect(png.status).toBe(400);

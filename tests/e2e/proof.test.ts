@@ -108,7 +108,7 @@ describe('Proof in Chromium (built server)', () => {
     expect(await row.locator('[data-label="state"]').textContent()).toBe('approved');
     expect(await row.textContent()).toContain('Approved by Ines Calloway');
     await saveScreenshot(panel, 'proof-panel-approved');
-    const answerMail = await waitForMail(builder.email, /^Proof approved: Demo: seven-string multi-scale guitar$/);
+    const answerMail = await waitForMail(builder.email, /^Proof approved: a client answered on Kerfline$/);
     expect(answerMail.text).toContain('Ines Calloway approved revision');
     await builderContext.close();
     await clientContext.close();

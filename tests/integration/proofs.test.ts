@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sha256Hex } from '~/lib/auth/index.server.ts';
 import { createProof, decideProof, listDesignProofs, listSharedWith, openProof, revokeProof } from '~/lib/db/proofs.server.ts';
-import { designs, proofs } from '~/lib/db/schema.ts';
+import { designs, proofs, shops } from '~/lib/db/schema.ts';
 import { seedDemoProof } from '~/lib/db/seed/demo-proof.server.ts';
 import { handleDecision } from '~/lib/proof-api/decision-endpoint.server.ts';
 import { PROOF_LIMITS, type CreatedProof } from '~/lib/schemas/proof.ts';
@@ -27,6 +27,9 @@ let designId: number;
 
 beforeAll(async () => {
   builder = await newShopUser('builder');
+  // Dated back two days: these tests send more proofs than a brand-new shop's mail budget allows
+  // (that budget is tested in mail-budgets.test.ts).
+  await db().update(shops).set({ createdAt: new Date(Date.now() - 2 * DAY_MS) }).where(eq(shops.id, builder.shopId));
   owner = await addShopUser(builder.shopId, 'owner');
   client = await addShopUser(builder.shopId, 'client');
   otherOwner = await newShopUser('owner');

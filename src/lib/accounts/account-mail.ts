@@ -1,4 +1,8 @@
-/** The texts of the account e-mails (plain text: every mail client shows it, links stay visible). */
+/**
+ * The texts of the account e-mails (plain text: every mail client shows it, links stay visible).
+ * Subjects are fixed: text someone else typed (a shop or person's name) goes only into the body,
+ * where it is quoted as theirs, so nobody can use Kerfline's address to mail a subject of their own.
+ */
 import type { Role } from '~/lib/db/schema.ts';
 import { invitationUrl, resetUrl } from './links.ts';
 
@@ -11,7 +15,7 @@ const ROLE_NAMES: Record<Role, string> = { owner: 'Owner', builder: 'Builder', c
 
 export function newShopMail(origin: string, shopName: string, token: string): MailText {
   return {
-    subject: `Finish setting up ${shopName} on Kerfline`,
+    subject: 'Finish setting up your Kerfline shop',
     text: [
       `Someone (we hope you) asked to create the shop "${shopName}" on Kerfline with this e-mail address.`,
       '',
@@ -40,7 +44,7 @@ export function existingAccountMail(origin: string): MailText {
 
 export function invitationMail(origin: string, shopName: string, role: Role, invitedBy: string, token: string): MailText {
   return {
-    subject: `${invitedBy} invites you to ${shopName} on Kerfline`,
+    subject: 'You are invited to a shop on Kerfline',
     text: [
       `${invitedBy} invites you to join ${shopName} on Kerfline as ${ROLE_NAMES[role]}.`,
       '',

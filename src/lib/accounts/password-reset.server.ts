@@ -4,6 +4,7 @@ import { endOtherSessions, hashPassword } from '~/lib/auth/index.server.ts';
 import { config } from '~/lib/config/env.server.ts';
 import { db } from '~/lib/db/client.server.ts';
 import { users } from '~/lib/db/schema.ts';
+import { limitMail } from '~/lib/mail/mail-budgets.server.ts';
 import { resetMail } from './account-mail.ts';
 import { RESET_TTL_MS } from './links.ts';
 import { deliver } from './mail-delivery.server.ts';
@@ -12,12 +13,14 @@ import { done, refused, type Outcome } from './outcome.ts';
 import { findUserByEmail } from './users.server.ts';
 
 /**
- * Mails a reset link when `email` has an account; does nothing otherwise. Pages run this without
- * waiting for it, so the answer (and its timing) is the same either way.
+ * Mails a reset link when `email` has an account; does nothing otherwise, nor once the account's
+ * or its shop's hourly reset-mail budget is used. Pages run this without waiting for it, so the
+ * answer (and its timing) is the same in every case.
  */
-export async function startPasswordReset(email: string): Promise<void> {
+export async function startPasswordReset(email: string, now = new Date()): Promise<void> {
   const user = await findUserByEmail(email);
   if (!user) return;
+  if (!(await limitMail('password-reset', { userId: user.id, shopId: user.shopId }, now)).ok) return;
   // Only the newest link works: asking again revokes the earlier ones.
   const token = await db().transaction(async (tx) => {
     await revokePendingTokens(tx, 'reset', user.shopId, user.email);

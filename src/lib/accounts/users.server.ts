@@ -8,6 +8,12 @@ export async function findUserByEmail(email: string) {
   return row ?? null;
 }
 
+/** When the shop was created (null for no such shop). */
+export async function shopCreatedAt(shopId: number): Promise<Date | null> {
+  const [row] = await db().select({ createdAt: shops.createdAt }).from(shops).where(eq(shops.id, shopId)).limit(1);
+  return row?.createdAt ?? null;
+}
+
 export async function shopName(shopId: number): Promise<string> {
   const [row] = await db().select({ name: shops.name }).from(shops).where(eq(shops.id, shopId)).limit(1);
   return row?.name ?? 'your shop';

@@ -17,6 +17,8 @@ const envSchema = z.object({
    */
   KERFLINE_MODE: z.enum(['demo', 'production']).default('production'),
   OUTBOX_DIR: z.string().default('.data/outbox'),
+  /** Multiplies every rate limit budget; only for a load-test server (docs/operations.md). */
+  RATE_LIMIT_SCALE: z.coerce.number().positive().max(1_000_000).default(1),
 });
 
 export interface AppConfig {
@@ -26,6 +28,8 @@ export interface AppConfig {
   mailFrom: string;
   mode: 'demo' | 'production';
   outboxDir: string;
+  /** Factor on every rate limit budget's points (1 in normal use). */
+  rateLimitScale: number;
 }
 
 let cached: AppConfig | undefined;
@@ -47,6 +51,7 @@ export function config(): AppConfig {
     mailFrom: parsed.data.MAIL_FROM,
     mode: parsed.data.KERFLINE_MODE,
     outboxDir: parsed.data.OUTBOX_DIR,
+    rateLimitScale: parsed.data.RATE_LIMIT_SCALE,
   };
   return cached;
 }

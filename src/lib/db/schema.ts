@@ -223,3 +223,15 @@ export const templateChecks = mysqlTable(
   },
   (t) => [index('checks_template_idx').on(t.shopId, t.templateId)],
 );
+
+/**
+ * Rate limit counters shared by every app process (src/lib/http/rate-limit.server.ts). The column
+ * names, types and their order are the ones rate-limiter-flexible's MySQL store writes with
+ * `INSERT ... VALUES (key, points, expire)`; it is told the table exists (`tableCreated: true`).
+ * `expire` is milliseconds since the Unix epoch; rows past it are stale and swept by the store.
+ */
+export const rateLimits = mysqlTable('rate_limits', {
+  key: varchar('key', { length: 255 }).primaryKey(),
+  points: int('points').notNull().default(0),
+  expire: bigint('expire', { mode: 'number', unsigned: true }),
+});

@@ -1,7 +1,8 @@
 /**
  * The two proof e-mails: the link to the client, and the client's answer to the builder. A failed
  * send is reported as `false` rather than thrown, so the proof itself is never lost over mail.
- * Nothing here logs: the client's message carries the link token.
+ * Nothing here logs: the client's message carries the link token. Subjects are fixed: names and
+ * messages someone typed go only into the body (see account-mail.ts).
  */
 import { config } from '~/lib/config/env.server.ts';
 import type { ProofDecision } from '~/lib/schemas/proof.ts';
@@ -27,6 +28,12 @@ export interface BuilderDecisionMail {
   decision: ProofDecision;
 }
 
+export const PROOF_SUBJECTS = {
+  toClient: 'A fret layout is ready for your review',
+  approved: 'Proof approved: a client answered on Kerfline',
+  changesRequested: 'Changes requested: a client answered on Kerfline',
+} as const;
+
 function day(date: Date): string {
   return date.toISOString().slice(0, 10);
 }
@@ -42,7 +49,7 @@ async function trySend(to: string, subject: string, lines: string[]): Promise<bo
 
 export function mailClientProof(mail: ClientProofMail): Promise<boolean> {
   const from = mail.shopName || 'Your luthier';
-  return trySend(mail.to, `Please review your fretboard layout: ${mail.designName}`, [
+  return trySend(mail.to, PROOF_SUBJECTS.toClient, [
     `Hello ${mail.clientName},`,
     '',
     `${from} has shared the fret layout "${mail.designName}" (revision ${mail.revision}) for your review.`,
@@ -58,7 +65,7 @@ export function mailClientProof(mail: ClientProofMail): Promise<boolean> {
 
 export function mailBuilderDecision(mail: BuilderDecisionMail): Promise<boolean> {
   const approved = mail.decision.kind === 'approved';
-  const subject = approved ? `Proof approved: ${mail.designName}` : `Changes requested: ${mail.designName}`;
+  const subject = approved ? PROOF_SUBJECTS.approved : PROOF_SUBJECTS.changesRequested;
   return trySend(mail.to, subject, [
     approved
       ? `${mail.decision.name} approved revision ${mail.revision} of "${mail.designName}" on ${mail.decision.at}.`

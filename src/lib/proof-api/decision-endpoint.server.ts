@@ -1,7 +1,8 @@
 import { decideProof, type ProofLocator } from '~/lib/db/proofs.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
-import { proofRateLimited } from '~/lib/http/proof-rate-limit.ts';
 import { json, problem } from '~/lib/http/problem.ts';
+import { PROOF_DECISION_BUDGET } from '~/lib/http/rate-budgets.ts';
+import { consume, type Counter } from '~/lib/http/rate-limit.server.ts';
 import { decisionSchema } from '~/lib/schemas/proof.ts';
 
 /** Room for the longest comment in multi-byte characters, plus the other fields. */
@@ -9,6 +10,8 @@ const DECISION_BODY_MAX_BYTES = 16 * 1024;
 
 /** The one answer for unknown, revoked, expired and malformed links alike. */
 export const PROOF_NOT_AVAILABLE = 'This proof is not available';
+
+const DECISIONS: Counter = { name: 'proof-decision', budget: PROOF_DECISION_BUDGET };
 
 export function tooManyRequests(retryAfterSeconds: number): Response {
   return problem(429, 'Too many requests; wait a moment and try again', {}, { 'retry-after': String(retryAfterSeconds) });
@@ -20,8 +23,8 @@ export function tooManyRequests(retryAfterSeconds: number): Response {
  * `rateKey` identifies the visitor (client address or user id).
  */
 export async function handleDecision(request: Request, locator: ProofLocator | null, rateKey: string, now: Date): Promise<Response> {
-  const wait = proofRateLimited('decision', rateKey);
-  if (wait !== null) return tooManyRequests(wait);
+  const verdict = await consume(DECISIONS, rateKey);
+  if (!verdict.ok) return tooManyRequests(verdict.retryAfterSeconds);
   if (!locator) return problem(404, PROOF_NOT_AVAILABLE);
   const parsed = await readValidJson(request, DECISION_BODY_MAX_BYTES, decisionSchema);
   if (!parsed.ok) return parsed.response;

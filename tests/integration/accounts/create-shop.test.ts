@@ -15,7 +15,8 @@ describe('creating a shop', () => {
   it('mails a new address a 7-day link; accepting it makes the first user the Owner', async () => {
     const email = uniqueEmail('founder');
     await requestNewShop({ shopName: 'Hollin Bench Works', email });
-    const mail = await waitForMail(email, /Finish setting up Hollin Bench Works/);
+    const mail = await waitForMail(email, /^Finish setting up your Kerfline shop$/);
+    expect(mail.text).toContain('"Hollin Bench Works"');
     const { token } = linkIn(mail, '/invitations/');
 
     const [row] = await db().select().from(oneTimeTokens).where(eq(oneTimeTokens.email, email));
@@ -44,7 +45,7 @@ describe('creating a shop', () => {
     const before = await shopCount();
     const emails = Array.from({ length: 5 }, () => uniqueEmail('unfinished'));
     for (const email of emails) await requestNewShop({ shopName: 'Never Finished Guitars', email });
-    for (const email of emails) await waitForMail(email, /Never Finished Guitars|Finish/);
+    for (const email of emails) await waitForMail(email, /^Finish setting up your Kerfline shop$/);
     expect(await shopCount()).toBe(before);
     const [unfinished] = await db().select().from(shops).where(eq(shops.name, 'Never Finished Guitars'));
     expect(unfinished).toBeUndefined();

@@ -9,7 +9,7 @@ import { closeDb, db } from '../../support/test-db.ts';
 
 afterAll(() => closeDb());
 
-const SUBJECT = /invites you to/;
+const SUBJECT = /^You are invited to a shop on Kerfline$/;
 const form = (displayName: string) => ({ displayName, password: 'invited-password', confirmPassword: 'invited-password' });
 const inviterOf = (u: { id: string; shopId: number }) => ({ shopId: u.shopId, userId: u.id, displayName: 'Test owner' });
 

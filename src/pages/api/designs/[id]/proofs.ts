@@ -1,8 +1,10 @@
 import type { APIRoute } from 'astro';
 import { CAN, requireRole } from '~/lib/auth/index.server.ts';
 import { createProof, listDesignProofs } from '~/lib/db/proofs.server.ts';
+import { inMinutes } from '~/lib/accounts/limits.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { json, problem } from '~/lib/http/problem.ts';
+import { limitMail } from '~/lib/mail/mail-budgets.server.ts';
 import { createProofSchema, recordIdSchema } from '~/lib/schemas/proof.ts';
 
 export const prerender = false;
@@ -19,7 +21,11 @@ export const GET: APIRoute = async ({ params, locals }) => {
   return list ? json({ proofs: list }) : problem(404, NO_DESIGN);
 };
 
-/** Shares the design's current revision with a client: 201 with the link (shown only this once). */
+/**
+ * Shares the design's current revision with a client: 201 with the link (shown only this once).
+ * Each proof e-mails the client, so it counts against the sender's and the shop's mail budgets
+ * (429 with Retry-After once they are used).
+ */
 export const POST: APIRoute = async ({ params, request, locals }) => {
   const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
@@ -27,6 +33,11 @@ export const POST: APIRoute = async ({ params, request, locals }) => {
   if (!id.success) return problem(404, NO_DESIGN);
   const parsed = await readValidJson(request, BODY_MAX_BYTES, createProofSchema);
   if (!parsed.ok) return parsed.response;
-  const created = await createProof(guard.user, id.data, parsed.value, new Date());
+  const now = new Date();
+  const mail = await limitMail('proof', { userId: guard.user.id, shopId: guard.user.shopId }, now);
+  if (!mail.ok) {
+    return problem(429, `This shop has sent as many proofs as it may for now; try again ${inMinutes(mail.retryAfterSeconds)}`, {}, { 'retry-after': String(mail.retryAfterSeconds) });
+  }
+  const created = await createProof(guard.user, id.data, parsed.value, now);
   return created ? json(created, 201) : problem(404, NO_DESIGN);
 };

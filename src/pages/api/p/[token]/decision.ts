@@ -1,5 +1,6 @@
 import type { APIRoute } from 'astro';
 import { isWellFormedToken, sha256Hex } from '~/lib/auth/index.server.ts';
+import { clientIp } from '~/lib/http/client-ip.ts';
 import { handleDecision } from '~/lib/proof-api/decision-endpoint.server.ts';
 
 export const prerender = false;
@@ -9,8 +10,9 @@ export const prerender = false;
  * one visitor hammering one proof is stopped without locking out every other proof from the same
  * address (a shop's clients may share one office connection).
  */
-export const POST: APIRoute = ({ params, request, clientAddress }) => {
+export const POST: APIRoute = (context) => {
+  const { params, request } = context;
   const token = params.token ?? '';
-  const rateKey = `${clientAddress}:${sha256Hex(token).slice(0, 16)}`;
+  const rateKey = `${clientIp(context)}:${sha256Hex(token).slice(0, 16)}`;
   return handleDecision(request, isWellFormedToken(token) ? { token } : null, rateKey, new Date());
 };
