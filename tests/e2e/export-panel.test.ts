@@ -72,7 +72,7 @@ describe('Export panel messages next to the download buttons (Chromium, built se
     await pdfButton.click();
     await status.getByText(/^Too large:/).waitFor();
     await expect(status.textContent()).resolves.toMatch(
-      /^Too large: this paper template would print 2,\d{3} pages; the most is 200: use a larger paper, less overlap or paper "fit"$/,
+      /^Too large: this paper template would print \d{1,2},\d{3} pages; the most is 200: use a larger paper, less overlap or paper "fit"$/,
     );
     await saveScreenshot(page, 'export-panel-too-large');
 

@@ -1,12 +1,15 @@
 /**
  * Reads a PDF back with pdfjs-dist (an independent PDF reader) and poppler-utils: page sizes, the
- * straight lines inside each marked-content tag (BMC), and each page's text.
+ * straight lines of each page (all of them, and those inside each marked-content tag, BMC) with
+ * the current transformation matrix applied, each page's text, page images and QR codes on them.
  */
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import jsQR from 'jsqr';
 import { getDocument, OPS } from 'pdfjs-dist/legacy/build/pdf.mjs';
+import { PNG } from 'pngjs';
 
 export interface PageSegment {
   x1: number;
@@ -18,8 +21,12 @@ export interface PageSegment {
 export interface ReadPage {
   widthPt: number;
   heightPt: number;
+  /** Every straight segment drawn on the page, in page points. */
+  segments: PageSegment[];
   /** Straight segments drawn inside each marked-content tag, in page points. */
   tagged: Map<string, PageSegment[]>;
+  /** The page's text as pdfjs reads it (items joined; a line break where the item ends a line). */
+  text: string;
 }
 
 type Matrix = [number, number, number, number, number, number];
@@ -47,6 +54,7 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
     const [x0, y0, x1, y1] = page.view as [number, number, number, number];
     const operators = await page.getOperatorList();
     const tagged = new Map<string, PageSegment[]>();
+    const segments: PageSegment[] = [];
     const tags: string[] = [];
     const stack: Matrix[] = [];
     let matrix: Matrix = IDENTITY;
@@ -59,13 +67,18 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
         const tag = args[0] as { name?: string } | string;
         tags.push(typeof tag === 'string' ? tag : (tag.name ?? ''));
       } else if (fn === OPS.endMarkedContent) tags.pop();
-      else if (fn === OPS.constructPath && tags.length > 0) {
-        const list = tagged.get(tags[tags.length - 1]!) ?? [];
-        list.push(...segmentsOf((args[1] as ArrayLike<number>[])[0]!, matrix));
-        tagged.set(tags[tags.length - 1]!, list);
+      else if (fn === OPS.constructPath) {
+        const drawn = segmentsOf((args[1] as ArrayLike<number>[])[0]!, matrix);
+        segments.push(...drawn);
+        if (tags.length > 0) {
+          const list = tagged.get(tags[tags.length - 1]!) ?? [];
+          list.push(...drawn);
+          tagged.set(tags[tags.length - 1]!, list);
+        }
       }
     });
-    pages.push({ widthPt: x1 - x0, heightPt: y1 - y0, tagged });
+    const text = (await page.getTextContent()).items.map((item) => ('str' in item ? item.str + (item.hasEOL ? '\n' : '') : '')).join('');
+    pages.push({ widthPt: x1 - x0, heightPt: y1 - y0, segments, tagged, text });
   }
   return pages;
 }
@@ -119,4 +132,18 @@ export function pdfFonts(bytes: Uint8Array): { name: string; embedded: boolean }
 export function renderPage(bytes: Uint8Array, page: number, outputBase: string, dpi = 100): string {
   execFileSync('pdftoppm', ['-f', String(page), '-l', String(page), '-r', String(dpi), '-png', '-singlefile', tempPdf(bytes), outputBase]);
   return `${outputBase}.png`;
+}
+
+/** Renders page 1 with pdftoppm and decodes the QR code found in the (optionally cropped) image. */
+export function decodeQr(bytes: Uint8Array, dpi: number, crop?: { x: number; y: number; w: number; h: number }): string | null {
+  const dir = mkdtempSync(join(tmpdir(), 'kerfline-qr-'));
+  try {
+    writeFileSync(join(dir, 'in.pdf'), bytes);
+    const cropArgs = crop ? ['-x', String(crop.x), '-y', String(crop.y), '-W', String(crop.w), '-H', String(crop.h)] : [];
+    execFileSync('pdftoppm', ['-r', String(dpi), '-f', '1', '-l', '1', '-singlefile', '-png', ...cropArgs, join(dir, 'in.pdf'), join(dir, 'out')]);
+    const png = PNG.sync.read(readFileSync(join(dir, 'out.png')));
+    return jsQR(new Uint8ClampedArray(png.data), png.width, png.height)?.data ?? null;
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
 }

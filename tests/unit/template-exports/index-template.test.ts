@@ -6,8 +6,7 @@ import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server';
 import { computeLayout } from '~/lib/geometry/layout';
 import { designOf } from '../../support/design-builders';
 import { expectNear } from '../../support/expect-near';
-import { pageText } from '../../support/pdf-readback.ts';
-import { readPdf } from './pdf-readback';
+import { pageText, readPdf } from '../../support/pdf-readback.ts';
 
 /** Closed form for 12-tone equal temperament: d(n) = L (1 - 2^(-n/12)). */
 const closedForm = (scale: number, fret: number) => scale * (1 - 2 ** (-fret / 12));
@@ -110,8 +109,8 @@ describe('index template PDF (read back with pdfjs-dist)', () => {
   it('is 1:1: slot centre lines lie at L (1 - 2^(-n/12)) x 72/25.4 pt from the nut within 0.01 pt', async () => {
     const out = await indexTemplatePdf(indexTemplateStrip(classical, 0.6));
     const [page] = await readPdf(out.bytes);
-    expectNear(page!.width, out.pageSize[0], 0.01); // pt
-    expectNear(page!.height, out.pageSize[1], 0.01); // pt
+    expectNear(page!.widthPt, out.pageSize[0], 0.01); // pt
+    expectNear(page!.heightPt, out.pageSize[1], 0.01); // pt
     const vertical = page!.segments.filter((s) => Math.abs(s.x1 - s.x2) < 1e-3);
     const nut = vertical.filter((s) => Math.abs(s.x1 - out.placement.originX) < 0.01);
     expect(nut.length).toBeGreaterThan(0);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { LABEL_SIZES, labelSize, scaleInBothUnits, templateLabelPdf, type LabelContent } from '~/lib/export/index-template-label.server';
 import { expectNear } from '../../support/expect-near';
-import { decodeQr, readPdf } from './pdf-readback';
+import { decodeQr, readPdf } from '../../support/pdf-readback.ts';
 
 const PT_PER_MM = 72 / 25.4; // ISO 32000-1: 72 pt = 1 in = 25.4 mm
 const URL_OF_TEMPLATE = 'http://127.0.0.1:4321/templates/42';
@@ -28,8 +28,8 @@ describe('template label PDF', () => {
     it(`${id}: page is ${widthMm} x ${heightMm} mm, carries name, scale, frets, slot width, date, and the QR code decodes to the template's URL`, async () => {
       const bytes = await templateLabelPdf(content, labelSize(id)!);
       const [page] = await readPdf(bytes);
-      expectNear(page!.width, widthMm * PT_PER_MM, 0.01); // pt
-      expectNear(page!.height, heightMm * PT_PER_MM, 0.01); // pt
+      expectNear(page!.widthPt, widthMm * PT_PER_MM, 0.01); // pt
+      expectNear(page!.heightPt, heightMm * PT_PER_MM, 0.01); // pt
       for (const text of ['Classical 650 master', 'Scale 650.00 mm / 25.591 in', '19 frets · slot 0.60 mm', 'Made 2026-01-15']) {
         expect(page!.text).toContain(text);
       }
@@ -41,19 +41,19 @@ describe('template label PDF', () => {
     const a4 = labelSize('a4-sheet')!;
     const a4Bytes = await templateLabelPdf(content, a4);
     const [a4Page] = await readPdf(a4Bytes);
-    expectNear(a4Page!.width, 210 * PT_PER_MM, 0.01); // pt
-    expectNear(a4Page!.height, 297 * PT_PER_MM, 0.01); // pt
+    expectNear(a4Page!.widthPt, 210 * PT_PER_MM, 0.01); // pt
+    expectNear(a4Page!.heightPt, 297 * PT_PER_MM, 0.01); // pt
     expect(a4Page!.text.split('Classical 650 master').length - 1).toBe(14);
     const letterBytes = await templateLabelPdf(content, labelSize('letter-sheet')!);
     const [letterPage] = await readPdf(letterBytes);
-    expectNear(letterPage!.width, 8.5 * 72, 0.01); // pt
-    expectNear(letterPage!.height, 11 * 72, 0.01); // pt
+    expectNear(letterPage!.widthPt, 8.5 * 72, 0.01); // pt
+    expectNear(letterPage!.heightPt, 11 * 72, 0.01); // pt
     expect(letterPage!.text.split('Classical 650 master').length - 1).toBe(10);
     // Decode the top-left label of the A4 sheet: crop it at 200 dpi.
     const dpi = 200;
     const px = (pt: number) => Math.round((pt / 72) * dpi);
-    const left = (a4Page!.width - 2 * a4.width - a4.sheet!.gapX) / 2;
-    const top = (a4Page!.height - 7 * a4.height) / 2;
+    const left = (a4Page!.widthPt - 2 * a4.width - a4.sheet!.gapX) / 2;
+    const top = (a4Page!.heightPt - 7 * a4.height) / 2;
     expect(decodeQr(a4Bytes, dpi, { x: px(left), y: px(top), w: px(a4.width), h: px(a4.height) })).toBe(URL_OF_TEMPLATE);
   });
 
