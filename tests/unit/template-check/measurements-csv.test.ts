@@ -4,27 +4,29 @@ import { MEASUREMENTS_CSV_MAX_BYTES, parseMeasurementsCsv } from '~/lib/template
 const limits = { frets: 20, strings: 7 };
 
 describe('measured positions CSV', () => {
-  it('reads fret,from_nut with a header, CRLF line ends and blank lines; string defaults to 1 (treble edge)', () => {
-    const parsed = parseMeasurementsCsv('\uFEFFfret,from_nut\r\n1,35.64\r\n\r\n2, 69.28 \r\n', limits);
+  it('reads fret,from_nut with a header, CRLF line ends and blank lines; rows without a line take the line the caller names', () => {
+    const parsed = parseMeasurementsCsv('\uFEFFfret,from_nut\r\n1,35.64\r\n\r\n2, 69.28 \r\n', limits, 'string-1');
     expect(parsed).toEqual({
       ok: true,
       measurements: [
-        { fret: 1, string: 1, fromNut: 35.64 },
-        { fret: 2, string: 1, fromNut: 69.28 },
+        { fret: 1, along: 'string-1', fromNut: 35.64 },
+        { fret: 2, along: 'string-1', fromNut: 69.28 },
       ],
+      lines: [2, 4],
     });
   });
 
   it('reads fret,string,from_nut and, without a header, infers the form from the column count', () => {
-    const withHeader = parseMeasurementsCsv('fret,string,from_nut\n1,1,36.3\n1,7,38.5\n', limits);
-    const without = parseMeasurementsCsv('1,1,36.3\n1,7,38.5\n', limits);
-    expect(withHeader).toEqual(without);
-    expect(withHeader.ok && withHeader.measurements[1]).toEqual({ fret: 1, string: 7, fromNut: 38.5 });
+    const withHeader = parseMeasurementsCsv('fret,string,from_nut\n1,1,36.3\n1,7,38.5\n', limits, 'string-1');
+    const without = parseMeasurementsCsv('1,1,36.3\n1,7,38.5\n', limits, 'string-1');
+    expect(withHeader.ok && without.ok && withHeader.measurements).toEqual(without.ok && without.measurements);
+    expect(withHeader.ok && withHeader.lines).toEqual([2, 3]);
+    expect(withHeader.ok && withHeader.measurements[1]).toEqual({ fret: 1, along: 'string-7', fromNut: 38.5 });
   });
 
   it('names the line and the reason: missing column, not a number, duplicate fret, fret out of range', () => {
     const text = ['fret,from_nut', '1,35.6', '2', '3,abc', '1,35.7', '21,400', '4.5,120', '0,1'].join('\n');
-    const parsed = parseMeasurementsCsv(text, limits);
+    const parsed = parseMeasurementsCsv(text, limits, 'string-1');
     expect(parsed.ok).toBe(false);
     if (parsed.ok) return;
     expect(parsed.errors).toEqual([
@@ -38,15 +40,15 @@ describe('measured positions CSV', () => {
   });
 
   it('refuses an unknown header, strings outside 1..N, empty files and files over 64 KiB', () => {
-    expect(parseMeasurementsCsv('position,mm\n1,2\n', limits)).toEqual({
+    expect(parseMeasurementsCsv('position,mm\n1,2\n', limits, 'string-1')).toEqual({
       ok: false,
-      errors: [{ line: 1, message: 'unknown header "position,mm"; use "fret,from_nut" or "fret,string,from_nut"' }],
+      errors: [{ line: 1, message: 'unknown header "position,mm"; use "fret,from_nut", "fret,along,from_nut" or "fret,string,from_nut"' }],
     });
-    const badString = parseMeasurementsCsv('fret,string,from_nut\n1,8,36\n', limits);
+    const badString = parseMeasurementsCsv('fret,string,from_nut\n1,8,36\n', limits, 'string-1');
     expect(!badString.ok && badString.errors[0]).toEqual({ line: 2, message: 'string out of range: 8 (strings are 1 = treble to 7 = bass)' });
-    expect(parseMeasurementsCsv('\n\n', limits).ok).toBe(false);
+    expect(parseMeasurementsCsv('\n\n', limits, 'string-1').ok).toBe(false);
     const big = `fret,from_nut\n${'1,35.6\n'.repeat(MEASUREMENTS_CSV_MAX_BYTES / 7 + 1)}`;
-    const tooBig = parseMeasurementsCsv(big, limits);
+    const tooBig = parseMeasurementsCsv(big, limits, 'string-1');
     expect(!tooBig.ok && tooBig.errors[0]?.message).toMatch(/larger than 64 KiB/);
   });
 });
