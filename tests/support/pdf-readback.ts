@@ -20,6 +20,19 @@ export interface ReadPage {
   heightPt: number;
   /** Straight segments drawn inside each marked-content tag, in page points. */
   tagged: Map<string, PageSegment[]>;
+  /** Straight segments drawn outside any tag, with the pen they were drawn with. */
+  untagged: PenSegment[];
+}
+
+export interface PenSegment extends PageSegment {
+  widthPt: number;
+  dashed: boolean;
+}
+
+interface GraphicsState {
+  matrix: Matrix;
+  widthPt: number;
+  dashed: boolean;
 }
 
 type Matrix = [number, number, number, number, number, number];
@@ -47,14 +60,19 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
     const [x0, y0, x1, y1] = page.view as [number, number, number, number];
     const operators = await page.getOperatorList();
     const tagged = new Map<string, PageSegment[]>();
+    const untagged: PenSegment[] = [];
     const tags: string[] = [];
-    const stack: Matrix[] = [];
-    let matrix: Matrix = IDENTITY;
+    const stack: GraphicsState[] = [];
+    // PDF's initial graphics state: line width 1, solid (ISO 32000-1, 8.4.1).
+    let state: GraphicsState = { matrix: IDENTITY, widthPt: 1, dashed: false };
     operators.fnArray.forEach((fn, index) => {
       const args = operators.argsArray[index] as unknown[];
-      if (fn === OPS.save) stack.push(matrix);
-      else if (fn === OPS.restore) matrix = stack.pop() ?? IDENTITY;
-      else if (fn === OPS.transform) matrix = multiply(matrix, args as Matrix);
+      const matrix = state.matrix;
+      if (fn === OPS.save) stack.push({ ...state });
+      else if (fn === OPS.restore) state = stack.pop() ?? { matrix: IDENTITY, widthPt: 1, dashed: false };
+      else if (fn === OPS.transform) state = { ...state, matrix: multiply(matrix, args as Matrix) };
+      else if (fn === OPS.setLineWidth) state = { ...state, widthPt: args[0] as number };
+      else if (fn === OPS.setDash) state = { ...state, dashed: (args[0] as number[]).length > 0 };
       else if (fn === OPS.beginMarkedContent || fn === OPS.beginMarkedContentProps) {
         const tag = args[0] as { name?: string } | string;
         tags.push(typeof tag === 'string' ? tag : (tag.name ?? ''));
@@ -63,9 +81,12 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
         const list = tagged.get(tags[tags.length - 1]!) ?? [];
         list.push(...segmentsOf((args[1] as ArrayLike<number>[])[0]!, matrix));
         tagged.set(tags[tags.length - 1]!, list);
+      } else if (fn === OPS.constructPath) {
+        const pen = { widthPt: state.widthPt, dashed: state.dashed };
+        untagged.push(...segmentsOf((args[1] as ArrayLike<number>[])[0]!, matrix).map((segment) => ({ ...segment, ...pen })));
       }
     });
-    pages.push({ widthPt: x1 - x0, heightPt: y1 - y0, tagged });
+    pages.push({ widthPt: x1 - x0, heightPt: y1 - y0, tagged, untagged });
   }
   return pages;
 }

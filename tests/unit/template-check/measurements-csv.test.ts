@@ -52,3 +52,39 @@ describe('measured positions CSV', () => {
     expect(!tooBig.ok && tooBig.errors[0]?.message).toMatch(/larger than 64 KiB/);
   });
 });
+
+describe('measured positions CSV as spreadsheets write it (read with csv-parse)', () => {
+  it('reads ";" separators with decimal commas, quoted cells and a byte order mark', () => {
+    const parsed = parseMeasurementsCsv('\uFEFF"fret";"from_nut"\r\n1;35,64\r\n"2";" 69,28 "\r\n3;"103.2"\r\n', limits, 'centre-line');
+    expect(parsed).toEqual({
+      ok: true,
+      measurements: [
+        { fret: 1, along: 'centre-line', fromNut: 35.64 },
+        { fret: 2, along: 'centre-line', fromNut: 69.28 },
+        { fret: 3, along: 'centre-line', fromNut: 103.2 },
+      ],
+      lines: [2, 3, 4],
+    });
+  });
+
+  it('reads fret,along,from_nut with one line per row, with or without a header', () => {
+    const text = 'fret,along,from_nut\n1,treble-edge,36.3\n1,"bass-edge",38.5\n2,string-4,70\n';
+    const parsed = parseMeasurementsCsv(text, limits, 'centre-line');
+    expect(parsed.ok && parsed.measurements.map((m) => m.along)).toEqual(['treble-edge', 'bass-edge', 'string-4']);
+    const bare = parseMeasurementsCsv('1;treble-edge;36,3\n', limits, 'centre-line');
+    expect(bare.ok && bare.measurements).toEqual([{ fret: 1, along: 'treble-edge', fromNut: 36.3 }]);
+  });
+
+  it('names the line and the reason for ";" files, unknown lines, duplicates along a line and an unclosed quote', () => {
+    const text = ['fret;along;from_nut', '1;treble-edge;35,6', '2;side;70', '1;treble-edge;35,7', '3;string-8;100', '4;bass-edge;abc'].join('\n');
+    const parsed = parseMeasurementsCsv(text, limits, 'centre-line');
+    expect(!parsed.ok && parsed.errors).toEqual([
+      { line: 3, message: 'along "side" is not a line of this board (use treble-edge, bass-edge, centre-line or string-1 to string-7)' },
+      { line: 4, message: 'duplicate fret: fret 1 along treble-edge is already listed' },
+      { line: 5, message: 'along "string-8" is not a line of this board (use treble-edge, bass-edge, centre-line or string-1 to string-7)' },
+      { line: 6, message: 'from_nut "abc" is not a number' },
+    ]);
+    const unclosed = parseMeasurementsCsv('fret,from_nut\n1,35.6\n2,"69.3\n', limits, 'centre-line');
+    expect(!unclosed.ok && unclosed.errors).toEqual([{ line: 3, message: 'a quoted cell is not closed' }]);
+  });
+});
