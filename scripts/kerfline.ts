@@ -1,4 +1,4 @@
-/** Command-line entry: `npm run --silent kerfline -- layout <design.json> --format csv|json`. */
+/** Command-line entry: `npm run --silent kerfline -- layout <design.json> --format csv|json` or `-- check <design.json> <measurements.csv>`. */
 import { runKerfline } from '~/lib/cli/run-kerfline.server';
 
 process.exitCode = await runKerfline(process.argv.slice(2), {

@@ -195,6 +195,26 @@ describe('Template check API', () => {
   });
 });
 
+describe('Template check API: lines named as before and now', () => {
+  it('an older body naming string: N is still accepted and compared along string N; a new body names along', async () => {
+    const t = await createdTemplate(builder, { ...typed, name: 'Older string body' });
+    const measurements = Array.from({ length: 20 }, (_, i) => ({ fret: i + 1, string: 2, fromNut: closedForm(typed.bassScale, i + 1) }));
+    const older = await postCheckRoute(builder, String(t.id), jsonRequest(`/api/templates/${t.id}/checks`, 'POST', { units: 'mm', tolerance: 0.05, measurements }));
+    expect(older.status).toBe(201);
+    const saved = (await older.json()) as { passed: boolean; result: { slots: { along: string }[] } };
+    expect(saved.passed).toBe(true);
+    expect(saved.result.slots.every((s) => s.along === 'string-2')).toBe(true);
+    const renamed = measurements.map(({ string: _string, ...m }) => ({ ...m, along: 'string-2' }));
+    const newer = await postCheckRoute(builder, String(t.id), jsonRequest(`/api/templates/${t.id}/checks`, 'POST', { units: 'mm', tolerance: 0.05, measurements: renamed }));
+    expect(await newer.json()).toMatchObject({ passed: true });
+    const both = await postCheckRoute(builder, String(t.id), jsonRequest(`/api/templates/${t.id}/checks`, 'POST', { units: 'mm', tolerance: 0.05, measurements: [{ fret: 1, string: 2, along: 'string-2', fromNut: 35 }] }));
+    expect(both.status).toBe(400);
+    expect(await both.json()).toMatchObject({ field: 'measurements.0.string' });
+    const csvAlong = await postCheckRoute(builder, String(t.id), csvRequest(`/api/templates/${t.id}/checks?units=mm&tolerance=0.1&along=side`, '1,35.6\n'));
+    expect(await csvAlong.json()).toMatchObject({ field: 'along' });
+  });
+});
+
 describe('adding a template with the check made against its design', () => {
   const checkOf = (scale: number, frets: number) => ({
     units: 'mm',

@@ -27,6 +27,19 @@ export interface ReadPage {
   tagged: Map<string, PageSegment[]>;
   /** The page's text as pdfjs reads it (items joined; a line break where the item ends a line). */
   text: string;
+  /** Straight segments drawn outside any tag, with the pen they were drawn with. */
+  untagged: PenSegment[];
+}
+
+export interface PenSegment extends PageSegment {
+  widthPt: number;
+  dashed: boolean;
+}
+
+interface GraphicsState {
+  matrix: Matrix;
+  widthPt: number;
+  dashed: boolean;
 }
 
 type Matrix = [number, number, number, number, number, number];
@@ -55,14 +68,19 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
     const operators = await page.getOperatorList();
     const tagged = new Map<string, PageSegment[]>();
     const segments: PageSegment[] = [];
+    const untagged: PenSegment[] = [];
     const tags: string[] = [];
-    const stack: Matrix[] = [];
-    let matrix: Matrix = IDENTITY;
+    const stack: GraphicsState[] = [];
+    // PDF's initial graphics state: line width 1, solid (ISO 32000-1, 8.4.1).
+    let state: GraphicsState = { matrix: IDENTITY, widthPt: 1, dashed: false };
     operators.fnArray.forEach((fn, index) => {
       const args = operators.argsArray[index] as unknown[];
-      if (fn === OPS.save) stack.push(matrix);
-      else if (fn === OPS.restore) matrix = stack.pop() ?? IDENTITY;
-      else if (fn === OPS.transform) matrix = multiply(matrix, args as Matrix);
+      const matrix = state.matrix;
+      if (fn === OPS.save) stack.push({ ...state });
+      else if (fn === OPS.restore) state = stack.pop() ?? { matrix: IDENTITY, widthPt: 1, dashed: false };
+      else if (fn === OPS.transform) state = { ...state, matrix: multiply(matrix, args as Matrix) };
+      else if (fn === OPS.setLineWidth) state = { ...state, widthPt: args[0] as number };
+      else if (fn === OPS.setDash) state = { ...state, dashed: (args[0] as number[]).length > 0 };
       else if (fn === OPS.beginMarkedContent || fn === OPS.beginMarkedContentProps) {
         const tag = args[0] as { name?: string } | string;
         tags.push(typeof tag === 'string' ? tag : (tag.name ?? ''));
@@ -74,11 +92,14 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
           const list = tagged.get(tags[tags.length - 1]!) ?? [];
           list.push(...drawn);
           tagged.set(tags[tags.length - 1]!, list);
+        } else {
+          const pen = { widthPt: state.widthPt, dashed: state.dashed };
+          untagged.push(...drawn.map((segment) => ({ ...segment, ...pen })));
         }
       }
     });
     const text = (await page.getTextContent()).items.map((item) => ('str' in item ? item.str + (item.hasEOL ? '\n' : '') : '')).join('');
-    pages.push({ widthPt: x1 - x0, heightPt: y1 - y0, segments, tagged, text });
+    pages.push({ widthPt: x1 - x0, heightPt: y1 - y0, segments, tagged, untagged, text });
   }
   return pages;
 }

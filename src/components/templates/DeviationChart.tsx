@@ -29,7 +29,8 @@ export function DeviationChart({ result, frets, title }: { result: CheckResult; 
   const x = (fret: number) => PAD.left + (fret / (frets + 1)) * plotW;
   const y = (deviation: number) => PAD.top + ((extent - deviation) / (2 * extent)) * plotH;
   const ticks = axisTicks(extent, tolerance, plotH);
-  const strings = [...new Set(result.slots.map((s) => s.string))];
+  // The fits list each measured line once, in the board's order: the first is drawn solid.
+  const lines = result.fits.map((fit) => fit.along);
   const fretStep = frets > 24 ? 3 : frets > 12 ? 2 : 1;
 
   return (
@@ -90,10 +91,10 @@ export function DeviationChart({ result, frets, title }: { result: CheckResult; 
       <text transform={`translate(14 ${PAD.top + plotH / 2}) rotate(-90)`} textAnchor="middle" fontSize="12" fill="#1f2328">
         Deviation ({units}), + = toward the bridge
       </text>
-      {strings.map((string, index) => {
-        const points = result.slots.filter((s) => s.string === string).sort((a, b) => a.fret - b.fret);
+      {lines.map((along, index) => {
+        const points = result.slots.filter((s) => s.along === along).sort((a, b) => a.fret - b.fret);
         return (
-          <g key={string}>
+          <g key={along}>
             <polyline
               points={points.map((s) => `${x(s.fret)},${y(s.deviation)}`).join(' ')}
               fill="none"

@@ -4,27 +4,27 @@
  */
 import { formatLength } from '~/lib/format/units';
 import type { CheckResult, Diagnosis } from '~/lib/template-check/compare';
+import { measureLinePhrase, type MeasureLine } from '~/lib/template-check/measure-lines';
 
-/** Edges are named only on a fanned template, where each edge is checked on its own. */
-function edge(string: number, strings: number, fanned: boolean): string {
-  if (!fanned) return '';
-  return string === 1 ? ' (treble edge)' : ` (${string === strings ? 'bass edge' : `string ${string}`})`;
+/** Lines are named where it matters: on a fanned board, or when more than one line was measured. */
+function where(along: MeasureLine, strings: number, namedLines: boolean): string {
+  return namedLines ? ` ${measureLinePhrase(along, strings)}` : '';
 }
 
-function headline(d: Exclude<Diagnosis, { kind: 'none' }>, result: CheckResult, strings: number, fanned: boolean): string {
-  const where = edge(d.string, strings, fanned);
-  if (d.kind === 'scale') return `Made for another scale${where}: best fit ${formatLength(d.scaleLength, result.units, true)}`;
-  if (d.kind === 'offset') return `Shifted at the nut${where} by ${formatLength(d.offset, result.units, true)}`;
-  return `Single slots off${where}`;
+function headline(d: Exclude<Diagnosis, { kind: 'none' }>, result: CheckResult, strings: number, namedLines: boolean): string {
+  const line = where(d.along, strings, namedLines);
+  if (d.kind === 'scale') return `Made for another scale${line}: best fit ${formatLength(d.scaleLength, result.units, true)}`;
+  if (d.kind === 'offset') return `Shifted at the nut${line} by ${formatLength(d.offset, result.units, true)}`;
+  return `Single slots off${line}`;
 }
 
-export function DiagnosisHeadlines({ result, strings, fanned }: { result: CheckResult; strings: number; fanned: boolean }) {
+export function DiagnosisHeadlines({ result, strings, namedLines }: { result: CheckResult; strings: number; namedLines: boolean }) {
   const found = result.diagnoses.filter((d): d is Exclude<Diagnosis, { kind: 'none' }> => d.kind !== 'none');
   if (found.length === 0) return null;
   return (
     <ul aria-label="Likely cause" data-testid="check-diagnosis" className="space-y-1 font-semibold">
       {found.map((d) => (
-        <li key={`${d.kind}-${d.string}`}>{headline(d, result, strings, fanned)}</li>
+        <li key={`${d.kind}-${d.along}`}>{headline(d, result, strings, namedLines)}</li>
       ))}
     </ul>
   );

@@ -9,6 +9,7 @@ import { formatLength, type LengthUnit } from '~/lib/format/units';
 import type { Design } from '~/lib/schemas/design';
 import type { TemplateView } from '~/lib/schemas/template';
 import { defaultTolerance, type Measurement, type WorkMethod } from '~/lib/template-check/compare';
+import { measureLineLabel, measureLines, type MeasureLine } from '~/lib/template-check/measure-lines';
 import { MEASUREMENTS_CSV_MAX_BYTES, parseMeasurementsCsv } from '~/lib/template-check/measurements-csv';
 import { runCheck, runCsvCheck, type CheckOutcome } from '~/lib/template-check/run-check';
 import type { SavedCheck } from '~/lib/db/templates.server';
@@ -37,7 +38,10 @@ function toleranceText(method: WorkMethod, units: LengthUnit): string {
 export default function TemplateCheckPanel({ design, subject }: Props) {
   const hydrated = useHydrated();
   const fanned = design.scale.treble !== design.scale.bass;
-  const edges = fanned ? [1, design.strings] : [1];
+  const lines = measureLines(design.strings);
+  const lineLabel = (line: MeasureLine) => measureLineLabel(line, design.strings);
+  // One grid column per line measured: both edges on a fanned board, the centre line otherwise.
+  const [columns, setColumns] = useState<MeasureLine[]>(fanned ? ['treble-edge', 'bass-edge'] : ['centre-line']);
   const [units, setUnits] = useState<LengthUnit>(design.units);
   const [method, setMethod] = useState<WorkMethod>('hand');
   const [tolerance, setTolerance] = useState(toleranceText('hand', design.units));
@@ -55,19 +59,20 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
     () =>
       Object.entries(grid)
         .filter(([, value]) => value.trim() !== '' && Number.isFinite(Number(value)))
-        .map(([key, value]) => {
-          const [fret, string] = key.split('/').map(Number) as [number, number];
-          return { fret, string, fromNut: Number(value) };
+        .flatMap(([key, value]) => {
+          const [fret, column] = key.split('/').map(Number) as [number, number];
+          const along = columns[column];
+          return along ? [{ fret, along, fromNut: Number(value) }] : [];
         })
-        .sort((a, b) => a.fret - b.fret || a.string - b.string),
-    [grid],
+        .sort((a, b) => a.fret - b.fret || lines.indexOf(a.along) - lines.indexOf(b.along)),
+    [grid, columns, lines],
   );
 
   const outcome: CheckOutcome | null = useMemo(() => {
     if (!toleranceOk) return null;
-    if (mode === 'csv') return csv ? runCsvCheck(design, csv.text, { units, tolerance: toleranceValue }) : null;
+    if (mode === 'csv') return csv ? runCsvCheck(design, csv.text, { units, tolerance: toleranceValue, along: columns[0]! }) : null;
     return measurements.length > 0 ? runCheck(design, { units, tolerance: toleranceValue, measurements }) : null;
-  }, [mode, csv, measurements, units, toleranceValue, toleranceOk, design]);
+  }, [mode, csv, measurements, columns, units, toleranceValue, toleranceOk, design]);
 
   function chooseMethod(next: WorkMethod) {
     setMethod(next);
@@ -90,7 +95,7 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
 
   /** The entered measurements as the API's grid, CSV rows included (parsed by the same module). */
   function enteredGrid() {
-    const parsed = mode === 'csv' && csv ? parseMeasurementsCsv(csv.text, { frets: design.frets, strings: design.strings }) : null;
+    const parsed = mode === 'csv' && csv ? parseMeasurementsCsv(csv.text, { frets: design.frets, strings: design.strings }, columns[0]!) : null;
     return { units, tolerance: toleranceValue, measurements: parsed ? (parsed.ok ? parsed.measurements : []) : measurements };
   }
 
@@ -102,7 +107,7 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
       const saved = (await postCheck(
         template.id,
         mode === 'csv' && csv
-          ? { kind: 'csv', csv: csv.text, units, tolerance: toleranceValue }
+          ? { kind: 'csv', csv: csv.text, units, tolerance: toleranceValue, along: columns[0]! }
           : { kind: 'grid', json: { units, tolerance: toleranceValue, measurements } },
       )) as SavedCheck;
       setChecks((list) => [saved, ...list]);
@@ -113,7 +118,11 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
   }
 
   const result = outcome?.ok ? outcome.result : null;
-  const edgeName = (string: number) => (string === 1 ? 'treble edge (string 1)' : `bass edge (string ${string})`);
+  const namedLines = new Set(result?.slots.map((slot) => slot.along) ?? []).size > 1 || fanned;
+
+  function chooseLine(column: number, line: MeasureLine) {
+    setColumns((list) => list.map((old, i) => (i === column ? line : old)));
+  }
 
   return (
     <div className="space-y-6">
@@ -122,10 +131,16 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
           Template check
         </h2>
         <p className="text-sm text-ink-soft">
-          Measure each slot's distance from the nut{fanned ? ' along the treble and bass edges' : ''} and compare it with{' '}
+          Measure each slot's distance from the nut line (or the zero fret) the printed template marks, along the line you
+          choose below, and compare it with{' '}
           {subject.kind === 'design'
             ? `revision ${subject.revision} of the design (${design.name}). Any physical template can be checked here; nothing is saved unless you add it to the Template shelf.`
             : `${subject.template.designId !== null ? 'the design' : 'the typed scale lengths'} (${design.name}).`}
+        </p>
+        <p className="text-sm text-ink-soft">
+          Each number is compared along the same line it was measured along: the treble or bass edge of the board, the
+          centre line, or one string. Lay the rule on that line with its zero on the nut line (the zero fret where the
+          design has one) and read where each slot crosses it.{fanned ? ' On a fanned board the edges and the strings give different numbers, so say which you used.' : ''}
         </p>
         <fieldset disabled={!hydrated} className="space-y-4">
           <legend className="sr-only">Measurements</legend>
@@ -167,8 +182,15 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
           </fieldset>
           {mode === 'csv' ? (
             <div className="space-y-1 text-sm">
+              <LineSelect
+                label="Rows without an along column were measured along"
+                value={columns[0]!}
+                lines={lines}
+                lineLabel={lineLabel}
+                onChange={(line) => chooseLine(0, line)}
+              />
               <label className="flex flex-col gap-1">
-                Measured positions CSV (fret,from_nut or fret,string,from_nut; up to 64 KiB)
+                Measured positions CSV (fret,from_nut or fret,along,from_nut, comma or semicolon separated; up to 64 KiB)
                 <input type="file" accept=".csv,text/csv,text/plain" onChange={readCsv} />
               </label>
               {csvTooBig && (
@@ -187,9 +209,16 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
                     <th scope="col" className="px-2 text-left">
                       Fret
                     </th>
-                    {edges.map((s) => (
-                      <th key={s} scope="col" className="px-2 text-left">
-                        {fanned ? `${edgeName(s)}, ` : ''}from nut ({units})
+                    {columns.map((line, column) => (
+                      <th key={column} scope="col" className="px-2 text-left align-bottom font-normal">
+                        <LineSelect
+                          label={`Column ${column + 1}: measured along`}
+                          value={line}
+                          lines={lines.filter((other) => other === line || !columns.includes(other))}
+                          lineLabel={lineLabel}
+                          onChange={(next) => chooseLine(column, next)}
+                        />
+                        <span className="font-semibold">From nut ({units})</span>
                       </th>
                     ))}
                   </tr>
@@ -200,14 +229,14 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
                       <th scope="row" className="px-2 text-left font-mono">
                         {fret}
                       </th>
-                      {edges.map((s) => (
-                        <td key={s} className="px-2 py-0.5">
+                      {columns.map((line, column) => (
+                        <td key={column} className="px-2 py-0.5">
                           <input
-                            aria-label={`Fret ${fret}${fanned ? `, ${edgeName(s)}` : ''}, measured from nut (${units})`}
+                            aria-label={`Fret ${fret}, along the ${lineLabel(line)}, measured from nut (${units})`}
                             inputMode="decimal"
                             className={`${input} w-32 font-mono`}
-                            value={grid[`${fret}/${s}`] ?? ''}
-                            onChange={(e) => setGrid((g) => ({ ...g, [`${fret}/${s}`]: e.target.value }))}
+                            value={grid[`${fret}/${column}`] ?? ''}
+                            onChange={(e) => setGrid((g) => ({ ...g, [`${fret}/${column}`]: e.target.value }))}
                           />
                         </td>
                       ))}
@@ -252,18 +281,18 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
             <strong>{result.passed ? 'Pass. ' : 'Fail. '}</strong>
             {result.summary}
           </p>
-          <DiagnosisHeadlines result={result} strings={design.strings} fanned={fanned} />
+          <DiagnosisHeadlines result={result} strings={design.strings} namedLines={namedLines} />
           <figure className="space-y-1">
             <DeviationChart result={result} frets={design.frets} title={`Deviation against fret number for ${subjectName}`} />
             <figcaption className="text-xs text-ink-soft">
               Circles: within tolerance; crosses: outside. Shaded band: ±{formatLength(result.tolerance, result.units, true)}.
-              {fanned ? ' Solid line: treble edge; dashed: bass edge.' : ''} The table below has the same numbers.
+              {namedLines ? ` ${chartKey(result.fits.map((fit) => fit.along), lineLabel)}` : ''} The table below has the same numbers.
             </figcaption>
           </figure>
           <ul className="text-sm">
             {result.fits.map((fit) => (
-              <li key={fit.string}>
-                Best-fit scale{fanned ? ` (${edgeName(fit.string)})` : ''}:{' '}
+              <li key={fit.along}>
+                Best-fit scale{namedLines ? ` (${lineLabel(fit.along)})` : ''}:{' '}
                 <span className="font-mono">{formatLength(fit.scale.scaleLength, result.units, true)}</span> (design{' '}
                 <span className="font-mono">{formatLength(fit.designScaleLength, result.units, true)}</span>, largest residual{' '}
                 <span className="font-mono">{formatLength(fit.scale.maxAbsResidual, result.units, true)}</span>)
@@ -282,7 +311,7 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
               <caption className="text-left font-semibold">Slot by slot ({result.units})</caption>
               <thead className="bg-paper-shade">
                 <tr>
-                  {['Fret', ...(fanned ? ['Edge'] : []), 'Design', 'Measured', 'Deviation', 'Cents', 'Within tolerance'].map((h) => (
+                  {['Fret', ...(namedLines ? ['Along'] : []), 'Design', 'Measured', 'Deviation', 'Cents', 'Within tolerance'].map((h) => (
                     <th key={h} scope="col" className="px-2 py-1 text-left">
                       {h}
                     </th>
@@ -291,9 +320,9 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
               </thead>
               <tbody className="font-mono">
                 {result.slots.map((s) => (
-                  <tr key={`${s.fret}/${s.string}`} className="border-t border-paper-line">
+                  <tr key={`${s.fret}/${s.along}`} className="border-t border-paper-line">
                     <td className="px-2">{s.fret}</td>
-                    {fanned && <td className="px-2">{s.string === 1 ? 'treble' : 'bass'}</td>}
+                    {namedLines && <td className="px-2">{lineLabel(s.along)}</td>}
                     <td className="px-2">{formatLength(s.designFromNut, result.units)}</td>
                     <td className="px-2">{formatLength(s.measuredFromNut, result.units)}</td>
                     <td className="px-2">{formatLength(s.deviation, result.units)}</td>
@@ -346,5 +375,33 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
       </section>
       )}
     </div>
+  );
+}
+
+/** The chart draws the first line solid and the others dashed. */
+function chartKey(lines: readonly MeasureLine[], lineLabel: (line: MeasureLine) => string): string {
+  const [first, ...rest] = lines;
+  if (!first) return '';
+  return `Solid line: ${lineLabel(first)}${rest.length > 0 ? `; dashed: ${rest.map(lineLabel).join(', ')}` : ''}.`;
+}
+
+function LineSelect(props: {
+  label: string;
+  value: MeasureLine;
+  lines: readonly MeasureLine[];
+  lineLabel: (line: MeasureLine) => string;
+  onChange: (line: MeasureLine) => void;
+}) {
+  return (
+    <label className="flex flex-col text-sm">
+      {props.label}
+      <select value={props.value} onChange={(e) => props.onChange(e.target.value as MeasureLine)} className={input}>
+        {props.lines.map((line) => (
+          <option key={line} value={line}>
+            {props.lineLabel(line)}
+          </option>
+        ))}
+      </select>
+    </label>
   );
 }

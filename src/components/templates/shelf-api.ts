@@ -29,10 +29,10 @@ export async function patchTemplate(id: number, body: unknown): Promise<Template
   return parse(await fetch(`/api/templates/${id}`, { method: 'PATCH', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) }));
 }
 
-export async function postCheck(id: number, body: { kind: 'grid'; json: unknown } | { kind: 'csv'; csv: string; units: string; tolerance: number }): Promise<unknown> {
+export async function postCheck(id: number, body: { kind: 'grid'; json: unknown } | { kind: 'csv'; csv: string; units: string; tolerance: number; along: string }): Promise<unknown> {
   if (body.kind === 'grid') {
     return parse(await fetch(`/api/templates/${id}/checks`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body.json) }));
   }
-  const query = new URLSearchParams({ units: body.units, tolerance: String(body.tolerance) });
+  const query = new URLSearchParams({ units: body.units, tolerance: String(body.tolerance), along: body.along });
   return parse(await fetch(`/api/templates/${id}/checks?${query}`, { method: 'POST', headers: { 'content-type': 'text/csv' }, body: body.csv }));
 }

@@ -1,16 +1,32 @@
 import { parseArgs } from 'node:util';
 import { EXPORT_FORMATS, validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options';
 import { PAPER_NAMES } from '~/lib/export/paper-sizes';
+import { EDGE_AND_CENTRE_LINES, parseMeasureLine, type MeasureLine } from '~/lib/template-check/measure-lines';
+
+/** Output forms of `kerfline check`. */
+export const CHECK_FORMATS = ['text', 'json'] as const;
+export type CheckFormat = (typeof CHECK_FORMATS)[number];
 
 /** What the command line was asked to do. */
 export type KerflineCommand =
   | { kind: 'layout'; designPath: string; options: ExportOptions; out: string | null }
+  | {
+      kind: 'check';
+      designPath: string;
+      measurementsPath: string;
+      /** The line of rows that name none (whether the board has it is checked with the design). */
+      along: MeasureLine;
+      /** In the design's units; null = the hand-sawn default. */
+      tolerance: number | null;
+      format: CheckFormat;
+    }
   | { kind: 'help' };
 
 export type ParsedCommand = { ok: true; command: KerflineCommand } | { ok: false; message: string };
 
 export const USAGE = [
   `Usage: kerfline layout <design.json> [--format ${EXPORT_FORMATS.join('|')}] [--out <file>] [options]`,
+  `       kerfline check <design.json> <measurements.csv> [--along <line>] [--tolerance <t>] [--format ${CHECK_FORMATS.join('|')}]`,
   '',
   '  layout   compute the fret layout of a design file and export it',
   `  --format       ${EXPORT_FORMATS.join(', ')} (default csv): pdf = paper template,`,
@@ -23,9 +39,18 @@ export const USAGE = [
   '  --overlap      overlap between tiled pages in mm (default 10)',
   '  --strings      draw the strings          --no-kerf  leave out the slot-width bands',
   '  --mirror       mirror for a template glued face-down',
+  '  --to-saddle    draw on to the saddle (default: the board only, with a saddle mark on each outer string)',
   '  Slot paths (dxf, svg):',
   '  --slots        lines, outlines (default lines; outlines = closed outlines of the slot width)',
   '  --origin       nut-centre, lower-left (default nut-centre)',
+  '',
+  '  check    compare measured slot positions of a template with the design (Template check)',
+  '  CSV columns    fret,from_nut (along --along) or fret,along,from_nut; comma or semicolon separated,',
+  "                 lengths in the design's units from the nut line (or zero fret) the template marks",
+  `  --along        ${EDGE_AND_CENTRE_LINES.join(', ')} or string-N (default centre-line)`,
+  "  --tolerance    +/- in the design's units (default 0.1 mm, hand-sawn, common practice)",
+  '  --format       text, json (default text)',
+  '  Exit status: 0 every slot within tolerance, 1 any slot outside, 2 bad input.',
 ].join('\n');
 
 const OPTION_FLAGS = {
@@ -37,10 +62,19 @@ const OPTION_FLAGS = {
   strings: { type: 'boolean' },
   kerf: { type: 'boolean' },
   mirror: { type: 'boolean' },
+  'to-saddle': { type: 'boolean' },
   slots: { type: 'string' },
   origin: { type: 'string' },
+  along: { type: 'string' },
+  tolerance: { type: 'string' },
   help: { type: 'boolean', short: 'h' },
 } as const;
+
+type Values = ReturnType<typeof parseArgs<{ args: string[]; allowPositionals: true; allowNegative: true; options: typeof OPTION_FLAGS }>>['values'];
+
+/** Flags that belong to one command only. */
+const CHECK_ONLY = ['along', 'tolerance'] as const;
+const LAYOUT_ONLY = ['out', 'paper', 'orientation', 'overlap', 'strings', 'kerf', 'mirror', 'to-saddle', 'slots', 'origin'] as const;
 
 /** Parses the arguments after the program name; never throws. */
 export function parseCommand(argv: readonly string[]): ParsedCommand {
@@ -52,14 +86,17 @@ export function parseCommand(argv: readonly string[]): ParsedCommand {
   }
   const [name, ...rest] = parsed.positionals;
   if (parsed.values.help === true || name === 'help') return { ok: true, command: { kind: 'help' } };
+  if (name === 'check') return parseCheck(rest, parsed.values);
   if (name !== 'layout') {
     return { ok: false, message: name === undefined ? 'missing command' : `unknown command "${name}"` };
   }
   const [designPath, ...extra] = rest;
   if (designPath === undefined) return { ok: false, message: 'layout needs a design file' };
   if (extra.length > 0) return { ok: false, message: `unexpected argument "${extra[0]}"` };
-  const { out, help: _help, ...values } = parsed.values;
-  const options = validateExportOptions({ format: 'csv', ...values });
+  const foreign = CHECK_ONLY.find((flag) => parsed.values[flag] !== undefined);
+  if (foreign) return { ok: false, message: `--${foreign} belongs to the check command` };
+  const { out, help: _help, along: _along, tolerance: _tolerance, 'to-saddle': toSaddle, ...values } = parsed.values;
+  const options = validateExportOptions({ format: 'csv', ...values, ...(toSaddle === undefined ? {} : { toSaddle }) });
   if (!options.ok) {
     const first = options.issues[0];
     return { ok: false, message: `--${first?.path}: ${first?.message}` };
@@ -68,4 +105,25 @@ export function parseCommand(argv: readonly string[]): ParsedCommand {
     return { ok: false, message: 'a pdf is binary: give --out <file>' };
   }
   return { ok: true, command: { kind: 'layout', designPath, options: options.options, out: out ?? null } };
+}
+
+function parseCheck(positionals: readonly string[], values: Values): ParsedCommand {
+  const [designPath, measurementsPath, ...extra] = positionals;
+  if (designPath === undefined || measurementsPath === undefined) return { ok: false, message: 'check needs a design file and a measurements CSV' };
+  if (extra.length > 0) return { ok: false, message: `unexpected argument "${extra[0]}"` };
+  const foreign = LAYOUT_ONLY.find((flag) => values[flag] !== undefined);
+  if (foreign) return { ok: false, message: `--${foreign} belongs to the layout command` };
+  const format = values.format ?? 'text';
+  if (!(CHECK_FORMATS as readonly string[]).includes(format)) return { ok: false, message: `--format: must be ${CHECK_FORMATS.join(' or ')}` };
+  // Any string number is allowed here; the design says how many strings there are.
+  const along = parseMeasureLine(values.along ?? 'centre-line', Number.MAX_SAFE_INTEGER);
+  if (!along) return { ok: false, message: `--along: must be ${EDGE_AND_CENTRE_LINES.join(', ')} or string-N` };
+  let tolerance: number | null = null;
+  if (values.tolerance !== undefined) {
+    tolerance = Number(values.tolerance);
+    if (values.tolerance.trim() === '' || !Number.isFinite(tolerance) || tolerance <= 0) {
+      return { ok: false, message: '--tolerance: must be a number greater than 0' };
+    }
+  }
+  return { ok: true, command: { kind: 'check', designPath, measurementsPath, along, tolerance, format: format as CheckFormat } };
 }

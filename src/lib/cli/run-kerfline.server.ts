@@ -5,6 +5,7 @@ import { computeLayout } from '~/lib/geometry/layout';
 import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note';
 import { validateDesign } from '~/lib/schemas/design';
 import { USAGE, parseCommand } from './parse-command.server.ts';
+import { runCheckCommand } from './run-check-command.server.ts';
 
 export interface CliOutput {
   stdout: (text: string) => void;
@@ -12,8 +13,9 @@ export interface CliOutput {
 }
 
 /**
- * Exit codes: 0 done, 1 bad design or unreadable/unwritable file, 2 bad command line (an export
- * over a cap in docs/exports.md "Limits" included: the message names the flag to change).
+ * Exit codes of `layout`: 0 done, 1 bad design or unreadable/unwritable file, 2 bad command line
+ * (an export over a cap in docs/exports.md "Limits" included: the message names the flag to
+ * change). `check` has its own (run-check-command.server.ts: 0 pass, 1 fail, 2 bad input).
  * Runs in this process: the server's worker pool is for keeping a web server answering.
  */
 export async function runKerfline(argv: readonly string[], output: CliOutput): Promise<number> {
@@ -27,6 +29,7 @@ export async function runKerfline(argv: readonly string[], output: CliOutput): P
     output.stdout(`${USAGE}\n`);
     return 0;
   }
+  if (command.kind === 'check') return runCheckCommand(command, output);
   let input: unknown;
   try {
     input = JSON.parse(await readFile(command.designPath, 'utf8')) as unknown;

@@ -8,6 +8,7 @@ import { MM_PER_INCH } from '~/lib/format/units';
 import { designRevisions, designs, templateChecks, templates } from '~/lib/db/schema';
 import type { CheckResult } from '~/lib/template-check/compare';
 import { runCheck } from '~/lib/template-check/run-check';
+import { readSavedResult } from '~/lib/template-check/saved-result';
 import { standInDesign } from '~/lib/template-check/template-design';
 import { validateDesign, type Design } from '~/lib/schemas/design';
 import type { CheckGrid, TemplateCreate, TemplateListQuery, TemplatePage, TemplateUpdate, TemplateView } from '~/lib/schemas/template';
@@ -310,7 +311,7 @@ export async function listChecks(db: Db, shopId: number, templateId: number): Pr
     checkedBy: row.checkedBy,
     tolerance: row.tolerance,
     passed: row.passed,
-    result: row.result as CheckResult,
+    result: readSavedResult(row.result),
     createdAt: row.createdAt.toISOString(),
   }));
 }

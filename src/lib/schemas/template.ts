@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import { DESIGN_LIMITS } from '~/lib/schemas/design';
 import { fromMm } from '~/lib/format/units';
+import type { MeasureLine } from '~/lib/template-check/measure-lines';
 
 export const TEMPLATE_LIMITS = {
   nameMaxChars: 120,
@@ -40,20 +41,41 @@ const isoDate = z
     message: 'must be a real calendar date',
   });
 
+/** A line's word as the measure-lines vocabulary spells it (whether the board has it is checked with the design). */
+const measureLineSchema = z
+  .string()
+  .regex(/^(treble-edge|bass-edge|centre-line|string-[1-9]\d*)$/, { message: 'must be treble-edge, bass-edge, centre-line or string-N' })
+  .transform((word) => word as MeasureLine);
+
+/**
+ * One measured slot along a named line. Older bodies name `string: N` instead (1 = treble, the
+ * default when neither is given): they were compared along string N, and still are.
+ */
 const measurementSchema = z
   .object({
     fret: z.number().int().min(1).max(DESIGN_LIMITS.maxFrets),
-    /** 1 = treble edge (the default) .. N = bass edge. */
-    string: z.number().int().min(1).max(DESIGN_LIMITS.maxStrings).default(1),
+    along: measureLineSchema.optional(),
+    string: z.number().int().min(1).max(DESIGN_LIMITS.maxStrings).optional(),
     fromNut: positive,
   })
-  .strict();
+  .strict()
+  .superRefine((value, ctx) => {
+    if (value.along !== undefined && value.string !== undefined) {
+      ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['string'], message: 'give along or string, not both' });
+    }
+  })
+  .transform(({ fret, along, string, fromNut }) => ({ fret, along: along ?? (`string-${string ?? 1}` as MeasureLine), fromNut }));
 
-/** How measurements and the tolerance are given: in mm or in, tolerance +/- in those units. */
+/**
+ * How measurements and the tolerance are given: in mm or in, tolerance +/- in those units, and
+ * (for a CSV upload) the line that rows without an `along` column were measured along; omitted,
+ * string 1, as before lines were named.
+ */
 export const checkSettingsSchema = z
   .object({
     units: unitsSchema,
     tolerance: positive,
+    along: measureLineSchema.default('string-1'),
   })
   .strict()
   .superRefine((value, ctx) => {
@@ -74,8 +96,8 @@ export const checkGridSchema = z
   .superRefine((value, ctx) => {
     const seen = new Set<string>();
     value.measurements.forEach((m, index) => {
-      const key = `${m.fret}/${m.string}`;
-      if (seen.has(key)) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['measurements', index, 'fret'], message: `fret ${m.fret} is listed twice` });
+      const key = `${m.fret}/${m.along}`;
+      if (seen.has(key)) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['measurements', index, 'fret'], message: `fret ${m.fret} is listed twice along ${m.along}` });
       seen.add(key);
     });
     if (value.tolerance > fromMm(TEMPLATE_LIMITS.mm.tolerance, value.units)) {

@@ -38,3 +38,8 @@ export function measureLineLabel(line: MeasureLine, strings: number): string {
     }
   }
 }
+
+/** "along the treble edge", "along string 7 (bass)": the line as a phrase in a sentence. */
+export function measureLinePhrase(line: MeasureLine, strings: number): string {
+  return `along ${line.startsWith('string-') ? '' : 'the '}${measureLineLabel(line, strings)}`;
+}

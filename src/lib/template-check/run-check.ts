@@ -1,11 +1,12 @@
 /**
  * One Template check from what a person entered: measurements and tolerance in the unit they
- * chose, converted once here into the design's units. Used by the API (authoritative, saved) and
- * by the page for an instant preview.
+ * chose, converted once here into the design's units. Used by the API (authoritative, saved), by
+ * the page for an instant preview and by `kerfline check` on the command line.
  */
 import { convertLength, type LengthUnit } from '~/lib/format/units';
 import type { Design } from '~/lib/schemas/design';
 import { compareTemplate, type CheckError, type CheckResult, type Measurement } from './compare';
+import type { MeasureLine } from './measure-lines';
 import { parseMeasurementsCsv, type CsvLineError } from './measurements-csv';
 import { checkReference } from './reference';
 
@@ -26,9 +27,27 @@ export function runCheck(design: Design, input: CheckInput): CheckOutcome {
   return compareTemplate(checkReference(design), measurements, toDesign(input.tolerance));
 }
 
-/** Parses an uploaded CSV against the design's frets and strings, then checks it. */
-export function runCsvCheck(design: Design, csv: string, settings: { units: LengthUnit; tolerance: number }): CheckOutcome {
-  const parsed = parseMeasurementsCsv(csv, { frets: design.frets, strings: design.strings });
+/** Settings of a CSV check: units and tolerance, and the line of rows that do not name one. */
+export interface CsvCheckSettings {
+  units: LengthUnit;
+  tolerance: number;
+  along: MeasureLine;
+}
+
+/**
+ * Parses an uploaded CSV against the design's frets and strings, then checks it. A row the design
+ * cannot check (a slot past the saddle) is reported by its line, like any other CSV error.
+ */
+export function runCsvCheck(design: Design, csv: string, settings: CsvCheckSettings): CheckOutcome {
+  const parsed = parseMeasurementsCsv(csv, { frets: design.frets, strings: design.strings }, settings.along);
   if (!parsed.ok) return { ok: false, csvErrors: parsed.errors };
-  return runCheck(design, { ...settings, measurements: parsed.measurements });
+  const outcome = runCheck(design, { units: settings.units, tolerance: settings.tolerance, measurements: parsed.measurements });
+  if (outcome.ok || !('errors' in outcome)) return outcome;
+  return {
+    ok: false,
+    csvErrors: outcome.errors.map((error) => ({
+      line: parsed.lines[Number(/^measurements\.(\d+)/.exec(error.field)?.[1])] ?? 1,
+      message: `fret ${error.fret} along ${error.along}: ${error.message}`,
+    })),
+  };
 }

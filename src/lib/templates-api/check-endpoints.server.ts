@@ -1,7 +1,7 @@
 /**
  * GET/POST /api/templates/{id}/checks. A check arrives as a grid (JSON) or as an uploaded CSV
- * (text/csv, with `units` and `tolerance` in the query). Bad input is answered with the line or
- * field at fault and nothing is saved.
+ * (text/csv, with `units`, `tolerance` and optionally `along`, the line of rows that name none, in
+ * the query). Bad input is answered with the line or field at fault and nothing is saved.
  */
 import type { SessionUser } from '~/lib/auth/index.server';
 import { db } from '~/lib/db/client.server';
@@ -44,6 +44,7 @@ export async function postCheckRoute(user: SessionUser | null, id: string | unde
     const settings = checkSettingsSchema.safeParse({
       units: url.searchParams.get('units') ?? undefined,
       tolerance: url.searchParams.has('tolerance') ? Number(url.searchParams.get('tolerance')) : undefined,
+      along: url.searchParams.get('along') ?? undefined,
     });
     if (!settings.success) return invalid(zodIssues(settings.error));
     outcome = runCsvCheck(reference.design, body.value, settings.data);

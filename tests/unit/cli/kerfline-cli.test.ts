@@ -1,5 +1,5 @@
 import { execFile } from 'node:child_process';
-import { mkdtemp, writeFile } from 'node:fs/promises';
+import { mkdtemp, readFile, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -7,6 +7,8 @@ import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
 import { parseCommand } from '~/lib/cli/parse-command.server.ts';
 import { runKerfline } from '~/lib/cli/run-kerfline.server';
+import { computeLayout } from '~/lib/geometry/layout';
+import { validateDesign } from '~/lib/schemas/design';
 import { expectNear } from '../../support/expect-near';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
@@ -27,6 +29,9 @@ describe('kerfline command line', () => {
     expect(parseCommand(['draw'])).toEqual({ ok: false, message: 'unknown command "draw"' });
     expect(parseCommand(['layout'])).toEqual({ ok: false, message: 'layout needs a design file' });
     expect(parseCommand(['--help'])).toEqual({ ok: true, command: { kind: 'help' } });
+    // The paper template stops at the board end unless --to-saddle asks for the full length.
+    expect(parseCommand(['layout', 'a.json', '--format', 'pdf', '--out', 't.pdf'])).toMatchObject({ ok: true, command: { options: { toSaddle: false } } });
+    expect(parseCommand(['layout', 'a.json', '--format', 'pdf', '--out', 't.pdf', '--to-saddle'])).toMatchObject({ ok: true, command: { options: { toSaddle: true } } });
   });
 
   it('prints the JSON layout with --format json', async () => {
@@ -62,5 +67,68 @@ describe('kerfline command line', () => {
       // Varieschi & Gower, Am. J. Phys. 78 (2010): d(n) = L (1 - 2^(-n/12)) along each string.
       expectNear(fromNut, scaleLength * (1 - 2 ** (-fret / 12)), 1e-9); // mm
     }
+  });
+});
+
+describe('kerfline check', () => {
+  async function files(csv: string) {
+    const dir = await mkdtemp(join(tmpdir(), 'kerfline-check-'));
+    const path = join(dir, 'measured.csv');
+    await writeFile(path, csv);
+    return path;
+  }
+
+  /** The fan's own slot positions along the treble edge, from the layout's fret lines (edge to edge). */
+  async function trebleEdgeCsv(shift = 0): Promise<string> {
+    const validation = validateDesign(JSON.parse(await readFile(FAN_FILE, 'utf8')));
+    if (!validation.ok) throw new Error('demo design invalid');
+    const layout = computeLayout(validation.design);
+    const nut = layout.nutLine.start;
+    const rows = layout.frets.map((f) => `${f.number};${String(Math.hypot(f.line.start.x - nut.x, f.line.start.y - nut.y) + shift).replace('.', ',')}`);
+    return `fret;from_nut\n${rows.join('\n')}\n`;
+  }
+
+  it('exits 0 and prints the JSON verdict for the fan measured along its treble edge (semicolons, decimal commas)', async () => {
+    const result = await run(['check', FAN_FILE, await files(await trebleEdgeCsv()), '--along', 'treble-edge', '--format', 'json']);
+    expect(result.stderr).toBe('');
+    expect(result.code).toBe(0);
+    const verdict = JSON.parse(result.stdout) as { passed: boolean; worstDeviation: number; slots: { fret: number; along: string; expected: number; measured: number; deviation: number }[] };
+    expect(verdict.passed).toBe(true);
+    expect(Math.abs(verdict.worstDeviation)).toBeLessThan(1e-6); // mm
+    expect(verdict.slots).toHaveLength(24);
+    expect(Object.keys(verdict.slots[0]!)).toEqual(expect.arrayContaining(['fret', 'along', 'expected', 'measured', 'deviation']));
+    expect(verdict.slots.every((s) => s.along === 'treble-edge')).toBe(true);
+  });
+
+  it('exits 1 when a slot is outside the tolerance (text output), and --tolerance widens it in design units', async () => {
+    const path = await files(await trebleEdgeCsv(0.3));
+    const failed = await run(['check', FAN_FILE, path, '--along', 'treble-edge']);
+    expect(failed.code).toBe(1);
+    expect(failed.stdout).toMatch(/^Fails: 24 of 24 slots outside ±0\.10 mm/);
+    const wide = await run(['check', FAN_FILE, path, '--along', 'treble-edge', '--tolerance', '0.5']);
+    expect(wide.code).toBe(0);
+    expect(wide.stdout).toMatch(/^Passes: all 24 slots within ±0\.50 mm/);
+  });
+
+  it('the default line is the centre line; measured along the edge and checked along the centre line a fan fails', async () => {
+    const result = await run(['check', FAN_FILE, await files(await trebleEdgeCsv()), '--format', 'json']);
+    expect(result.code).toBe(1);
+    expect((JSON.parse(result.stdout) as { slots: { along: string }[] }).slots[0]!.along).toBe('centre-line');
+  });
+
+  it('exits 2 with the file, line number and reason for bad input', async () => {
+    const bad = await run(['check', FAN_FILE, await files('fret,along,from_nut\n1,treble-edge,36\n2,side,70\n')]);
+    expect(bad.code).toBe(2);
+    expect(bad.stdout).toBe('');
+    expect(bad.stderr).toMatch(/measured\.csv:3: along "side" is not a line of this board/);
+    const pastSaddle = await run(['check', FAN_FILE, await files('fret,from_nut\n1,36\n2,900\n')]);
+    expect(pastSaddle.code).toBe(2);
+    expect(pastSaddle.stderr).toMatch(/measured\.csv:3: fret 2 along centre-line: must lie between the nut and the saddle/);
+    expect((await run(['check', FAN_FILE, await files('1,36\n'), '--along', 'string-8'])).stderr).toMatch(/--along: the board has no line "string-8"/);
+    expect((await run(['check', FAN_FILE, await files('1,36\n'), '--along', 'edge'])).code).toBe(2);
+    expect((await run(['check', FAN_FILE, await files('1,36\n'), '--tolerance', '-1'])).code).toBe(2);
+    expect((await run(['check', FAN_FILE])).code).toBe(2);
+    expect((await run(['check', FAN_FILE, join(tmpdir(), 'no-such-file.csv')])).stderr).toMatch(/cannot read measurements/);
+    expect((await run(['layout', FAN_FILE, '--along', 'centre-line'])).stderr).toMatch(/--along belongs to the check command/);
   });
 });

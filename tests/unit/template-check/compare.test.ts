@@ -13,7 +13,7 @@ function closedForm(scaleLength: number, fret: number): number {
 }
 
 function measuredFor(scaleLength: number, offset = 0, noise: (fret: number) => number = () => 0): Measurement[] {
-  return FRETS.map((fret) => ({ fret, string: 1, fromNut: closedForm(scaleLength, fret) + offset + noise(fret) }));
+  return FRETS.map((fret) => ({ fret, along: 'string-1' as const, fromNut: closedForm(scaleLength, fret) + offset + noise(fret) }));
 }
 
 /** Deterministic pseudo-random numbers in [0, 1): a 32-bit linear congruential generator (Numerical Recipes constants). */
@@ -35,7 +35,7 @@ describe('Template check against a design', () => {
     expect(result.passed).toBe(false);
     expectNear(result.fits[0]!.scale.scaleLength, 628.65, 0.01); // mm
     expect(result.fits[0]!.scale.maxAbsResidual).toBeLessThan(1e-9); // mm
-    expect(result.diagnoses).toEqual([expect.objectContaining({ kind: 'scale', string: 1 })]);
+    expect(result.diagnoses).toEqual([expect.objectContaining({ kind: 'scale', along: 'string-1' })]);
     expect(result.summary).toMatch(/^Fails: .* The slots fit a 628\.65 mm scale, not 635\.00 mm/); // no edge named on a single-scale board
     // Slots too close to the nut make the stopped string longer, so every fret plays flat.
     for (const slot of result.slots) expect(slot.cents).toBeLessThan(0);
@@ -82,34 +82,35 @@ describe('Template check against a design', () => {
     expect(outcome.result.diagnoses[0]?.kind).toBe('scattered');
   });
 
-  it('per-edge measurements of a fanned design use string 1 and string N scale lengths from the layout', () => {
+  it('measurements along the outer strings of a fanned design use string 1 and string N scale lengths from the layout', () => {
     const reference = checkReference(
       designOf({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8, frets: 20, stringSpacing: { nut: 48, bridge: 75 } }),
     );
     const measured: Measurement[] = [
-      ...FRETS.map((fret) => ({ fret, string: 1, fromNut: closedForm(648, fret) })),
-      ...FRETS.map((fret) => ({ fret, string: 7, fromNut: closedForm(680, fret) })),
+      ...FRETS.map((fret) => ({ fret, along: 'string-1' as const, fromNut: closedForm(648, fret) })),
+      ...FRETS.map((fret) => ({ fret, along: 'string-7' as const, fromNut: closedForm(680, fret) })),
     ];
     const outcome = compareTemplate(reference, measured, defaultTolerance('cnc', 'mm'));
     if (!outcome.ok) throw new Error(JSON.stringify(outcome.errors));
     const [treble, bass] = outcome.result.fits;
     expectNear(treble!.scale.scaleLength, 648, 1e-9); // mm
     expectNear(bass!.scale.scaleLength, 680, 1e-9); // mm
-    expect(outcome.result.slots.filter((s) => s.string === 1).every((s) => s.withinTolerance)).toBe(true);
-    expect(outcome.result.diagnoses).toEqual([expect.objectContaining({ kind: 'scale', string: 7 })]);
-    expect(outcome.result.summary).toMatch(/\(bass edge\) fit a 680\.00 mm scale/);
+    expect(outcome.result.slots.filter((s) => s.along === 'string-1').every((s) => s.withinTolerance)).toBe(true);
+    expect(outcome.result.diagnoses).toEqual([expect.objectContaining({ kind: 'scale', along: 'string-7' })]);
+    // These were always compared along string 7; the summary now says so instead of "bass edge".
+    expect(outcome.result.summary).toMatch(/slots along string 7 \(bass\) fit a 680\.00 mm scale/);
   });
 
   it('works in inches: default tolerances are the mm values converted', () => {
     expectNear(defaultTolerance('hand', 'in'), 0.1 / 25.4, 1e-15); // in
     const reference = checkReference(designOf({ units: 'in', scale: { treble: 13.875, bass: 13.875 }, frets: 20, stringSpacing: { nut: 0.85, bridge: 1.45 } }));
-    const measured = FRETS.map((fret) => ({ fret, string: 1, fromNut: closedForm(13.875, fret) }));
+    const measured = FRETS.map((fret) => ({ fret, along: 'string-1' as const, fromNut: closedForm(13.875, fret) }));
     const outcome = compareTemplate(reference, measured, defaultTolerance('cnc', 'in'));
     expect(outcome.ok && outcome.result.passed).toBe(true);
   });
 
   it('refuses measurements for frets the design lacks, or past the saddle', () => {
-    const outcome = compareTemplate(design635, [{ fret: 21, string: 1, fromNut: 450 }, { fret: 3, string: 1, fromNut: 700 }], 0.1);
+    const outcome = compareTemplate(design635, [{ fret: 21, along: 'string-1', fromNut: 450 }, { fret: 3, along: 'string-1', fromNut: 700 }], 0.1);
     expect(outcome.ok).toBe(false);
     if (outcome.ok) return;
     expect(outcome.errors.map((e) => e.field)).toEqual(['measurements.0', 'measurements.1.fromNut']);

@@ -84,7 +84,7 @@ function oldTemplateMeasurements(scale: number, frets: number) {
   const r = equalRemainingFraction(12);
   return Array.from({ length: frets }, (_, i) => {
     const fret = i + 1;
-    return { fret, string: 1, fromNut: scale * (1 - r(fret)) + 0.04 * Math.sin(fret * 1.7) };
+    return { fret, along: 'string-1' as const, fromNut: scale * (1 - r(fret)) + 0.04 * Math.sin(fret * 1.7) };
   });
 }
 
