@@ -34,6 +34,7 @@ interface FormState {
   kerf: boolean;
   mirror: boolean;
   toSaddle: boolean;
+  distances: boolean;
   slots: string;
   origin: string;
 }
@@ -71,6 +72,7 @@ export default function ExportPanel({ design }: Props) {
     kerf: defaults.kerf,
     mirror: defaults.mirror,
     toSaddle: defaults.toSaddle,
+    distances: defaults.distances,
     slots: defaults.slots,
     origin: defaults.origin,
   });
@@ -95,7 +97,7 @@ export default function ExportPanel({ design }: Props) {
   async function download(format: ExportFormat) {
     if (!validation.ok) return;
     setStatus({ state: 'busy', format });
-    const query = new URLSearchParams({ ...form, format, strings: String(form.strings), kerf: String(form.kerf), mirror: String(form.mirror), toSaddle: String(form.toSaddle) });
+    const query = new URLSearchParams({ ...form, format, strings: String(form.strings), kerf: String(form.kerf), mirror: String(form.mirror), toSaddle: String(form.toSaddle), distances: String(form.distances) });
     try {
       const response = await fetch(`/api/export?${query}`, {
         method: 'POST',
@@ -193,6 +195,10 @@ export default function ExportPanel({ design }: Props) {
         <label className="flex items-center gap-2 text-sm">
           <input type="checkbox" checked={form.toSaddle} onChange={(e) => set('toSaddle', e.target.checked)} />
           Draw on to the saddle (otherwise the board only, with a saddle mark on each outer string)
+        </label>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={form.distances} onChange={(e) => set('distances', e.target.checked)} />
+          Add a last page of fret distances (treble edge, bass edge, centre line)
         </label>
       </fieldset>
 

@@ -40,6 +40,7 @@ export const USAGE = [
   '  --strings      draw the strings          --no-kerf  leave out the slot-width bands',
   '  --mirror       mirror for a template glued face-down',
   '  --to-saddle    draw on to the saddle (default: the board only, with a saddle mark on each outer string)',
+  '  --distances    add a last page of fret distances along the edges and the centre line',
   '  Slot paths (dxf, svg):',
   '  --slots        lines, outlines (default lines; outlines = closed outlines of the slot width)',
   '  --origin       nut-centre, lower-left (default nut-centre)',
@@ -63,6 +64,7 @@ const OPTION_FLAGS = {
   kerf: { type: 'boolean' },
   mirror: { type: 'boolean' },
   'to-saddle': { type: 'boolean' },
+  distances: { type: 'boolean' },
   slots: { type: 'string' },
   origin: { type: 'string' },
   along: { type: 'string' },
@@ -74,7 +76,7 @@ type Values = ReturnType<typeof parseArgs<{ args: string[]; allowPositionals: tr
 
 /** Flags that belong to one command only. */
 const CHECK_ONLY = ['along', 'tolerance'] as const;
-const LAYOUT_ONLY = ['out', 'paper', 'orientation', 'overlap', 'strings', 'kerf', 'mirror', 'to-saddle', 'slots', 'origin'] as const;
+const LAYOUT_ONLY = ['out', 'paper', 'orientation', 'overlap', 'strings', 'kerf', 'mirror', 'to-saddle', 'distances', 'slots', 'origin'] as const;
 
 /** Parses the arguments after the program name; never throws. */
 export function parseCommand(argv: readonly string[]): ParsedCommand {

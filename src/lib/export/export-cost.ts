@@ -46,9 +46,12 @@ const BYTES = {
   jsonRow: 256,
 } as const;
 
-/** The paper template's cost from its tile plan and the number of items in its drawing. */
-export function paperTemplateCost(plan: TilePlan, drawingItems: number): ExportCost {
-  const pages = plan.tiles.length;
+/**
+ * The paper template's cost from its tile plan, the number of items in its drawing and its extra
+ * pages (the distance table).
+ */
+export function paperTemplateCost(plan: TilePlan, drawingItems: number, extraPages = 0): ExportCost {
+  const pages = plan.tiles.length + extraPages;
   // Upper bound: every item on every page (clipping draws fewer), plus every page's page map,
   // which shows every page, plus the alignment marks.
   const primitives = pages * drawingItems + pages * pages + plan.marks.length * 2;
@@ -66,7 +69,7 @@ export function layoutExportCost(layout: Layout, options: ExportOptions): Export
   switch (options.format) {
     case 'pdf': {
       const drawing = sheetDrawing(layout, options);
-      return paperTemplateCost(planTiles(drawing.bounds, options), drawing.items.length);
+      return paperTemplateCost(planTiles(drawing.bounds, options), drawing.items.length, options.distances ? 1 : 0);
     }
     case 'dxf':
     case 'svg': {

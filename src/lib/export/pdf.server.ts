@@ -33,6 +33,7 @@ import type { Design } from '~/lib/schemas/design';
 import type { ExportOptions } from '~/lib/schemas/export-options';
 import { PAGE_FRAME_MM } from './page-frame';
 import { PAPER_LABELS, mmToPt } from './paper-sizes';
+import { addDistancePage } from './distance-table-page.server';
 import { drawCalibrationBars, embedMonoFont } from './pdf-kit.server';
 import { PRINT_CAUTION } from './safety-note';
 import { sheetDrawing, type LineStyle, type SheetItem } from './sheet-drawing';
@@ -108,6 +109,7 @@ export async function paperTemplatePdf(
     drawHeader(page, font, plan, tile, outline?.kind === 'polygon' ? outline.points : []);
     drawFooter(page, font, titleLines);
   }
+  if (options.distances) addDistancePage(document, font, layout, plan, (page) => drawFooter(page, font, titleLines));
   return { bytes: await document.save({ useObjectStreams: false }), plan };
 }
 

@@ -66,6 +66,8 @@ export const exportOptionsSchema = z
      * saddle mark on each outer string giving its distance from the nut.
      */
     toSaddle: flag.default(false),
+    /** Add a last page with each fret's distance from the nut along the treble edge, the bass edge and the centre line. */
+    distances: flag.default(false),
     /** Slot paths: single lines, or closed outlines of the slot width. */
     slots: choice(SLOT_STYLES).default('lines'),
     /** Slot paths origin: the nut centre (board coordinates) or the board's lower-left corner. */

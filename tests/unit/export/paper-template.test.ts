@@ -9,6 +9,7 @@ import { computeLayout, type Layout } from '~/lib/geometry/layout';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { Design } from '~/lib/schemas/design';
 import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options';
+import { referenceLine } from '~/lib/template-check/reference';
 import { pageText, pdfFonts, readPdf, renderPage, type PageSegment, type ReadPage } from '../../support/pdf-readback.ts';
 
 /** ISO 32000-1: PDF user space units are 1/72 in; 1 in = 25.4 mm exactly. */
@@ -264,5 +265,23 @@ describe('a paper template a bench can work from', () => {
     for (const grey of greys) expect(contrast(grey, [255, 255, 255])).toBeGreaterThanOrEqual(3);
     // The black fret line on top of the band still stands out from it.
     for (const grey of greys) expect(contrast(grey, [0, 0, 0])).toBeGreaterThanOrEqual(3);
+  });
+});
+
+describe('the table of fret distances on the last page', () => {
+  it('lists each fret along the treble edge, bass edge and centre line, the numbers the Template check compares with', async () => {
+    const design = demo('seven-string-fan');
+    const plain = await template(design, { paper: 'letter' });
+    const withTable = await template(design, { paper: 'letter', distances: true });
+    expect(withTable.pages.length).toBe(plain.pages.length + 1);
+    const text = pageText(withTable.bytes, withTable.pages.length);
+    expect(text).toMatch(/fret\s+treble edge\s+bass edge\s+centre line/);
+    const layout = computeLayout(design);
+    for (const along of ['treble-edge', 'bass-edge', 'centre-line'] as const) {
+      const twelfth = referenceLine(layout, along).slots[11]!.fromNut;
+      expect(text).toContain(twelfth.toFixed(2));
+    }
+    // 12-TET on a string without compensation: the 12th fret halves string 1 (648 mm), 324.00 mm.
+    expect(Math.abs(referenceLine(layout, 'string-1').slots[11]!.fromNut - 324)).toBeLessThan(1e-9); // mm
   });
 });
