@@ -1,4 +1,4 @@
-import { defineConfig } from 'astro/config';
+import { defineConfig, passthroughImageService } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwind from '@astrojs/tailwind';
@@ -23,6 +23,8 @@ export default defineConfig({
   // header it compares against "http://localhost".
   security: { checkOrigin: false },
   devToolbar: { enabled: false },
+  // The only image in the app is the SVG figure of docs/measuring.md: served as it is, no resizing.
+  image: { service: passthroughImageService() },
   // Vite inlines small assets (some font subsets) as data: URLs, which font-src 'self' blocks;
   // emitting every asset as a file keeps the policy strict.
   vite: { build: { assetsInlineLimit: 0 } },

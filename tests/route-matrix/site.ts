@@ -9,6 +9,7 @@ export const SITE_ROUTES: readonly RouteCase[] = [
   { file: 'pages/index.astro', method: 'GET', path: '/', expect: everyone(200) },
   { file: 'pages/404.astro', method: 'GET', path: '/no-such-page', expect: everyone(404) },
   { file: 'pages/safety.astro', method: 'GET', path: '/safety', expect: everyone(200) },
+  { file: 'pages/measuring.astro', method: 'GET', path: '/measuring', expect: everyone(200) },
   { file: 'pages/layout.astro', method: 'GET', path: '/layout', expect: everyone(200) },
   { file: 'pages/boards.astro', method: 'GET', path: '/boards', expect: designers },
   { file: 'pages/templates.astro', method: 'GET', path: '/templates', expect: designers },

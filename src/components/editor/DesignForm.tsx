@@ -96,7 +96,12 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
                 </label>
               ))}
             </div>
-            {path === 'scaleAlong' && <ScaleConventionFigure />}
+            {path === 'scaleAlong' && (
+              <>
+                <ScaleConventionFigure />
+                <a href="/measuring" className="text-xs">How Kerfline measures</a>
+              </>
+            )}
             <p id={`help-${path}`} className="text-xs text-ink-soft">{field.help}</p>
             {errorsOf(path).length > 0 && <p id={`error-${path}`} className={FIELD_ERROR}>{errorsOf(path).join('; ')}</p>}
           </fieldset>

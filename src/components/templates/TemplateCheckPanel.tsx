@@ -140,7 +140,8 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
         <p className="text-sm text-ink-soft">
           Each number is compared along the same line it was measured along: the treble or bass edge of the board, the
           centre line, or one string. Lay the rule on that line with its zero on the nut line (the zero fret where the
-          design has one) and read where each slot crosses it.{fanned ? ' On a fanned board the edges and the strings give different numbers, so say which you used.' : ''}
+          design has one) and read where each slot crosses it.{fanned ? ' On a fanned board the edges and the strings give different numbers, so say which you used.' : ''}{' '}
+          <a href="/measuring">How Kerfline measures</a>
         </p>
         <fieldset disabled={!hydrated} className="space-y-4">
           <legend className="sr-only">Measurements</legend>
