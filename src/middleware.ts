@@ -10,7 +10,7 @@ import { config } from '~/lib/config/env.server.ts';
 import { isDbUnavailable } from '~/lib/db/db-errors.ts';
 import { clientIp } from '~/lib/http/client-ip.ts';
 import { problem } from '~/lib/http/problem.ts';
-import { ROUTE_BUDGETS } from '~/lib/http/rate-budgets.ts';
+import { ROUTE_BUDGETS, reserveFor, type Budget } from '~/lib/http/rate-budgets.ts';
 import { consumeEach, type Counter } from '~/lib/http/rate-limit.server.ts';
 import { limitedRouteFor } from '~/lib/http/route-budgets.ts';
 import { isSameOriginRequest } from '~/lib/http/same-origin.ts';
@@ -48,9 +48,15 @@ const routeBudgets = defineMiddleware(async (context, next) => {
   if (!route) return next();
   const budgets = ROUTE_BUDGETS[route.budget];
   const whenDatabaseDown = route.needsDatabase ? 'refuse' : 'per-process';
-  const checks: [Counter, string][] = [[{ name: `route-${route.budget}-address`, budget: budgets.perAddress, whenDatabaseDown }, clientIp(context)]];
+  const counter = (who: 'address' | 'user', budget: Budget): Counter => ({
+    name: `route-${route.budget}-${who}`,
+    budget,
+    whenDatabaseDown,
+    reserve: reserveFor(budget, config().rateLimitScale),
+  });
+  const checks: [Counter, string][] = [[counter('address', budgets.perAddress), clientIp(context)]];
   const user = context.locals.user;
-  if (user) checks.push([{ name: `route-${route.budget}-user`, budget: budgets.perUser, whenDatabaseDown }, user.id]);
+  if (user) checks.push([counter('user', budgets.perUser), user.id]);
   const verdict = await consumeEach(checks);
   if (verdict.ok) return next();
   const headers = { ...route.headers, 'retry-after': String(verdict.retryAfterSeconds) };

@@ -62,7 +62,7 @@ export const SIGN_IN_DELAY = {
 
 /**
  * CPU-heavy public routes (src/lib/http/route-budgets.ts says which paths), per client address
- * and, when signed in, per user. The Layout editor asks POST /api/layout on every edit and Boards
+ * and, when signed in, per user. Scripts call POST /api/layout and /api/scala in bulk and Boards
  * shows a thumbnail per row, hence their larger budgets; PDFs cost the most.
  */
 export const ROUTE_BUDGETS = {
@@ -78,6 +78,17 @@ export const ROUTE_BUDGETS = {
 } as const satisfies Record<string, { perAddress: Budget; perUser: Budget }>;
 
 export type RouteBudgetName = keyof typeof ROUTE_BUDGETS;
+
+/** Budgets this large are counted in reserved blocks (rate-limit.server.ts, `reserve`). */
+const RESERVE_FROM_POINTS = 500;
+/** A block is this share of the budget: at most 2 % of it can go unused per process at a window's end. */
+const RESERVE_SHARE = 1 / 50;
+
+/** How many points a process reserves at once for `budget` (1 = count every request in the database). */
+export function reserveFor(budget: Budget, scale = 1): number {
+  const points = scaledPoints(budget, scale);
+  return points >= RESERVE_FROM_POINTS ? Math.floor(points * RESERVE_SHARE) : 1;
+}
 
 /**
  * A client's answers to proofs, per visitor (address, or user when signed in) and link, so one

@@ -24,6 +24,13 @@ export interface Counter {
   budget: Budget;
   /** While MariaDB is unreachable: throw its error (503), or count per process in memory. */
   whenDatabaseDown?: 'refuse' | 'per-process';
+  /**
+   * For the large budgets of cheap routes: this process takes this many points from the shared
+   * count at once and spends them itself, so most requests cost no query. The shared count then
+   * runs ahead of real use by at most `reserve` points per process: a client may be refused a
+   * little early near the end of its budget, never let past it.
+   */
+  reserve?: number;
 }
 
 export type LimitVerdict = { ok: true } | { ok: false; retryAfterSeconds: number };
@@ -34,6 +41,10 @@ const LIMITER_TIMEOUT_MS = 3000;
 const MAX_PLAIN_KEY_CHARS = 160;
 
 const TABLE = getTableName(rateLimits);
+/** Points this process reserved and has not spent yet, per counter key, until the window ends. */
+const allowances = new Map<string, { left: number; until: number }>();
+/** Above this many allowances, expired ones are swept before a new one is added. */
+const MAX_ALLOWANCES = 10_000;
 const stores = new WeakMap<Pool, Map<string, RateLimiterMySQL>>();
 const memories = new Map<string, RateLimiterMemory>();
 
@@ -104,10 +115,31 @@ function verdictOf(rejection: unknown): LimitVerdict {
 
 /** Counts `points` against `key`; refused once the window's budget is used. */
 export async function consume(counter: Counter, key: string, points = 1): Promise<LimitVerdict> {
+  if (counter.reserve && counter.reserve > 1 && points === 1) return consumeReserved(counter, key, counter.reserve);
   try {
     await onStore(counter, (limiter) => limiter.consume(storedKey(key), points));
     return { ok: true };
   } catch (rejection) {
+    return verdictOf(rejection);
+  }
+}
+
+/** One point from this process's reserve for `key`, reserving `reserve` more from the shared count when it is spent. */
+async function consumeReserved(counter: Counter, key: string, reserve: number): Promise<LimitVerdict> {
+  const id = `${prefixOf(counter)}:${key}`;
+  const now = Date.now();
+  const allowance = allowances.get(id);
+  if (allowance && allowance.until > now && allowance.left > 0) {
+    allowance.left--;
+    return { ok: true };
+  }
+  try {
+    const taken = await onStore(counter, (limiter) => limiter.consume(storedKey(key), reserve));
+    if (allowances.size >= MAX_ALLOWANCES) for (const [other, a] of allowances) if (a.until <= now) allowances.delete(other);
+    allowances.set(id, { left: reserve - 1, until: now + taken.msBeforeNext });
+    return { ok: true };
+  } catch (rejection) {
+    allowances.delete(id);
     return verdictOf(rejection);
   }
 }
@@ -136,6 +168,11 @@ export async function countOf(counter: Counter, key: string): Promise<number> {
 
 /** Gives back `points` counted against `key` (e.g. a sign-in that turned out correct). */
 export async function refund(counter: Counter, key: string, points = 1): Promise<void> {
+  const allowance = counter.reserve ? allowances.get(`${prefixOf(counter)}:${key}`) : undefined;
+  if (allowance && allowance.until > Date.now()) {
+    allowance.left += points;
+    return;
+  }
   await onStore(counter, (limiter) => limiter.reward(storedKey(key), points));
 }
 

@@ -55,6 +55,29 @@ describe('shared fixed-window rate limiter (MariaDB store)', () => {
     expect(await countOf(c, 'f')).toBe(0);
   });
 
+  it('a counter with a reserve takes blocks from the shared count: one query per block, never past the budget', async () => {
+    const c = { ...counter(100), reserve: 10 };
+    const verdicts = [];
+    for (let i = 0; i < 105; i++) verdicts.push((await consume(c, 'r')).ok);
+    expect(verdicts.filter(Boolean)).toHaveLength(100);
+    expect(verdicts.slice(100)).toEqual([false, false, false, false, false]);
+    // The shared count holds whole blocks: 10 reservations of 10, and one refused block.
+    expect(await countOf(c, 'r')).toBe(110);
+  });
+
+  it('a reserve runs ahead of use by at most one block per process: another process sees the blocks taken', async () => {
+    const c = { ...counter(100), reserve: 10 };
+    expect((await consume(c, 's')).ok).toBe(true);
+    expect(await countOf(c, 's')).toBe(10);
+    for (let i = 0; i < 9; i++) await consume(c, 's');
+    expect(await countOf(c, 's')).toBe(10);
+    // A refund goes back to this process's block, not to the shared count.
+    await refund(c, 's');
+    expect(await countOf(c, 's')).toBe(10);
+    expect((await consume(c, 's')).ok).toBe(true);
+    expect(await countOf(c, 's')).toBe(10);
+  });
+
   it('never answers a Retry-After below 1 second', async () => {
     vi.useFakeTimers({ toFake: ['Date'], now: 3_000_000_000 });
     const c = counter();

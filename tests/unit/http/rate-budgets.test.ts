@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { retryAfterSeconds, scaledPoints, SIGN_IN_DELAY, signInDelayMs } from '~/lib/http/rate-budgets.ts';
+import { ROUTE_BUDGETS, SIGN_IN_BUDGETS, reserveFor, retryAfterSeconds, scaledPoints, SIGN_IN_DELAY, signInDelayMs } from '~/lib/http/rate-budgets.ts';
 
 describe('rate budget arithmetic', () => {
   it('sign-in delay: none below the threshold, then doubling from firstMs, capped at maxMs', () => {
@@ -23,5 +23,16 @@ describe('rate budget arithmetic', () => {
     expect(scaledPoints({ points: 60, seconds: 60 }, 1)).toBe(60);
     expect(scaledPoints({ points: 60, seconds: 60 }, 1000)).toBe(60_000);
     expect(scaledPoints({ points: 3, seconds: 60 }, 0.01)).toBe(1);
+  });
+});
+
+describe('reserved blocks for large budgets', () => {
+  it('counts the big cheap-route budgets in blocks of 2 % and everything else request by request', () => {
+    expect(reserveFor(ROUTE_BUDGETS.layout.perAddress)).toBe(24);
+    expect(reserveFor(ROUTE_BUDGETS.thumbnail.perAddress)).toBe(12);
+    expect(reserveFor(ROUTE_BUDGETS.export.perAddress)).toBe(1);
+    expect(reserveFor(SIGN_IN_BUDGETS.perAccountAndAddress)).toBe(1);
+    // A budget scaled for load tests is blocked by its scaled size.
+    expect(reserveFor(ROUTE_BUDGETS.export.perAddress, 1000)).toBe(1200);
   });
 });
