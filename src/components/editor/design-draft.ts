@@ -3,6 +3,10 @@
  * It turns into a design only through the shared schema (validateDesign), so the form, the API
  * and the database all accept exactly the same designs.
  *
+ * Lengths read like a rule: a field shows its value rounded to 0.01 mm or 0.0001 in and keeps the
+ * exact value behind the text until the user edits it. Inch fields also take fractions as a
+ * luthier writes them (`1 3/4`, `3/4`, `25 1/2"`, `25.5 in`).
+ *
  * Unit switching converts every length exactly: a converted field remembers the text it was
  * converted from, computes with the exact converted value (the text shows it rounded), and
  * switching back restores the original text as long as the field was not edited.
@@ -35,8 +39,10 @@ export type ChoiceField = ChoicePath;
 
 export interface LengthText {
   text: string;
-  /** Set while the text shows a unit conversion of `text` given in `from`. */
-  converted?: { from: LengthUnit; text: string };
+  /** The exact value behind a rounded `text` (a loaded design's value), until the field is edited. */
+  exact?: number;
+  /** Set while the text shows a unit conversion of the field as it was in `from`. */
+  converted?: { from: LengthUnit; text: string; exact?: number };
 }
 
 export interface DesignDraft {
@@ -60,12 +66,15 @@ export type DraftValidation = { ok: true; design: Design } | { ok: false; issues
 /** Decimal numbers as people type them: optional sign, digits, optional fraction and exponent. */
 const NUMBER_PATTERN = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 
-/** Decimal places shown after a unit conversion (the exact value is kept behind the text). */
-const CONVERTED_DECIMALS: Readonly<Record<LengthUnit, number>> = { mm: 4, in: 5 };
+/** Decimal places a length shows: 0.01 mm, 0.0001 in (the exact value is kept behind the text). */
+const SHOWN_DECIMALS: Readonly<Record<LengthUnit, number>> = { mm: 2, in: 4 };
+
+/** An inch length as written on a rule: whole and fraction (`25 1/2`), a fraction (`3/4`), a decimal; `"` or `in` may follow. */
+const INCH_PATTERN = /^(?:(?<whole>\d+)\s+)?(?<num>\d+)\s*\/\s*(?<den>\d+)$/;
 
 export function draftFromDesign(design: Design): DesignDraft {
   const lengths = Object.fromEntries(
-    LENGTH_FIELDS.map((field) => [field, { text: String(fieldValue(design, field)) }]),
+    LENGTH_FIELDS.map((field) => [field, shownLength(fieldValue(design, field) as number, design.units)]),
   ) as Record<LengthField, LengthText>;
   const counts = Object.fromEntries(COUNT_ROWS.map((row) => [row.path, String(fieldValue(design, row.path))]));
   const flags = Object.fromEntries(FLAG_ROWS.map((row) => [row.path, fieldValue(design, row.path) === true])) as Record<FlagField, boolean>;
@@ -98,13 +107,32 @@ export function parseNumber(text: string): number | null {
   return NUMBER_PATTERN.test(trimmed) ? Number(trimmed) : null;
 }
 
+/** Parses a typed length: a decimal number, and in inches also fractions with an optional `"` or `in`. */
+export function parseLength(text: string, units: LengthUnit): number | null {
+  if (units === 'mm') return parseNumber(text.trim().replace(/\s*mm$/i, ''));
+  const bare = text.trim().replace(/\s*(?:"|in|inch|inches)$/i, '');
+  const decimal = parseNumber(bare);
+  if (decimal !== null) return decimal;
+  const fraction = INCH_PATTERN.exec(bare)?.groups;
+  if (!fraction) return null;
+  const denominator = Number(fraction['den']);
+  if (denominator === 0) return null;
+  return Number(fraction['whole'] ?? 0) + Number(fraction['num']) / denominator;
+}
+
+/** A length as the form shows it: rounded like a rule reads, the exact value kept when rounding changed it. */
+function shownLength(value: number, units: LengthUnit): LengthText {
+  const text = showRounded(value, units);
+  return Number(text) === value ? { text } : { text, exact: value };
+}
+
 /** The exact value behind a length field in the draft's current units, or null if unparseable. */
 export function lengthValue(field: LengthText, units: LengthUnit): number | null {
   if (field.converted) {
-    const original = parseNumber(field.converted.text);
+    const original = field.converted.exact ?? parseLength(field.converted.text, field.converted.from);
     return original === null ? null : convertLength(original, field.converted.from, units);
   }
-  return parseNumber(field.text);
+  return field.exact ?? parseLength(field.text, units);
 }
 
 /** Switches the draft's units, converting every length exactly (see the module comment). */
@@ -114,21 +142,21 @@ export function switchUnits(draft: DesignDraft, to: LengthUnit): DesignDraft {
   for (const name of LENGTH_FIELDS) {
     const field = draft.lengths[name];
     if (field.converted?.from === to) {
-      lengths[name] = { text: field.converted.text };
+      lengths[name] = field.converted.exact === undefined ? { text: field.converted.text } : { text: field.converted.text, exact: field.converted.exact };
       continue;
     }
     const value = lengthValue(field, draft.units);
     if (value === null) continue;
     lengths[name] = {
-      text: showConverted(convertLength(value, draft.units, to), to),
-      converted: field.converted ?? { from: draft.units, text: field.text },
+      text: showRounded(convertLength(value, draft.units, to), to),
+      converted: field.converted ?? { from: draft.units, text: field.text, ...(field.exact === undefined ? {} : { exact: field.exact }) },
     };
   }
   return { ...draft, units: to, lengths };
 }
 
-function showConverted(value: number, units: LengthUnit): string {
-  const fixed = value.toFixed(CONVERTED_DECIMALS[units]);
+function showRounded(value: number, units: LengthUnit): string {
+  const fixed = value.toFixed(SHOWN_DECIMALS[units]);
   const trimmed = fixed.includes('.') ? fixed.replace(/0+$/, '').replace(/\.$/, '') : fixed;
   return trimmed === '-0' ? '0' : trimmed;
 }

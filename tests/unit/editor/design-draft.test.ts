@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { draftFromDesign, switchUnits, typedLength, validateDraft, type DesignDraft } from '~/components/editor/design-draft';
+import { draftFromDesign, parseLength, switchUnits, typedLength, validateDraft, type DesignDraft } from '~/components/editor/design-draft';
 import { blankDesign } from '~/lib/presets/blank-design';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { Design } from '~/lib/schemas/design';
@@ -72,11 +72,50 @@ describe('unit switching', () => {
 
   it('shows converted values rounded but computes with the exact value; an edited field converts from what was typed', () => {
     const draft = switchUnits(draftFromDesign(demo('seven-string-fan')), 'in');
-    expect(draft.lengths['scale.treble'].text).toBe('25.51181');
+    // Shown to 0.0001 in, the way a rule is read.
+    expect(draft.lengths['scale.treble'].text).toBe('25.5118');
     const edited = { ...draft, lengths: { ...draft.lengths, 'scale.treble': typedLength('25.5') } };
     const back = switchUnits(edited, 'mm');
     expect(back.lengths['scale.treble'].text).toBe('647.7');
     expect(back.lengths['scale.bass'].text).toBe('686');
     expect(validDesign(back).scale.treble).toBe(25.5 * 25.4);
+  });
+});
+
+describe('lengths read like a rule', () => {
+  it('a loaded inch design shows 0.0001 in (0.6 mm slot: 0.0236 in) and keeps the exact value until edited', () => {
+    const inches = validDesign(switchUnits(draftFromDesign(blankDesign()), 'in'));
+    const draft = draftFromDesign(inches);
+    expect(draft.lengths['slot.width'].text).toBe('0.0236');
+    expect(validDesign(draft).slot.width).toBe(0.6 / 25.4);
+    expect(validDesign(draft)).toEqual(inches);
+  });
+
+  it('a loaded millimetre design shows 0.01 mm and keeps the exact value', () => {
+    const design = validDesign({ ...draftFromDesign(blankDesign()), lengths: { ...draftFromDesign(blankDesign()).lengths, 'slot.width': typedLength('0.5588') } });
+    const draft = draftFromDesign(design);
+    expect(draft.lengths['slot.width'].text).toBe('0.56');
+    expect(validDesign(draft).slot.width).toBe(0.5588);
+  });
+
+  it.each([
+    ['1 3/4', 1.75],
+    ['3/4', 0.75],
+    ['25 1/2"', 25.5],
+    ['25.5"', 25.5],
+    ['25.5 in', 25.5],
+    ['13 7/8 in', 13.875],
+  ])('an inch field takes %j as %d in', (text, inches) => {
+    expect(parseLength(text, 'in')).toBe(inches);
+  });
+
+  it.each(['1 3/0', '1/2/3', '25,5', 'three', '1 3/4 mm'])('an inch field refuses %j', (text) => {
+    expect(parseLength(text, 'in')).toBeNull();
+  });
+
+  it('a millimetre field takes decimals (and a trailing "mm"), not fractions', () => {
+    expect(parseLength('648', 'mm')).toBe(648);
+    expect(parseLength('648 mm', 'mm')).toBe(648);
+    expect(parseLength('1 3/4', 'mm')).toBeNull();
   });
 });
