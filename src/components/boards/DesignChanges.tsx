@@ -1,4 +1,4 @@
-import { diffDesigns, showValue } from './design-diff.ts';
+import { describeChange, diffDesigns } from './design-diff.ts';
 
 interface Props {
   before: unknown;
@@ -22,13 +22,16 @@ export function DesignChanges({ before, after, beforeLabel, afterLabel }: Props)
         </tr>
       </thead>
       <tbody>
-        {changes.map((c) => (
-          <tr key={c.path} className="border-b border-paper-line">
-            <th scope="row" className="px-2 py-1 font-mono font-normal">{c.path}</th>
-            <td className="px-2 py-1 font-mono">{showValue(c.before)}</td>
-            <td className="px-2 py-1 font-mono">{showValue(c.after)}</td>
-          </tr>
-        ))}
+        {changes.map((c) => {
+          const words = describeChange(c, before, after);
+          return (
+            <tr key={c.path} className="border-b border-paper-line">
+              <th scope="row" className="px-2 py-1 font-normal">{words.label}</th>
+              <td className="px-2 py-1 font-mono">{words.before}</td>
+              <td className="px-2 py-1 font-mono">{words.after}</td>
+            </tr>
+          );
+        })}
       </tbody>
     </table>
   );
