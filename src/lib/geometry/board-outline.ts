@@ -136,7 +136,7 @@ function sineBetween(a: Segment, b: Segment): number {
   const ay = a.end.y - a.start.y;
   const bx = b.end.x - b.start.x;
   const by = b.end.y - b.start.y;
-  return Math.abs(ax * by - ay * bx) / (Math.hypot(ax, ay) * Math.hypot(bx, by));
+  return Math.abs(ax * by - ay * bx) / Math.sqrt((ax * ax + ay * ay) * (bx * bx + by * by));
 }
 
 /**

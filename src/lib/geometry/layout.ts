@@ -217,7 +217,12 @@ export function computeLayout(design: Design): Layout {
     units: design.units,
     scaleAlong: design.scaleAlong,
     slotWidth: design.slot.width,
-    minimumOverrun: Math.max(0, ...[...frets, ...(zeroFret ? [zeroFret] : [])].map((fret) => minimumOverrun(fret.line, board.edges, design.slot.width))),
+    // Fret lines turn steadily from the nut to the last fret, so the sharpest angle to an edge is at
+    // an end of the board: the first or last fret, or the zero fret.
+    minimumOverrun: Math.max(
+      0,
+      ...[frets[0], frets[frets.length - 1], zeroFret].map((fret) => (fret ? minimumOverrun(fret.line, board.edges, design.slot.width) : 0)),
+    ),
     perpendicularFret: {
       fret: design.perpendicularFret,
       x: (perpendicularFraction * (trebleRun + bassRun)) / 2,
