@@ -1,5 +1,5 @@
 /** The product areas in the top navigation (names from PRODUCT.md). */
-import type { Role } from '~/lib/db/schema.ts';
+import type { Role } from '~/lib/schemas/account.ts';
 
 export interface NavItem {
   href: string;

@@ -6,6 +6,9 @@
  * the session library expects them. Lengths stored here are in the design's own units.
  */
 import { sql } from 'drizzle-orm';
+import { ROLES } from '~/lib/schemas/account.ts';
+import { DESIGN_STATUSES } from '~/lib/schemas/board.ts';
+import { templateConditionSchema } from '~/lib/schemas/template.ts';
 import {
   bigint,
   boolean,
@@ -32,8 +35,8 @@ const shopRef = () =>
     .references(() => shops.id, { onDelete: 'cascade' });
 const userRef = (name: string) => varchar(name, { length: 40 });
 
-export const ROLES = ['owner', 'builder', 'client'] as const;
-export type Role = (typeof ROLES)[number];
+// The enums come from the browser-safe schemas, so forms, API and database share one list each.
+export { ROLES, type Role } from '~/lib/schemas/account.ts';
 
 export const shops = mysqlTable('shops', {
   id: idColumn(),
@@ -99,7 +102,7 @@ export const oneTimeTokens = mysqlTable(
   (t) => [uniqueIndex('tokens_hash_uq').on(t.tokenHash), index('tokens_shop_idx').on(t.shopId, t.kind)],
 );
 
-export const DESIGN_STATUSES = ['draft', 'shared', 'approved', 'changes_requested'] as const;
+export { DESIGN_STATUSES } from '~/lib/schemas/board.ts';
 export type DesignStatus = (typeof DESIGN_STATUSES)[number];
 
 /** A saved design's head row; its geometry lives in design_revisions. */
@@ -176,7 +179,7 @@ export const proofs = mysqlTable(
   (t) => [uniqueIndex('proofs_token_uq').on(t.tokenHash), index('proofs_design_idx').on(t.shopId, t.designId)],
 );
 
-export const TEMPLATE_CONDITIONS = ['in_use', 'worn', 'retired'] as const;
+export const TEMPLATE_CONDITIONS = templateConditionSchema.options;
 
 /** A physical index template on the shop's shelf. */
 export const templates = mysqlTable(

@@ -3,7 +3,10 @@
  * E-mail addresses are trimmed and lower-cased, so lookups are case-insensitive.
  */
 import { z } from 'zod';
-import { ROLES } from '~/lib/db/schema.ts';
+
+/** A member's role in a shop (the database's enum is made from this list). */
+export const ROLES = ['owner', 'builder', 'client'] as const;
+export type Role = (typeof ROLES)[number];
 
 /** Longest password accepted: long passphrases are welcome, megabytes of hashing input are not. */
 export const MAX_PASSWORD_LENGTH = 200;

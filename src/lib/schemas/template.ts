@@ -17,18 +17,8 @@ export const TEMPLATE_LIMITS = {
   maxMeasurements: 2 * DESIGN_LIMITS.maxFrets * DESIGN_LIMITS.maxStrings,
 } as const;
 
-/**
- * The same list as the database enum; spelled out so this browser-safe file does not pull the
- * database schema into the page bundle. The type check below fails if the two ever differ.
- */
+/** A physical template's condition; the database's enum is made from this list. */
 export const templateConditionSchema = z.enum(['in_use', 'worn', 'retired']);
-type DbCondition = (typeof import('~/lib/db/schema'))['TEMPLATE_CONDITIONS'][number];
-type SameConditions = [DbCondition] extends [z.infer<typeof templateConditionSchema>]
-  ? [z.infer<typeof templateConditionSchema>] extends [DbCondition]
-    ? true
-    : never
-  : never;
-export const CONDITIONS_MATCH_DATABASE: SameConditions = true;
 export type TemplateCondition = z.infer<typeof templateConditionSchema>;
 const unitsSchema = z.enum(['mm', 'in']);
 
