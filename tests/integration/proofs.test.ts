@@ -207,7 +207,18 @@ describe('revoking, expiry and links that do not open', () => {
     expect((await decide(token, { decision: 'approved', name: 'Ines', confirmed: true })).status).toBe(404);
     const list = await listDesignProofs(builder.shopId, designId, new Date());
     expect(list!.find((p) => p.id === result.proof.id)).toMatchObject({ state: 'revoked', decision: null });
-    expect(await revokeProof(otherOwner.shopId, result.proof.id, new Date())).toBeNull();
+    expect(await revokeProof(otherOwner.shopId, result.proof.id, new Date())).toEqual({ ok: false, reason: 'not_found' });
+  });
+
+  it('an answered proof is not revoked: 409, and the answer and link stay as they were', async () => {
+    const result = await created(await postProof(builder, designId, { clientName: 'Ines', clientEmail: clientEmail() }));
+    const token = tokenOf(result.link);
+    expect((await decide(token, { decision: 'approved', name: 'Ines', confirmed: true })).status).toBe(200);
+    const path = `/api/proofs/${result.proof.id}/revoke`;
+    const response = await callRoute(revokeRoute.POST, { method: 'POST', path, params: { proofId: String(result.proof.id) }, user: builder });
+    expect(response.status).toBe(409);
+    const list = await listDesignProofs(builder.shopId, designId, new Date());
+    expect(list!.find((p) => p.id === result.proof.id)).toMatchObject({ state: 'approved', revokedAt: null, decision: { kind: 'approved', name: 'Ines' } });
   });
 
   it('expiry (clock injected): opens until the expiry time, then neither opens nor takes an answer (409)', async () => {

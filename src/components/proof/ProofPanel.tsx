@@ -73,7 +73,7 @@ function ProofRow({ proof, onRevoke }: { proof: ProofSummary; onRevoke: (id: num
         {proof.revokedAt && <p className="text-sm text-ink-soft">Link revoked on {day(proof.revokedAt)}</p>}
       </td>
       <td className="px-2 py-1">
-        {!proof.revokedAt && (
+        {!proof.revokedAt && !proof.decision && (
           <button type="button" className="text-sm text-rosewood underline" onClick={() => onRevoke(proof.id)}
             aria-label={`Revoke the proof for ${proof.clientName}, revision ${proof.revision}`}>
             Revoke

@@ -202,13 +202,21 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
 }
 
 /** Revokes a proof of the shop (again is harmless). Null when there is no such proof in the shop. */
-export async function revokeProof(shopId: number, proofId: number, now: Date): Promise<ProofSummary | null> {
+export type RevokeResult = { ok: true; proof: ProofSummary } | { ok: false; reason: 'not_found' | 'answered' };
+
+/**
+ * Revokes a proof of the shop that the client has not answered yet (an answer is a record of what
+ * the client agreed to; it is never withdrawn). Revoking twice changes nothing.
+ */
+export async function revokeProof(shopId: number, proofId: number, now: Date): Promise<RevokeResult> {
   await db()
     .update(proofs)
     .set({ revokedAt: now })
-    .where(and(eq(proofs.id, proofId), eq(proofs.shopId, shopId), isNull(proofs.revokedAt)));
+    .where(and(eq(proofs.id, proofId), eq(proofs.shopId, shopId), isNull(proofs.revokedAt), isNull(proofs.decision)));
   const [row] = await db().select().from(proofs).where(and(eq(proofs.id, proofId), eq(proofs.shopId, shopId)));
-  return row ? toSummary(row, now) : null;
+  if (!row) return { ok: false, reason: 'not_found' };
+  if (row.decision && !row.revokedAt) return { ok: false, reason: 'answered' };
+  return { ok: true, proof: toSummary(row, now) };
 }
 
 /** The design's proofs, newest first; null when the design is not in the shop. */

@@ -6,11 +6,15 @@ import { recordIdSchema } from '~/lib/schemas/proof.ts';
 
 export const prerender = false;
 
-/** Revokes a proof of the shop: its link then answers like an unknown one. */
+/** Revokes an unanswered proof of the shop: its link then answers like an unknown one. 409 once answered. */
 export const POST: APIRoute = async ({ params, locals }) => {
   const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
   const id = recordIdSchema.safeParse(params.proofId);
-  const proof = id.success ? await revokeProof(guard.user.shopId, id.data, new Date()) : null;
-  return proof ? json({ proof }) : problem(404, 'No such proof in your shop');
+  if (!id.success) return problem(404, 'No such proof in your shop');
+  const result = await revokeProof(guard.user.shopId, id.data, new Date());
+  if (result.ok) return json({ proof: result.proof });
+  return result.reason === 'answered'
+    ? problem(409, 'The client has already answered this proof; an answer is kept, not revoked')
+    : problem(404, 'No such proof in your shop');
 };
