@@ -43,7 +43,9 @@ export function ScalaUpload({ scl, errors, onLoaded }: { scl: string; errors: re
     }
   };
 
-  const shownErrors = [...(problem ? [problem] : []), ...errors];
+  // The schema's verdict on the kept text shows only once there is a text: before any file is
+  // chosen the box asks for one instead of reporting an error.
+  const shownErrors = [...(problem ? [problem] : []), ...(scl === '' ? [] : errors)];
   return (
     <div className="space-y-1">
       <label htmlFor={inputId} className="block text-sm">Scala file (.scl)</label>
@@ -71,7 +73,9 @@ export function ScalaUpload({ scl, errors, onLoaded }: { scl: string; errors: re
           </ol>
         </div>
       ) : (
-        scl !== '' && <p className="text-xs text-ink-soft">A Scala scale is loaded; choose a file to replace it.</p>
+        <p className="text-xs text-ink-soft">
+          {scl === '' ? 'Choose a .scl file: the scale’s pitches set the frets.' : 'A Scala scale is loaded; choose a file to replace it.'}
+        </p>
       )}
     </div>
   );
