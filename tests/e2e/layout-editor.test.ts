@@ -204,6 +204,9 @@ describe('the editor trusts the shared geometry module in the browser', () => {
 
     // Twelve equal steps written as a Scala file (the .scl format's own example layout).
     await page.getByLabel('Scala scale file (.scl)').check();
+    // Before a file is chosen the box asks for one; it shows no error yet.
+    await page.getByText('Choose a .scl file').waitFor();
+    expect(await page.locator('[id="error-temperament.scl"]').count()).toBe(0);
     const scl = ['! twelve.scl', 'Twelve equal steps, written out', ' 12', '!', ...Array.from({ length: 11 }, (_, i) => ` ${(i + 1) * 100}.0`), ' 2/1', ''].join('\n');
     await page.getByLabel('Scala file (.scl)').setInputFiles({ name: 'twelve.scl', mimeType: 'text/plain', buffer: Buffer.from(scl) });
     await page.getByText('Twelve equal steps, written out').waitFor();
