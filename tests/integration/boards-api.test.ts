@@ -279,8 +279,30 @@ describe('import and export', () => {
     expect(imported.status).toBe(201);
     const copy = (await imported.json()) as BoardDetail;
     expect(copy.id).not.toBe(board.id);
-    expect(copy).toMatchObject({ clientName: 'Ines Calloway', design: fan(), currentRevision: 1 });
+    // The shop has a board of that name already: the import takes the next free "(n)".
+    const taken = await callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: builder, body: text, headers: { 'content-type': 'application/json' } });
+    const third = (await taken.json()) as BoardDetail;
+    const numberOf = (n: string) => Number(/ \((\d+)\)$/.exec(n)?.[1]);
+    expect(copy.name.startsWith(`${fan().name} (`)).toBe(true);
+    expect(numberOf(copy.name)).toBeGreaterThanOrEqual(2);
+    expect(numberOf(third.name)).toBe(numberOf(copy.name) + 1);
+    expect(copy).toMatchObject({ clientName: 'Ines Calloway', design: { ...fan(), name: copy.name }, currentRevision: 1 });
     expect(await revisions(builder, board.id)).toHaveLength(1);
+  });
+
+  it('an imported name that the shop has gets " (2)", " (3)", …; % and _ in a name are only characters', async () => {
+    const name = `50%_off ${Date.now()}`;
+    await create(builder, { design: { ...fan(), name } });
+    await create(builder, { design: { ...fan(), name: `50%Xoff ${name.slice(8)} (2)` } });
+    const send = () =>
+      callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: builder, body: JSON.stringify({ ...fan(), name }), headers: { 'content-type': 'application/json' } });
+    const first = (await (await send()).json()) as BoardDetail;
+    const second = (await (await send()).json()) as BoardDetail;
+    expect([first.name, second.name]).toEqual([`${name} (2)`, `${name} (3)`]);
+    expect(first.design.name).toBe(first.name);
+    // Another shop's names do not count.
+    const other = (await (await callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: otherOwner, body: JSON.stringify({ ...fan(), name }), headers: { 'content-type': 'application/json' } })).json()) as BoardDetail;
+    expect(other.name).toBe(name);
   });
 
   it('imports a bare design uploaded as a multipart file', async () => {

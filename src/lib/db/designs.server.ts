@@ -300,6 +300,25 @@ export function setArchived(writer: Writer, id: number, archived: boolean, versi
   });
 }
 
+/**
+ * `name`, or the first of "name (2)", "name (3)", … that no board of the shop has yet (archived
+ * ones included, so bringing one back never makes two of a name). Cut to the longest name allowed.
+ */
+export async function freeBoardName(shopId: number, name: string): Promise<string> {
+  const escaped = name.replace(/[\\%_]/g, (c) => `\\${c}`);
+  const rows = await db()
+    .select({ name: designs.name })
+    .from(designs)
+    .where(and(eq(designs.shopId, shopId), or(eq(designs.name, name), like(designs.name, `${escaped} (%)`))));
+  const taken = new Set(rows.map((r) => r.name));
+  if (!taken.has(name)) return name;
+  for (let n = 2; ; n++) {
+    const suffix = ` (${n})`;
+    const candidate = `${name.slice(0, DESIGN_LIMITS.nameMaxChars - suffix.length)}${suffix}`;
+    if (!taken.has(candidate)) return candidate;
+  }
+}
+
 /** "Copy of <name>", cut to the longest name a design may have. */
 export function copyName(name: string): string {
   return `Copy of ${name}`.slice(0, DESIGN_LIMITS.nameMaxChars);

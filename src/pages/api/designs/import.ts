@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
 import { readBoardFile } from '~/lib/boards/board-file.ts';
 import { checkDesign, requireBoardsUser } from '~/lib/boards/board-responses.server.ts';
-import { createDesign } from '~/lib/db/designs.server.ts';
+import { createDesign, freeBoardName } from '~/lib/db/designs.server.ts';
 import { readBytes } from '~/lib/http/body.server.ts';
 import { invalid, json, problem } from '~/lib/http/problem.ts';
 import { BOARD_FILE_MAX_BYTES } from '~/lib/schemas/board.ts';
@@ -13,7 +13,8 @@ const MULTIPART_OVERHEAD = 8 * 1024;
 
 /**
  * POST /api/designs/import: a board JSON file (as the body, application/json, or as the `file`
- * field of a multipart form), at most 256 KiB. Always creates a new board; never overwrites one.
+ * field of a multipart form), at most 256 KiB. Always creates a new board; never overwrites one,
+ * and never takes the name of one the shop has (it appends " (2)", " (3)", …).
  */
 export const POST: APIRoute = async ({ locals, request }) => {
   const guard = requireBoardsUser(locals.user);
@@ -31,11 +32,13 @@ export const POST: APIRoute = async ({ locals, request }) => {
   if (!file.ok) return invalid(file.issues);
   const design = checkDesign(file.file.design, file.designPrefix);
   if (!design.ok) return invalid(design.issues);
+  // An imported board never takes the name of one the shop has: it becomes "name (2)" and so on.
+  const name = await freeBoardName(guard.user.shopId, design.design.name);
   const created = await createDesign(guard.user, {
-    design: design.design,
+    design: { ...design.design, name },
     instrumentType: file.file.instrumentType,
     clientName: file.file.clientName,
-    note: 'Imported from a file',
+    note: name === design.design.name ? 'Imported from a file' : `Imported from a file; renamed from “${design.design.name}”, a name the shop already had`,
   });
   return json(created, 201, { location: `/api/designs/${created.id}` });
 };
