@@ -187,3 +187,17 @@ describe('development Outbox page', () => {
     expect(await response.text()).not.toContain('Outbox');
   });
 });
+
+describe('shop settings on the Members page', () => {
+  it('the Owner sets the time zone; an unknown zone gets 400 with the message beside the field and changes nothing', async () => {
+    const owner = await newShopUser('owner');
+    const send = (timeZone: string) => post('/members?action=settings', { timeZone }, { cookie: owner.cookie });
+    const bad = await send('Mars/Olympus_Mons');
+    expect(bad.status).toBe(400);
+    expect(await bad.text()).toContain('choose a time zone from the list');
+    const good = await send('Europe/London');
+    expect(good.status).toBe(303);
+    const page = await fetch(`${BASE_URL}/members`, { headers: { cookie: owner.cookie } });
+    expect(await page.text()).toMatch(/<option value="Europe\/London" selected/);
+  });
+});

@@ -299,7 +299,7 @@ describe('import and export', () => {
     const first = (await (await send()).json()) as BoardDetail;
     const second = (await (await send()).json()) as BoardDetail;
     expect([first.name, second.name]).toEqual([`${name} (2)`, `${name} (3)`]);
-    expect(first.design.name).toBe(first.name);
+    expect((first.design as { name: string }).name).toBe(first.name);
     // Another shop's names do not count.
     const other = (await (await callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: otherOwner, body: JSON.stringify({ ...fan(), name }), headers: { 'content-type': 'application/json' } })).json()) as BoardDetail;
     expect(other.name).toBe(name);

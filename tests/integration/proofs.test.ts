@@ -1,6 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sha256Hex } from '~/lib/auth/index.server.ts';
+import { setShopTimeZone } from '~/lib/accounts/users.server.ts';
 import { createProof, decideProof, listDesignProofs, listSharedWith, openProof, revokeProof } from '~/lib/db/proofs.server.ts';
 import { designs, proofs, shops } from '~/lib/db/schema.ts';
 import { seedDemoProof } from '~/lib/db/seed/demo-proof.server.ts';
@@ -84,6 +85,24 @@ describe('creating a proof', () => {
     const mail = await waitForMail(email, /./);
     expect(linkIn(mail, '/p/').url).toBe(result.link);
     expect(mail.text).toContain('Fan as discussed.');
+  });
+
+  it('e-mails write dates as people do, in the shop time zone (Pacific/Auckland is UTC+13 in December, tz database)', async () => {
+    const shop = await newShopUser('builder', 'Time zone test shop');
+    await setShopTimeZone(shop.shopId, 'Pacific/Auckland');
+    const boardId = await insertDesign(shop.shopId, shop.id, fixtureDesign('seven-string-fan'));
+    const email = clientEmail();
+    // Sent 2026-12-03 11:30 UTC for 2 days: the link ends 2026-12-05 11:30 UTC, 00:30 on the 6th in Auckland.
+    const sent = new Date('2026-12-03T11:30:00Z');
+    const result = await createProof(shop, boardId, { clientName: 'Ines', clientEmail: email, message: '', expiresInDays: 2 }, sent);
+    const mail = await waitForMail(email, /./);
+    expect(mail.text).toContain('The link works until 6 December 2026.');
+    expect(mail.text).not.toMatch(/\d{4}-\d{2}-\d{2}/);
+    // Answered at 2026-12-03 11:45 UTC: 00:45 on 4 December in Auckland.
+    const answer = await decideProof({ token: tokenOf(result!.link) }, { decision: 'approved', name: 'Ines', confirmed: true }, new Date('2026-12-03T11:45:00Z'));
+    expect(answer.ok).toBe(true);
+    const decided = await waitForMail(shop.email, /^Proof approved/);
+    expect(decided.text).toContain('on 4 December 2026, 00:45 (Pacific/Auckland).');
   });
 
   it('400 naming the field for a bad e-mail, an expiry out of range and an unknown field', async () => {

@@ -38,6 +38,14 @@ export const ACCOUNT_ROUTES: readonly RouteCase[] = [
     body: () => ({ email: unique('invitee'), role: 'client' }),
     expect: { anonymous: 302, client: 403, builder: 403, owner: 303, otherOwner: 303 },
   },
+  {
+    // The demo shop's time zone set to what the seed leaves it (UTC): harmless for the demo Owner.
+    file: 'pages/members.astro',
+    method: 'POST',
+    path: '/members?action=settings',
+    body: { timeZone: 'UTC' },
+    expect: { anonymous: 302, client: 403, builder: 403, owner: 303, otherOwner: 303 },
+  },
   // Development outbox: the tests run in demo mode (production mode answers 404).
   { file: 'pages/outbox.astro', method: 'GET', path: '/outbox', expect: everyone(200) },
 ];

@@ -18,3 +18,14 @@ export async function shopName(shopId: number): Promise<string> {
   const [row] = await db().select({ name: shops.name }).from(shops).where(eq(shops.id, shopId)).limit(1);
   return row?.name ?? 'your shop';
 }
+
+/** The IANA time zone the shop writes dates in (UTC until the Owner chooses one). */
+export async function shopTimeZone(shopId: number): Promise<string> {
+  const [row] = await db().select({ timeZone: shops.timeZone }).from(shops).where(eq(shops.id, shopId)).limit(1);
+  return row?.timeZone ?? 'UTC';
+}
+
+/** Sets the shop's time zone (validated by shopSettingsSchema). */
+export async function setShopTimeZone(shopId: number, timeZone: string): Promise<void> {
+  await db().update(shops).set({ timeZone }).where(eq(shops.id, shopId));
+}

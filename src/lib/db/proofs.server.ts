@@ -123,7 +123,7 @@ export async function createProof(writer: ProofWriter, designId: number, input: 
     return { head, row: row! };
   });
   if (!created) return null;
-  const [shop] = await db().select({ name: shops.name }).from(shops).where(eq(shops.id, writer.shopId));
+  const [shop] = await db().select({ name: shops.name, timeZone: shops.timeZone }).from(shops).where(eq(shops.id, writer.shopId));
   const link = proofLink(token);
   const mailed = await mailClientProof({
     to: created.row.clientEmail,
@@ -134,6 +134,7 @@ export async function createProof(writer: ProofWriter, designId: number, input: 
     message: created.row.message,
     expiresAt: created.row.expiresAt,
     link,
+    timeZone: shop?.timeZone ?? 'UTC',
   });
   return { proof: toSummary(created.row, now), link, mailed };
 }
@@ -188,6 +189,7 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
   if (!recorded) return { ok: false, reason: 'already_decided' };
   const decision: ProofDecision = { kind: input.decision, at: now.toISOString(), name: input.name, comment };
   const [builder] = await db().select({ email: users.email }).from(users).where(eq(users.id, row.createdBy));
+  const [shop] = await db().select({ timeZone: shops.timeZone }).from(shops).where(eq(shops.id, row.shopId));
   const mailed = builder
     ? await mailBuilderDecision({
         to: builder.email,
@@ -196,6 +198,7 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
         revision: row.revision,
         clientName: row.clientName,
         decision,
+        timeZone: shop?.timeZone ?? 'UTC',
       })
     : false;
   return { ok: true, decision, mailed };

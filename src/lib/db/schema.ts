@@ -41,6 +41,8 @@ export { ROLES, type Role } from '~/lib/schemas/account.ts';
 export const shops = mysqlTable('shops', {
   id: idColumn(),
   name: varchar('name', { length: 120 }).notNull(),
+  /** IANA time zone the shop's e-mails and pages write dates in (set by the Owner on Members). */
+  timeZone: varchar('time_zone', { length: 64 }).notNull().default('UTC'),
   createdAt: now(),
 });
 

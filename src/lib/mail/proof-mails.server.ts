@@ -5,6 +5,7 @@
  * messages someone typed go only into the body (see account-mail.ts).
  */
 import { config } from '~/lib/config/env.server.ts';
+import { dayInZone, momentInZone } from '~/lib/format/dates.ts';
 import type { ProofDecision } from '~/lib/schemas/proof.ts';
 import { sendMail } from './send.server.ts';
 
@@ -17,6 +18,8 @@ export interface ClientProofMail {
   message: string;
   expiresAt: Date;
   link: string;
+  /** The shop's IANA time zone: the dates are written in it. */
+  timeZone: string;
 }
 
 export interface BuilderDecisionMail {
@@ -26,6 +29,7 @@ export interface BuilderDecisionMail {
   revision: number;
   clientName: string;
   decision: ProofDecision;
+  timeZone: string;
 }
 
 export const PROOF_SUBJECTS = {
@@ -34,9 +38,6 @@ export const PROOF_SUBJECTS = {
   changesRequested: 'Changes requested: a client answered on Kerfline',
 } as const;
 
-function day(date: Date): string {
-  return date.toISOString().slice(0, 10);
-}
 
 async function trySend(to: string, subject: string, lines: string[]): Promise<boolean> {
   try {
@@ -59,7 +60,7 @@ export function mailClientProof(mail: ClientProofMail): Promise<boolean> {
     mail.link,
     '',
     'On that page you can look at the board and its fret table, then approve it or ask for changes.',
-    `The link works until ${day(mail.expiresAt)}. Anyone with the link can answer, so please keep it to yourself.`,
+    `The link works until ${dayInZone(mail.expiresAt, mail.timeZone)}. Anyone with the link can answer, so please keep it to yourself.`,
   ]);
 }
 
@@ -68,8 +69,8 @@ export function mailBuilderDecision(mail: BuilderDecisionMail): Promise<boolean>
   const subject = approved ? PROOF_SUBJECTS.approved : PROOF_SUBJECTS.changesRequested;
   return trySend(mail.to, subject, [
     approved
-      ? `${mail.decision.name} approved revision ${mail.revision} of "${mail.designName}" on ${mail.decision.at}.`
-      : `${mail.decision.name} asked for changes to revision ${mail.revision} of "${mail.designName}" on ${mail.decision.at}.`,
+      ? `${mail.decision.name} approved revision ${mail.revision} of "${mail.designName}" on ${momentInZone(new Date(mail.decision.at), mail.timeZone)}.`
+      : `${mail.decision.name} asked for changes to revision ${mail.revision} of "${mail.designName}" on ${momentInZone(new Date(mail.decision.at), mail.timeZone)}.`,
     `The proof was sent to ${mail.clientName}.`,
     ...(mail.decision.comment ? ['', 'Their comment:', ...mail.decision.comment.split('\n').map((line) => `  ${line}`)] : []),
     '',

@@ -3,6 +3,7 @@
  * E-mail addresses are trimmed and lower-cased, so lookups are case-insensitive.
  */
 import { z } from 'zod';
+import { isTimeZone } from '~/lib/format/dates';
 
 /** A member's role in a shop (the database's enum is made from this list). */
 export const ROLES = ['owner', 'builder', 'client'] as const;
@@ -72,3 +73,12 @@ export const memberRemoveSchema = z.object({ userId: idText });
 
 export type CreateShopInput = z.infer<typeof createShopSchema>;
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
+
+/** The Owner's shop settings (Members page). */
+export const shopSettingsSchema = z.object({
+  timeZone: z
+    .string()
+    .trim()
+    .refine(isTimeZone, { message: 'choose a time zone from the list (for example Europe/London)' }),
+});
+export type ShopSettingsInput = z.infer<typeof shopSettingsSchema>;
