@@ -89,8 +89,9 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     const history = page.getByRole('region', { name: 'Revision history' });
     await history.getByRole('button', { name: 'Restore revision 1' }).waitFor();
     expect(await history.getByRole('listitem').count()).toBe(2);
-    await history.getByRole('rowheader', { name: 'perpendicularFret' }).waitFor();
-    expect(await history.getByRole('rowheader').allInnerTexts()).toEqual(['perpendicularFret']);
+    // The compare table names fields as the form does, not by their keys.
+    await history.getByRole('rowheader', { name: 'Perpendicular fret (0 = nut)' }).waitFor();
+    expect(await history.getByRole('rowheader').allInnerTexts()).toEqual(['Perpendicular fret (0 = nut)']);
     await saveScreenshot(page, 'boards-editor-history');
 
     // Restoring revision 1 makes it current again as revision 3, and the form shows it.
@@ -127,7 +128,7 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     const notice = page.getByRole('alert').filter({ hasText: 'This board was saved elsewhere while you edited it' });
     await notice.waitFor();
     await page.getByRole('status').filter({ hasText: 'Changed elsewhere' }).waitFor();
-    expect((await notice.getByRole('rowheader').allInnerTexts()).sort()).toEqual(['perpendicularFret', 'stringSpacing.nut']);
+    expect((await notice.getByRole('rowheader').allInnerTexts()).sort()).toEqual(['Perpendicular fret (0 = nut)', 'String spacing at the nut']);
     await expect(page.getByLabel(/^String spacing at the nut/).inputValue()).resolves.toBe('42');
     await saveScreenshot(page, 'boards-editor-conflict');
 

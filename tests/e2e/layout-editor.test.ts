@@ -189,6 +189,25 @@ describe('Layout editor in Chromium (built server)', () => {
   });
 });
 
+describe('changing the string count', () => {
+  it('offers to keep the spacing per string and says what it did (blank 6-string at 35 / 52 mm made a 7-string: 42 / 62.4 mm)', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await page.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
+    await page.getByLabel('Preset').selectOption({ label: 'Blank design' });
+    await page.getByRole('button', { name: 'Start', exact: true }).click();
+    expect(await page.getByLabel(/^String spacing at the nut/).inputValue()).toBe('35');
+    await page.getByLabel('Strings', { exact: true }).fill('7');
+    const offer = page.getByRole('group', { name: 'String spacing for the new string count' });
+    await offer.getByText('6 → 7 strings').waitFor();
+    await offer.getByRole('button', { name: 'Keep the spacing per string' }).click();
+    expect(await page.getByLabel(/^String spacing at the nut/).inputValue()).toBe('42');
+    expect(await page.getByLabel(/^String spacing at the bridge/).inputValue()).toBe('62.4');
+    await page.getByText('Spacing scaled for 7 strings: 42.00 mm at the nut and 62.40 mm at the bridge').waitFor();
+    expect(await offer.count()).toBe(0);
+    await page.close();
+  });
+});
+
 describe('the editor trusts the shared geometry module in the browser', () => {
   it('sends no layout or Scala request while typing, loading a .scl file and downloading the fret table', async () => {
     const context = await browser.newContext({ viewport: { width: 1400, height: 1000 }, acceptDownloads: true });

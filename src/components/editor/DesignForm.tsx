@@ -9,7 +9,10 @@ import type { DesignIssue } from '~/lib/schemas/design';
 import { DESIGN_FIELDS, type DesignFieldRow, type FieldGroup } from '~/lib/schemas/design-fields';
 import { BUTTON, FIELD_ERROR, INPUT } from './control-styles';
 import {
+  applySpacingOffer,
   fieldOfIssue,
+  parseNumber,
+  spacingOffer,
   switchUnits,
   typedLength,
   type ChoiceField,
@@ -40,6 +43,11 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
   const presetSelectId = useId();
   const errorsOf = (field: string) => issues.filter((issue) => fieldOfIssue(issue.path) === field).map((issue) => issue.message);
   const general = issues.filter((issue) => issue.path === 'design');
+  // The string count before the user started changing it: the spacing offer compares with it.
+  const [stringsBefore, setStringsBefore] = useState<number | null>(null);
+  const [spacingNote, setSpacingNote] = useState('');
+  const offer = stringsBefore === null ? null : spacingOffer(draft, stringsBefore);
+  const show = (value: number) => `${value.toFixed(units === 'mm' ? 2 : 3)} ${units}`;
 
   const count = (field: NumberField, label: string, inputMode: 'numeric' | 'decimal' = 'numeric', help?: string) => (
     <TextField
@@ -50,8 +58,35 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
       value={draft.numbers[field]}
       errors={errorsOf(field)}
       inputMode={inputMode}
-      onChange={(text) => onChange((d) => ({ ...d, numbers: { ...d.numbers, [field]: text } }))}
+      onChange={(text) => {
+        if (field === 'strings') {
+          const before = parseNumber(draft.numbers.strings);
+          if (stringsBefore === null && before !== null && Number.isInteger(before)) setStringsBefore(before);
+          setSpacingNote('');
+        }
+        onChange((d) => ({ ...d, numbers: { ...d.numbers, [field]: text } }));
+      }}
     />
+  );
+  const spacing = offer && (
+    <div role="group" aria-label="String spacing for the new string count" className="space-y-1 rounded border border-caution bg-caution-light p-2 text-xs">
+      <p>
+        {offer.from} → {offer.to} strings. Keep {show(offer.perStringNut)} between strings at the nut and {show(offer.perStringBridge)} at the bridge
+        ({show(offer.nut)} and {show(offer.bridge)} between the outer strings), or keep the outer spacing
+        ({show(offer.perStringNut * (offer.from - 1))} and {show(offer.perStringBridge * (offer.from - 1))})?
+      </p>
+      <div className="flex gap-2">
+        <button type="button" className={BUTTON} onClick={() => {
+          onChange((d) => applySpacingOffer(d, offer));
+          setSpacingNote(`Spacing scaled for ${offer.to} strings: ${show(offer.nut)} at the nut and ${show(offer.bridge)} at the bridge (${show(offer.perStringNut)} and ${show(offer.perStringBridge)} per string, as before).`);
+          setStringsBefore(null);
+        }}>Keep the spacing per string</button>
+        <button type="button" className={BUTTON} onClick={() => {
+          setSpacingNote(`Outer spacing kept for ${offer.to} strings: the strings are closer together than before.`);
+          setStringsBefore(null);
+        }}>Keep the outer spacing</button>
+      </div>
+    </div>
   );
   const row = (field: DesignFieldRow) => {
     if ('shownWhen' in field && !draft.flags[field.shownWhen]) return null;
@@ -67,7 +102,11 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
             value={draft.lengths[path].text}
             errors={errorsOf(path)}
             inputMode="decimal"
-            onChange={(text) => onChange((d) => ({ ...d, lengths: { ...d.lengths, [path]: typedLength(text) } }))}
+            onChange={(text) => {
+              // Typing a spacing answers the spacing offer.
+              if (path.startsWith('stringSpacing.')) setStringsBefore(null);
+              onChange((d) => ({ ...d, lengths: { ...d.lengths, [path]: typedLength(text) } }));
+            }}
           />
         );
       }
@@ -157,7 +196,11 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
         </fieldset>
       </Group>
 
-      <Group title="Strings and scale">{rowsOf('Strings and scale')}</Group>
+      <Group title="Strings and scale">
+        {rowsOf('Strings and scale')}
+        {spacing}
+        {spacingNote && <p role="status" className="text-xs text-ink-soft">{spacingNote}</p>}
+      </Group>
 
       <Group title="Board">{rowsOf('Board')}</Group>
 

@@ -224,3 +224,41 @@ function parseMarkerList(text: string, kind: Marker['kind'], issues: DesignIssue
 export function fieldOfIssue(path: string): string {
   return path.startsWith('markers') ? 'markers' : path;
 }
+
+/** What keeping the per-string spacing would do after the string count changed (null when nothing to offer). */
+export interface SpacingOffer {
+  from: number;
+  to: number;
+  /** Per-string spacing kept, and the new outer spacings, in the draft's units. */
+  perStringNut: number;
+  perStringBridge: number;
+  nut: number;
+  bridge: number;
+}
+
+/**
+ * After the string count changed from `from`, the outer spacings that keep the same distance
+ * between neighbouring strings at the nut and at the bridge (a 6-string at 43/58 mm becoming a
+ * 7-string: 8.6 and 11.6 mm per string, so 51.6 and 69.6 mm).
+ */
+export function spacingOffer(draft: DesignDraft, from: number): SpacingOffer | null {
+  const to = parseNumber(draft.numbers.strings);
+  const nut = lengthValue(draft.lengths['stringSpacing.nut'], draft.units);
+  const bridge = lengthValue(draft.lengths['stringSpacing.bridge'], draft.units);
+  if (to === null || nut === null || bridge === null || !Number.isInteger(to) || to < 2 || from < 2 || to === from) return null;
+  const perStringNut = nut / (from - 1);
+  const perStringBridge = bridge / (from - 1);
+  return { from, to, perStringNut, perStringBridge, nut: perStringNut * (to - 1), bridge: perStringBridge * (to - 1) };
+}
+
+/** The draft with the offer's outer spacings (shown rounded, kept exact). */
+export function applySpacingOffer(draft: DesignDraft, offer: SpacingOffer): DesignDraft {
+  return {
+    ...draft,
+    lengths: {
+      ...draft.lengths,
+      'stringSpacing.nut': shownLength(offer.nut, draft.units),
+      'stringSpacing.bridge': shownLength(offer.bridge, draft.units),
+    },
+  };
+}

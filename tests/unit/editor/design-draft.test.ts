@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { draftFromDesign, parseLength, switchUnits, typedLength, validateDraft, type DesignDraft } from '~/components/editor/design-draft';
+import { applySpacingOffer, draftFromDesign, parseLength, spacingOffer, switchUnits, typedLength, validateDraft, type DesignDraft } from '~/components/editor/design-draft';
 import { blankDesign } from '~/lib/presets/blank-design';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { Design } from '~/lib/schemas/design';
@@ -117,5 +117,28 @@ describe('lengths read like a rule', () => {
     expect(parseLength('648', 'mm')).toBe(648);
     expect(parseLength('648 mm', 'mm')).toBe(648);
     expect(parseLength('1 3/4', 'mm')).toBeNull();
+  });
+});
+
+describe('string count and spacing', () => {
+  it('offers to keep the spacing per string: a 6-string at 43 / 58 mm made a 7-string becomes 51.6 / 69.6 mm (hand-computed: 43/5·6, 58/5·6)', () => {
+    const base = draftFromDesign(blankDesign());
+    const six = { ...base, lengths: { ...base.lengths, 'stringSpacing.nut': typedLength('43'), 'stringSpacing.bridge': typedLength('58') } };
+    const seven = { ...six, numbers: { ...six.numbers, strings: '7' } };
+    const offer = spacingOffer(seven, 6);
+    expect(offer).toMatchObject({ from: 6, to: 7 });
+    expect(Math.abs(offer!.perStringNut - 8.6)).toBeLessThan(1e-12); // mm
+    expect(Math.abs(offer!.nut - 51.6)).toBeLessThan(1e-12); // mm
+    expect(Math.abs(offer!.bridge - 69.6)).toBeLessThan(1e-12); // mm
+    const applied = validDesign(applySpacingOffer(seven, offer!));
+    expect(applied.strings).toBe(7);
+    expect(Math.abs(applied.stringSpacing.nut - 51.6)).toBeLessThan(1e-12);
+  });
+
+  it('offers nothing when the count did not change or is not a whole number of at least 2', () => {
+    const draft = draftFromDesign(blankDesign());
+    expect(spacingOffer(draft, 6)).toBeNull();
+    expect(spacingOffer({ ...draft, numbers: { ...draft.numbers, strings: '1' } }, 6)).toBeNull();
+    expect(spacingOffer({ ...draft, numbers: { ...draft.numbers, strings: 'seven' } }, 6)).toBeNull();
   });
 });
