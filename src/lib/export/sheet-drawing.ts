@@ -27,7 +27,7 @@ export type SheetItem =
   /** `fret` is set on fret lines (0 for a zero fret). */
   | { kind: 'line'; style: LineStyle; start: Point; end: Point; fret?: number }
   | { kind: 'polygon'; style: 'outline' | 'kerf'; points: Point[] }
-  | { kind: 'circle'; style: 'marker'; centre: Point; radiusMm: number }
+  | { kind: 'circle'; style: 'marker'; dot: 'face' | 'side'; centre: Point; radiusMm: number }
   | { kind: 'label'; text: string; centre: Point; sizePt: number };
 
 export interface SheetDrawing {
@@ -63,7 +63,7 @@ export function sheetDrawing(
   const items: SheetItem[] = [];
   for (const part of picture.parts) {
     if (part.kind === 'polygon') items.push({ kind: 'polygon', style: 'outline', points: part.points.map(sheet) });
-    else if (part.kind === 'circle') items.push({ kind: 'circle', style: 'marker', centre: sheet(part.centre), radiusMm: toMm(part.diameter, layout.units) / 2 });
+    else if (part.kind === 'circle') items.push({ kind: 'circle', style: 'marker', dot: part.layer === 'face-dots' ? 'face' : 'side', centre: sheet(part.centre), radiusMm: toMm(part.diameter, layout.units) / 2 });
     else if (part.kind === 'text') items.push(fretNumber(part.text, sheet(part.at), sheet(part.away)));
     else if (part.role === 'slot') {
       if (options.kerf) items.push({ kind: 'polygon', style: 'kerf', points: kerfOutline({ start: sheet(part.segment.start), end: sheet(part.segment.end) }, slotWidthMm) });
