@@ -38,13 +38,8 @@ export interface SlotPaths {
  * lowest y to 0.
  */
 export function slotPaths(layout: Layout, options: Pick<ExportOptions, 'slots' | 'origin'>): SlotPaths {
-  const offset =
-    options.origin === 'lower-left'
-      ? {
-          x: -Math.min(...layout.outline.map((p) => p.x)),
-          y: -Math.min(...layout.outline.map((p) => p.y)),
-        }
-      : { x: 0, y: 0 };
+  const board = boundsOf(layout.outline);
+  const offset = options.origin === 'lower-left' ? { x: -board.minX, y: -board.minY } : { x: 0, y: 0 };
   const move = (p: Point): Point => ({ x: p.x + offset.x, y: p.y + offset.y });
   const moveSegment = (s: Segment): Segment => ({ start: move(s.start), end: move(s.end) });
 
