@@ -1,6 +1,7 @@
 /**
  * The board itself, as Konva nodes in board coordinates (the parent group maps them to the
- * screen). Lines keep a constant screen width (strokeScaleEnabled off); labels are scaled by
+ * screen), drawn from the board picture (~/lib/picture/board-picture) that every other surface
+ * draws too. Lines keep a constant screen width (strokeScaleEnabled off); labels are scaled by
  * 1/zoom so they stay readable at any zoom. Every node is named, and lines keep their board
  * coordinates in `points`, so tests and tools can read the scene graph.
  */
@@ -37,6 +38,9 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
   const zeroFret = frets.find((part) => part.fret === 0);
   const reference = (role: 'nut-uncompensated' | 'saddle-uncompensated') =>
     [...partsOn(picture, 'nut', 'line'), ...partsOn(picture, 'saddle', 'line')].find((part) => part.role === role);
+  const drawn = (layer: 'nut' | 'saddle' | 'centre-line', role: 'nut' | 'saddle' | 'centre-line') =>
+    segmentPoints(partsOn(picture, layer, 'line').find((part) => part.role === role)!.segment);
+  const outline = partsOn(picture, 'outline', 'polygon')[0]!.points;
   const nutReference = reference('nut-uncompensated');
   const saddleReference = reference('saddle-uncompensated');
 
@@ -44,7 +48,7 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
     <Group name="board">
       <Line
         name="outline"
-        points={layout.outline.flatMap((p) => [p.x, p.y])}
+        points={outline.flatMap((p) => [p.x, p.y])}
         closed
         fill={C.board}
         stroke={C.boardEdge}
@@ -109,7 +113,7 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
       )}
       <Line
         name="centre-line"
-        points={segmentPoints(layout.centreLine)}
+        points={drawn('centre-line', 'centre-line')}
         stroke={C.centre}
         strokeWidth={W.centre}
         dash={[...DASHES_PX.centre]}
@@ -133,8 +137,8 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
       {saddleReference && (
         <Line name="saddle-reference-line" points={segmentPoints(saddleReference.segment)} stroke={C.reference} strokeWidth={W.reference} dash={[...DASHES_PX.reference]} strokeScaleEnabled={false} />
       )}
-      <Line name="nut-line" points={segmentPoints(layout.nutLine)} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
-      <Line name="saddle-line" points={segmentPoints(layout.saddleLine)} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
+      <Line name="nut-line" points={drawn('nut', 'nut')} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
+      <Line name="saddle-line" points={drawn('saddle', 'saddle')} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
       <Text
         name="perpendicular-label"
         text={layout.perpendicularFret.fret === 0 ? 'nut square to centre line' : `fret ${layout.perpendicularFret.fret} square to centre line`}
