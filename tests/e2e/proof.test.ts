@@ -31,6 +31,26 @@ function onTestServer(link: string): string {
   return `${BASE_URL}${url.pathname}`;
 }
 
+describe('the proof page\'s server-drawn board (what shows without JavaScript)', () => {
+  it('draws the ukulele\'s zero fret, all 18 frets, 6 face dots of 6 mm and 5 side dots of 2 mm, nut, saddle, outline and centre line', async () => {
+    const ukulele = await ensureDesign(builder.shopId, builder.id, 'Tenor ukulele', 'tenor-ukulele');
+    const sent = await createProof(builder, ukulele, { clientName: 'Ines Calloway', clientEmail: 'ines-svg@wrenfield.example', message: '', expiresInDays: 30 }, new Date());
+    const html = await (await fetch(`${BASE_URL}${new URL(sent!.link).pathname}`)).text();
+    const svg = /<svg[^>]*data-drawing="proof-board"[\s\S]*?<\/svg>/.exec(html)![0];
+    const frets = [...svg.matchAll(/data-fret="(\d+)"/g)].map((m) => Number(m[1]));
+    expect(frets).toEqual(Array.from({ length: 19 }, (_, n) => n));
+    // The ukulele is drawn in inches: 6 mm = 0.23622 in, 2 mm = 0.07874 in (1 in = 25.4 mm exactly).
+    const radiiMm = (part: string) => [...svg.matchAll(new RegExp(`<circle[^>]*r="([^"]+)"[^>]*data-part="${part}"`, 'g'))].map((m) => 2 * Number(m[1]) * 25.4);
+    const face = radiiMm('face-dot');
+    const side = radiiMm('side-dot');
+    expect(face).toHaveLength(6);
+    expect(side).toHaveLength(5);
+    for (const d of face) expect(Math.abs(d - 6)).toBeLessThan(1e-6); // mm
+    for (const d of side) expect(Math.abs(d - 2)).toBeLessThan(1e-6); // mm
+    for (const part of ['nut', 'saddle', 'outline', 'centre-line']) expect(svg).toContain(`data-part="${part}"`);
+  });
+});
+
 describe('Proof in Chromium (built server)', () => {
   it('the builder shares the fanned 7-string, the client opens the e-mailed link without an account and approves', async () => {
     const builderContext = await browser.newContext();

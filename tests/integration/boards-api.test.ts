@@ -381,8 +381,8 @@ describe('GET /api/designs/{id}/thumbnail.svg', () => {
     const svg = await response.text();
     expect(svg.startsWith('<svg')).toBe(true);
     expect(svg.match(/<polygon /g)).toHaveLength(1);
-    // 24 frets, the nut and the two outer strings.
-    expect(svg.match(/<line /g)).toHaveLength(24 + 1 + 2);
+    // 24 frets (no zero fret on this board), the nut, the two outer strings and the centre line.
+    expect(svg.match(/<line /g)).toHaveLength(24 + 1 + 2 + 1);
   });
 });
 

@@ -283,12 +283,12 @@ describe('label and index template downloads', () => {
     const dxf = await strip('format=dxf&nutSpacing=48&saddleSpacing=75&perpendicularFret=8');
     expect(dxf.status).toBe(200);
     const entities = new DxfParser().parseSync(await dxf.text())!.entities as unknown as { layer: string; text?: string; vertices: { x: number; y: number }[] }[];
-    const centres = entities.filter((e) => e.layer === 'SLOT_CENTRES');
+    const centres = entities.filter((e) => e.layer === 'slot-centres');
     expect(centres).toHaveLength(21); // 20 frets and the nut slot
     // Fret 8 is the perpendicular fret: its slot is square to the strip, both ends at the same x.
     const square = centres.filter((e) => Math.abs(e.vertices[0]!.x - e.vertices[1]!.x) < 1e-9 && e.vertices[0]!.x > 0);
     expect(square).toHaveLength(1);
-    expect(entities.filter((e) => e.layer === 'ENGRAVING').map((e) => e.text)).toContain('8 0.0%%d');
+    expect(entities.filter((e) => e.layer === 'engraving').map((e) => e.text)).toContain('8 0.0%%d');
     const pdf = await strip('format=pdf&nutSpacing=48&saddleSpacing=75&perpendicularFret=0');
     expect(pdf.status).toBe(200);
     expect(pdf.headers.get('content-type')).toBe('application/pdf');

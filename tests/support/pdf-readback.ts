@@ -25,6 +25,8 @@ export interface ReadPage {
   segments: PageSegment[];
   /** Straight segments drawn inside each marked-content tag, in page points. */
   tagged: Map<string, PageSegment[]>;
+  /** The box of each curved path (a circle's box) drawn inside each marked-content tag, in page points. */
+  taggedCurves: Map<string, PageBox[]>;
   /** The page's text as pdfjs reads it (items joined; a line break where the item ends a line). */
   text: string;
   /** Straight segments drawn outside any tag, with the pen they were drawn with. */
@@ -40,6 +42,13 @@ interface GraphicsState {
   matrix: Matrix;
   widthPt: number;
   dashed: boolean;
+}
+
+export interface PageBox {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
 }
 
 type Matrix = [number, number, number, number, number, number];
@@ -67,6 +76,7 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
     const [x0, y0, x1, y1] = page.view as [number, number, number, number];
     const operators = await page.getOperatorList();
     const tagged = new Map<string, PageSegment[]>();
+    const taggedCurves = new Map<string, PageBox[]>();
     const segments: PageSegment[] = [];
     const untagged: PenSegment[] = [];
     const tags: string[] = [];
@@ -86,12 +96,16 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
         tags.push(typeof tag === 'string' ? tag : (tag.name ?? ''));
       } else if (fn === OPS.endMarkedContent) tags.pop();
       else if (fn === OPS.constructPath) {
-        const drawn = segmentsOf((args[1] as ArrayLike<number>[])[0]!, matrix);
+        const path = (args[1] as ArrayLike<number>[])[0]!;
+        const drawn = segmentsOf(path, matrix);
         segments.push(...drawn);
         if (tags.length > 0) {
-          const list = tagged.get(tags[tags.length - 1]!) ?? [];
+          const tag = tags[tags.length - 1]!;
+          const list = tagged.get(tag) ?? [];
           list.push(...drawn);
-          tagged.set(tags[tags.length - 1]!, list);
+          tagged.set(tag, list);
+          const curve = curveBox(path, matrix);
+          if (curve) taggedCurves.set(tag, [...(taggedCurves.get(tag) ?? []), curve]);
         } else {
           const pen = { widthPt: state.widthPt, dashed: state.dashed };
           untagged.push(...drawn.map((segment) => ({ ...segment, ...pen })));
@@ -99,7 +113,7 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
       }
     });
     const text = (await page.getTextContent()).items.map((item) => ('str' in item ? item.str + (item.hasEOL ? '\n' : '') : '')).join('');
-    pages.push({ widthPt: x1 - x0, heightPt: y1 - y0, segments, tagged, untagged, text });
+    pages.push({ widthPt: x1 - x0, heightPt: y1 - y0, segments, tagged, taggedCurves, untagged, text });
   }
   return pages;
 }
@@ -120,6 +134,32 @@ function segmentsOf(path: ArrayLike<number>, m: Matrix): PageSegment[] {
     i += 1 + (PATH_ARGS[code] ?? 0);
   }
   return segments;
+}
+
+/**
+ * The box of every point of a path that has curves (end and control points: for a circle drawn as
+ * four quarter Béziers they span exactly its box), or null for a path of straight lines only.
+ */
+function curveBox(path: ArrayLike<number>, m: Matrix): PageBox | null {
+  const box: PageBox = { minX: Infinity, minY: Infinity, maxX: -Infinity, maxY: -Infinity };
+  let curved = false;
+  for (let i = 0; i < path.length; ) {
+    const code = path[i]!;
+    const count = PATH_ARGS[code] ?? 0;
+    if (code === 2 || code === 3) curved = true;
+    for (let k = 0; k < count; k += 2) {
+      const x = path[i + 1 + k]!;
+      const y = path[i + 2 + k]!;
+      const px = m[0] * x + m[2] * y + m[4];
+      const py = m[1] * x + m[3] * y + m[5];
+      box.minX = Math.min(box.minX, px);
+      box.minY = Math.min(box.minY, py);
+      box.maxX = Math.max(box.maxX, px);
+      box.maxY = Math.max(box.maxY, py);
+    }
+    i += 1 + count;
+  }
+  return curved ? box : null;
 }
 
 function tempPdf(bytes: Uint8Array): string {

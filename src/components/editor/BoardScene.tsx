@@ -1,13 +1,15 @@
 /**
  * The board itself, as Konva nodes in board coordinates (the parent group maps them to the
- * screen). Lines keep a constant screen width (strokeScaleEnabled off); labels are scaled by
+ * screen), drawn from the board picture (~/lib/picture/board-picture) that every other surface
+ * draws too. Lines keep a constant screen width (strokeScaleEnabled off); labels are scaled by
  * 1/zoom so they stay readable at any zoom. Every node is named, and lines keep their board
  * coordinates in `points`, so tests and tools can read the scene graph.
  */
 import { memo } from 'react';
 import { Circle, Group, Line, Text } from 'react-konva';
-import { formatLength, fromMm } from '~/lib/format/units';
+import { formatLength } from '~/lib/format/units';
 import type { Layout, Point, Segment } from '~/lib/geometry/layout';
+import { boardPicture, partsOn } from '~/lib/picture/board-picture';
 import { DASHES_PX, DRAWING_COLOURS as C, LABEL_FONT, LINE_WIDTHS_PX as W } from './drawing-style';
 import { boundsOf } from './view-transform';
 
@@ -17,9 +19,6 @@ interface BoardSceneProps {
   zoom: number;
 }
 
-/** Face dot and side dot diameters in millimetres (common practice, from memory). */
-const FACE_DOT_MM = 6;
-const SIDE_DOT_MM = 2;
 const SCALE_LABEL_WIDTH_PX = 280;
 
 const segmentPoints = (segment: Segment) => [segment.start.x, segment.start.y, segment.end.x, segment.end.y];
@@ -31,15 +30,25 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
   const stopped = layout.frets.some((fret) => fret.slot.start.x !== fret.line.start.x || fret.slot.start.y !== fret.line.start.y);
   const perpendicularX = layout.perpendicularFret.x;
   const showUnits = (length: number) => formatLength(length, layout.units, true);
-  const compensated =
-    !sameSegment(layout.nutLine, layout.uncompensated.nutLine) ||
-    !sameSegment(layout.saddleLine, layout.uncompensated.saddleLine);
+  const picture = boardPicture(layout);
+  const dots = [...partsOn(picture, 'face-dots', 'circle'), ...partsOn(picture, 'side-dots', 'circle')];
+  const slots = new Map(partsOn(picture, 'slots', 'line').map((part) => [part.fret, part.segment]));
+  const frets = partsOn(picture, 'frets', 'line');
+  const fretLines = frets.filter((part) => part.fret !== 0);
+  const zeroFret = frets.find((part) => part.fret === 0);
+  const reference = (role: 'nut-uncompensated' | 'saddle-uncompensated') =>
+    [...partsOn(picture, 'nut', 'line'), ...partsOn(picture, 'saddle', 'line')].find((part) => part.role === role);
+  const drawn = (layer: 'nut' | 'saddle' | 'centre-line', role: 'nut' | 'saddle' | 'centre-line') =>
+    segmentPoints(partsOn(picture, layer, 'line').find((part) => part.role === role)!.segment);
+  const outline = partsOn(picture, 'outline', 'polygon')[0]!.points;
+  const nutReference = reference('nut-uncompensated');
+  const saddleReference = reference('saddle-uncompensated');
 
   return (
     <Group name="board">
       <Line
         name="outline"
-        points={layout.outline.flatMap((p) => [p.x, p.y])}
+        points={outline.flatMap((p) => [p.x, p.y])}
         closed
         fill={C.board}
         stroke={C.boardEdge}
@@ -57,36 +66,37 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
       />
       {layout.markers.map((marker) => (
         <Group key={`marker-${marker.fret}`} name="marker" fret={marker.fret}>
-          {marker.dots.map((dot, index) => (
-            <Circle key={index} name="marker-dot" x={dot.x} y={dot.y} radius={fromMm(FACE_DOT_MM / 2, layout.units)} fill={C.marker} />
-          ))}
-          <Circle name="side-dot" x={marker.side.x} y={marker.side.y} radius={fromMm(SIDE_DOT_MM / 2, layout.units)} fill={C.marker} />
+          {dots
+            .filter((dot) => dot.fret === marker.fret)
+            .map((dot, index) => (
+              <Circle key={index} name={dot.layer === 'face-dots' ? 'marker-dot' : 'side-dot'} x={dot.centre.x} y={dot.centre.y} radius={dot.diameter / 2} fill={C.marker} />
+            ))}
         </Group>
       ))}
-      {layout.frets.map((fret) => (
-        <Group key={fret.number} name="fret">
+      {fretLines.map(({ fret = 0, segment }) => (
+        <Group key={fret} name="fret">
           <Line
             name="fret-line"
-            fret={fret.number}
-            points={segmentPoints(fret.line)}
+            fret={fret}
+            points={segmentPoints(segment)}
             stroke={stopped ? C.fretStopped : C.fret}
             strokeWidth={W.fret}
             strokeScaleEnabled={false}
           />
           <Line
             name="fret-slot"
-            fret={fret.number}
-            points={segmentPoints(fret.slot)}
+            fret={fret}
+            points={segmentPoints(slots.get(fret) ?? segment)}
             stroke={C.slot}
             strokeWidth={W.slot}
             strokeScaleEnabled={false}
           />
           <Text
             name="fret-number"
-            fret={fret.number}
-            text={String(fret.number)}
-            x={fret.line.start.x}
-            y={fret.line.start.y}
+            fret={fret}
+            text={String(fret)}
+            x={segment.start.x}
+            y={segment.start.y}
             {...labelScale}
             width={28}
             offsetX={14}
@@ -98,12 +108,12 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
           />
         </Group>
       ))}
-      {layout.zeroFret && (
-        <Line name="zero-fret-line" points={segmentPoints(layout.zeroFret.line)} stroke={C.slot} strokeWidth={W.slot} strokeScaleEnabled={false} />
+      {zeroFret && (
+        <Line name="zero-fret-line" points={segmentPoints(zeroFret.segment)} stroke={C.slot} strokeWidth={W.slot} strokeScaleEnabled={false} />
       )}
       <Line
         name="centre-line"
-        points={segmentPoints(layout.centreLine)}
+        points={drawn('centre-line', 'centre-line')}
         stroke={C.centre}
         strokeWidth={W.centre}
         dash={[...DASHES_PX.centre]}
@@ -121,14 +131,14 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
           strokeScaleEnabled={false}
         />
       ))}
-      {compensated && (
-        <>
-          <Line name="nut-reference-line" points={segmentPoints(layout.uncompensated.nutLine)} stroke={C.reference} strokeWidth={W.reference} dash={[...DASHES_PX.reference]} strokeScaleEnabled={false} />
-          <Line name="saddle-reference-line" points={segmentPoints(layout.uncompensated.saddleLine)} stroke={C.reference} strokeWidth={W.reference} dash={[...DASHES_PX.reference]} strokeScaleEnabled={false} />
-        </>
+      {nutReference && (
+        <Line name="nut-reference-line" points={segmentPoints(nutReference.segment)} stroke={C.reference} strokeWidth={W.reference} dash={[...DASHES_PX.reference]} strokeScaleEnabled={false} />
       )}
-      <Line name="nut-line" points={segmentPoints(layout.nutLine)} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
-      <Line name="saddle-line" points={segmentPoints(layout.saddleLine)} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
+      {saddleReference && (
+        <Line name="saddle-reference-line" points={segmentPoints(saddleReference.segment)} stroke={C.reference} strokeWidth={W.reference} dash={[...DASHES_PX.reference]} strokeScaleEnabled={false} />
+      )}
+      <Line name="nut-line" points={drawn('nut', 'nut')} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
+      <Line name="saddle-line" points={drawn('saddle', 'saddle')} stroke={C.nutSaddle} strokeWidth={W.nutSaddle} strokeScaleEnabled={false} />
       <Text
         name="perpendicular-label"
         text={layout.perpendicularFret.fret === 0 ? 'nut square to centre line' : `fret ${layout.perpendicularFret.fret} square to centre line`}
@@ -162,10 +172,6 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
     </Group>
   );
 });
-
-function sameSegment(a: Segment, b: Segment): boolean {
-  return a.start.x === b.start.x && a.start.y === b.start.y && a.end.x === b.end.x && a.end.y === b.end.y;
-}
 
 function outerStrings(layout: Layout) {
   const first = layout.strings[0];

@@ -4,6 +4,10 @@
  * Pure maths, shared by the drawing, its navigation and the unit tests.
  */
 import { MM_PER_INCH, type LengthUnit } from '~/lib/format/units';
+import type { Box } from '~/lib/picture/board-picture';
+
+/** The one bounding box, shared with every other surface. */
+export { boundsOf } from '~/lib/picture/board-picture';
 
 export interface View {
   /** Screen pixels per board unit (mm or in). */
@@ -18,12 +22,7 @@ export interface ScreenPoint {
   y: number;
 }
 
-export interface BoardBounds {
-  minX: number;
-  maxX: number;
-  minY: number;
-  maxY: number;
-}
+export type BoardBounds = Box;
 
 /** Zoom limits in screen pixels per millimetre, whatever the design's units. */
 export const ZOOM_LIMITS_PX_PER_MM = { min: 0.05, max: 400 } as const;
@@ -95,19 +94,4 @@ export function centredView(bounds: BoardBounds, width: number, height: number, 
  */
 export function oneToOneZoom(screenPxPerMm: number, units: LengthUnit): number {
   return units === 'in' ? screenPxPerMm * MM_PER_INCH : screenPxPerMm;
-}
-
-/** Smallest box holding all points. */
-export function boundsOf(points: readonly { x: number; y: number }[]): BoardBounds {
-  let minX = Infinity;
-  let maxX = -Infinity;
-  let minY = Infinity;
-  let maxY = -Infinity;
-  for (const point of points) {
-    minX = Math.min(minX, point.x);
-    maxX = Math.max(maxX, point.x);
-    minY = Math.min(minY, point.y);
-    maxY = Math.max(maxY, point.y);
-  }
-  return { minX, maxX, minY, maxY };
 }

@@ -28,9 +28,3 @@ export function readBoardFile(value: unknown): { ok: true; file: BoardFile; desi
   if (!parsed.success) return { ok: false, issues: zodIssues(parsed.error) };
   return { ok: true, file: parsed.data, designPrefix: 'design' };
 }
-
-/** A file name made of the board's name: letters, digits and dashes only. */
-export function fileStem(name: string, revision: number): string {
-  const slug = name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60);
-  return `${slug || 'board'}-r${revision}`;
-}

@@ -1,4 +1,5 @@
 import type { Layout, Point, Segment } from '~/lib/geometry/layout';
+import { boardPicture, boundsOf, partsOn, type PictureLayer } from '~/lib/picture/board-picture';
 
 /** Size of the drawing in CSS pixels; the board is scaled to fit and centred. */
 export const THUMBNAIL_SIZE = { width: 240, height: 48 } as const;
@@ -6,33 +7,47 @@ export const THUMBNAIL_SIZE = { width: 240, height: 48 } as const;
 const PADDING = 0.04;
 
 /**
- * A small SVG of a computed layout for the Boards list: board outline, nut, fret lines and the
- * outer strings. Not to scale with anything outside itself (it is a picture, not a template):
- * the viewBox is the board's bounding box in its own units, with y flipped for display.
+ * A small SVG of a computed layout for the Boards list: the board picture up to the board end
+ * (outline, dots, centre line, frets with the zero fret, nut and the outer strings), each layer
+ * a group named by `data-layer`. Not to scale with anything outside itself (it is a picture, not
+ * a template): the viewBox is the board's bounding box in its own units, with y flipped for display.
  */
 export function boardThumbnailSvg(layout: Layout): string {
-  const points = layout.outline;
-  const xs = points.map((p) => p.x);
-  const ys = points.map((p) => -p.y);
-  const minX = Math.min(...xs);
-  const minY = Math.min(...ys);
-  const width = Math.max(...xs) - minX;
-  const height = Math.max(...ys) - minY;
+  const picture = boardPicture(layout, { to: 'board-end' });
+  const box = boundsOf(layout.outline);
+  const width = box.maxX - box.minX;
+  const height = box.maxY - box.minY;
   const pad = Math.max(width, height) * PADDING;
-  const viewBox = [minX - pad, minY - pad, width + 2 * pad, height + 2 * pad].map(num).join(' ');
+  const viewBox = [box.minX - pad, -box.maxY - pad, width + 2 * pad, height + 2 * pad].map(num).join(' ');
   // Strokes scale with the board, so pick them as a fraction of its width across.
   const stroke = num(height / 60);
-  const outer = [layout.strings[0], layout.strings[layout.strings.length - 1]].filter((s) => s !== undefined);
+  const outerStrings = new Set([1, layout.strings.length]);
+  const lines = (layer: PictureLayer, colour: string, width: string, keep: (string?: number) => boolean = () => true) =>
+    group(
+      layer,
+      partsOn(picture, layer, 'line')
+        .filter((part) => !part.role.endsWith('-uncompensated') && keep(part.string))
+        .map((part) => line(part.segment, colour, width)),
+    );
+  const dots = (layer: PictureLayer) =>
+    group(layer, partsOn(picture, layer, 'circle').map((dot) => `<circle cx="${num(dot.centre.x)}" cy="${num(-dot.centre.y)}" r="${num(dot.diameter / 2)}" fill="#8a9096"/>`));
   const body = [
-    `<polygon points="${points.map(pt).join(' ')}" fill="#f1eee7" stroke="#4b5259" stroke-width="${stroke}"/>`,
-    line(layout.nutLine, '#1f2328', num(height / 25)),
-    ...layout.frets.map((fret) => line(fret.line, '#7a3b2e', stroke)),
-    ...outer.map((s) => line({ start: s.nut, end: s.saddle }, '#8a9096', stroke)),
+    group('outline', partsOn(picture, 'outline', 'polygon').map((part) => `<polygon points="${part.points.map(pt).join(' ')}" fill="#f1eee7" stroke="#4b5259" stroke-width="${stroke}"/>`)),
+    dots('face-dots'),
+    dots('side-dots'),
+    lines('centre-line', '#8a9096', stroke),
+    lines('nut', '#1f2328', num(height / 25)),
+    lines('frets', '#7a3b2e', stroke),
+    lines('strings', '#8a9096', stroke, (string) => string !== undefined && outerStrings.has(string)),
   ];
   return (
     `<svg xmlns="http://www.w3.org/2000/svg" width="${THUMBNAIL_SIZE.width}" height="${THUMBNAIL_SIZE.height}" ` +
     `viewBox="${viewBox}" preserveAspectRatio="xMidYMid meet" role="img">${body.join('')}</svg>`
   );
+}
+
+function group(layer: PictureLayer, elements: string[]): string {
+  return `<g data-layer="${layer}">${elements.join('')}</g>`;
 }
 
 function num(value: number): string {

@@ -1,11 +1,15 @@
 /**
- * Slot paths as DXF through makerjs: `$INSUNITS` in the header (1 = inches, 4 = millimetres), one
- * layer per slot-path layer, closed outlines as closed polylines, and a comment (group 999)
- * stating the scale convention, the units and the safety caution.
- * Kept server-side so makerjs stays out of the browser bundle.
+ * The one DXF writer, through makerjs, for every DXF Kerfline exports (slot paths, the index
+ * template): `$INSUNITS` in the header (1 = inches, 4 = millimetres), layers named in lowercase
+ * with dashes, open lines as lines, closed shapes as closed polylines, dots as CIRCLEs of their
+ * real diameter, engraving as TEXT on its own layer, and everything meant for a person (scale
+ * convention, units, cautions, notes) as comments (group 999), never as geometry a CAM program
+ * could cut. Kept server-side so makerjs stays out of the browser bundle.
  */
-import { capitalised, scaleConventionWords } from '~/lib/format/design-specs';
 import makerjs from 'makerjs';
+import type { LengthUnit } from '~/lib/format/units';
+import type { Point, Segment } from '~/lib/geometry/plane';
+import { capitalised, scaleConventionWords } from '~/lib/format/design-specs';
 import { machineCaution } from './safety-note';
 import { SLOT_PATH_LAYERS, type SlotPaths } from './slot-paths';
 
@@ -15,46 +19,98 @@ import { SLOT_PATH_LAYERS, type SlotPaths } from './slot-paths';
  */
 const ACCURACY = 1e-12;
 
-/** AutoCAD colour index per layer, so a CAM program shows the layers apart. */
-const LAYER_COLOURS: Record<(typeof SLOT_PATH_LAYERS)[number], number> = {
+/** AutoCAD colour index per layer name, so a CAM program shows the layers apart. */
+const LAYER_COLOURS: Readonly<Record<string, number>> = {
   outline: makerjs.exporter.colors.white,
   slots: makerjs.exporter.colors.red,
+  'slot-centres': makerjs.exporter.colors.gray,
   'centre-line': makerjs.exporter.colors.gray,
   nut: makerjs.exporter.colors.blue,
   saddle: makerjs.exporter.colors.green,
   markers: makerjs.exporter.colors.orange,
+  engraving: makerjs.exporter.colors.green,
 };
 
-export function slotPathsDxf(paths: SlotPaths): string {
+/** Text to engrave: centred on the baseline from `start` to `end`. */
+export interface DxfText {
+  text: string;
+  start: Point;
+  end: Point;
+}
+
+export interface DxfLayer {
+  /** Lowercase words joined by dashes. */
+  name: string;
+  lines?: readonly Segment[];
+  /** Closed outlines (the last point joins the first). */
+  closed?: readonly (readonly Point[])[];
+  /** Dots, `diameter` in the document's units. */
+  circles?: readonly { centre: Point; diameter: number }[];
+  texts?: readonly DxfText[];
+}
+
+export interface DxfDocument {
+  units: LengthUnit;
+  layers: readonly DxfLayer[];
+  /** One 999 comment per entry, at the top of the file. */
+  comments: readonly string[];
+  /** Height of engraved text, in the document's units. */
+  textHeight?: number;
+}
+
+export function dxfDocument(doc: DxfDocument): string {
   const models: Record<string, makerjs.IModel> = {};
-  for (const layer of SLOT_PATH_LAYERS) {
-    const { lines, closed } = paths.layers[layer];
-    const layerPaths: Record<string, makerjs.IPath> = {};
-    lines.forEach((segment, index) => {
-      layerPaths[`line${index}`] = new makerjs.paths.Line(
-        [segment.start.x, segment.start.y],
-        [segment.end.x, segment.end.y],
-      );
+  for (const layer of doc.layers) {
+    const paths: Record<string, makerjs.IPath> = {};
+    (layer.lines ?? []).forEach((segment, index) => {
+      paths[`line${index}`] = new makerjs.paths.Line(xy(segment.start), xy(segment.end));
+    });
+    (layer.circles ?? []).forEach((circle, index) => {
+      paths[`circle${index}`] = new makerjs.paths.Circle(xy(circle.centre), circle.diameter / 2);
     });
     const layerModels: Record<string, makerjs.IModel> = {};
-    closed.forEach((points, index) => {
-      layerModels[`closed${index}`] = new makerjs.models.ConnectTheDots(
-        true,
-        points.map((p) => [p.x, p.y]),
-      );
+    (layer.closed ?? []).forEach((points, index) => {
+      layerModels[`closed${index}`] = new makerjs.models.ConnectTheDots(true, points.map(xy));
     });
-    models[layer] = { layer, paths: layerPaths, models: layerModels };
+    (layer.texts ?? []).forEach((t, index) => {
+      layerModels[`text${index}`] = { layer: layer.name, caption: { text: dxfText(t.text), anchor: new makerjs.paths.Line(xy(t.start), xy(t.end)) } };
+    });
+    models[layer.name] = { layer: layer.name, paths, models: layerModels };
   }
-  const model: makerjs.IModel = {
-    units: paths.units === 'mm' ? makerjs.unitType.Millimeter : makerjs.unitType.Inch,
-    models,
-  };
-  const dxf = makerjs.exporter.toDXF(model, {
-    accuracy: ACCURACY,
-    usePOLYLINE: true,
-    // Only genuinely shared corners join into a polyline.
-    pointMatchingDistance: ACCURACY,
-    layerOptions: Object.fromEntries(SLOT_PATH_LAYERS.map((layer) => [layer, { color: LAYER_COLOURS[layer] }])),
+  const units = doc.units === 'mm' ? makerjs.unitType.Millimeter : makerjs.unitType.Inch;
+  const dxf = makerjs.exporter.toDXF(
+    { units, models },
+    {
+      units,
+      accuracy: ACCURACY,
+      usePOLYLINE: true,
+      // Only genuinely shared corners join into a polyline.
+      pointMatchingDistance: ACCURACY,
+      ...(doc.textHeight === undefined ? {} : { fontSize: doc.textHeight }),
+      // A layer is written to the LAYER table only when it has options.
+      layerOptions: Object.fromEntries(doc.layers.map((layer) => [layer.name, { color: LAYER_COLOURS[layer.name] ?? makerjs.exporter.colors.white }])),
+    },
+  );
+  return `${doc.comments.map((comment) => `999\n${oneLine(comment)}\n`).join('')}${dxf}\n`;
+}
+
+/** Slot paths: one DXF layer per slot-path layer; the scale convention and the caution as comments. */
+export function slotPathsDxf(paths: SlotPaths): string {
+  return dxfDocument({
+    units: paths.units,
+    layers: SLOT_PATH_LAYERS.map((name) => ({ name, ...paths.layers[name] })),
+    comments: [`${capitalised(scaleConventionWords(paths.scaleAlong))}.`, machineCaution(paths.units, 'slot paths')],
   });
-  return `999\n${capitalised(scaleConventionWords(paths.scaleAlong))}.\n999\n${machineCaution(paths.units)}\n${dxf}\n`;
+}
+
+const xy = (p: Point): makerjs.IPoint => [p.x, p.y];
+
+/** DXF TEXT is plain ASCII here: the degree sign uses the DXF control code %%d. */
+function dxfText(text: string): string {
+  return text.replace(/°/g, '%%d').replace(/·/g, '-').replace(/[^\x20-\x7e]/g, '?');
+}
+
+/** A 999 comment is one line of plain ASCII text. */
+function oneLine(text: string): string {
+  return text.replace(/\s+/g, ' ').replace(/°/g, ' deg').replace(/·/g, '-').replace(/[^\x20-\x7e]/g, '?');
 }

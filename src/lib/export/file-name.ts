@@ -1,6 +1,9 @@
 /**
- * Download file names made from a design's name: ASCII letters, digits, dots, dashes and
- * underscores only, so the name is safe in a Content-Disposition header and on every file system.
+ * The one place download file names are made, for every export (paper template, slot paths,
+ * fret table, layout JSON, board file, index template, template label), from the name of the
+ * design, board or template: accented letters folded to ASCII, then ASCII letters, digits, dots,
+ * dashes and underscores only, so the name is safe in a Content-Disposition header and on every
+ * file system, and the same file gets the same name wherever it is downloaded from.
  */
 import type { ExportFormat } from '~/lib/schemas/export-options';
 
@@ -12,10 +15,30 @@ const SUFFIX: Readonly<Record<ExportFormat, string>> = {
   json: 'layout.json',
 };
 
+/** What is downloaded: a design export by its format, or one of the other files. */
+export type DownloadFile =
+  | ExportFormat
+  | { kind: 'board-file'; revision: number }
+  | { kind: 'index-template'; templateId: number; format: 'pdf' | 'dxf' }
+  | { kind: 'label'; templateId: number; size: string };
+
 const MAX_BASE_CHARS = 80;
 
-export function exportFileName(designName: string, format: ExportFormat): string {
-  const base = designName
+export function exportFileName(name: string, file: DownloadFile): string {
+  const base = safeName(name) || 'design';
+  if (typeof file === 'string') return `${base}-${SUFFIX[file]}`;
+  switch (file.kind) {
+    case 'board-file':
+      return `${base}-r${file.revision}.json`;
+    case 'index-template':
+      return `${base}-${file.templateId}-index-template.${file.format}`;
+    case 'label':
+      return `${base}-${file.templateId}-label-${safeName(file.size)}.pdf`;
+  }
+}
+
+function safeName(name: string): string {
+  return name
     .normalize('NFKD')
     .replace(/[\u0300-\u036f]/g, '')
     .replace(/[^A-Za-z0-9._-]+/g, '-')
@@ -23,7 +46,6 @@ export function exportFileName(designName: string, format: ExportFormat): string
     .replace(/-{2,}/g, '-')
     .slice(0, MAX_BASE_CHARS)
     .replace(/[-.]+$/, '');
-  return `${base || 'design'}-${SUFFIX[format]}`;
 }
 
 /** `attachment; filename="..."` for a name made by exportFileName (already header-safe). */

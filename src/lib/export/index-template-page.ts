@@ -5,6 +5,7 @@
  */
 import { PT_PER_MM, ptPerUnit } from './paper-sizes';
 import type { IndexTemplateStrip } from './index-template';
+import { boundsOf } from '~/lib/picture/board-picture';
 
 export const STRIP_PAGE_PT = {
   margin: 15 * PT_PER_MM,
@@ -22,12 +23,9 @@ export interface StripPlacement {
 /** Page size (pt, width then height) and placement of `strip`; board y (bass side) runs down the page. */
 export function indexTemplatePage(strip: IndexTemplateStrip): { pageSize: [number, number]; placement: StripPlacement } {
   const scale = ptPerUnit(strip.units);
-  const xs = strip.outline.map((p) => p.x);
-  const ys = strip.outline.map((p) => p.y);
-  const minX = Math.min(...xs);
-  const maxY = Math.max(...ys);
+  const { minX, minY, maxX, maxY } = boundsOf(strip.outline);
   const { margin, header, minWidth } = STRIP_PAGE_PT;
-  const width = Math.max((Math.max(...xs) - minX) * scale + 2 * margin, minWidth);
-  const height = (maxY - Math.min(...ys)) * scale + 2 * margin + header;
+  const width = Math.max((maxX - minX) * scale + 2 * margin, minWidth);
+  const height = (maxY - minY) * scale + 2 * margin + header;
   return { pageSize: [width, height], placement: { originX: margin - minX * scale, originY: margin + maxY * scale, scale } };
 }

@@ -14,6 +14,7 @@ import { fromMm, formatLength, type LengthUnit } from '~/lib/format/units';
 import { computeLayout } from '~/lib/geometry/layout';
 import { distance, intersectLines, type Point, type Segment } from '~/lib/geometry/plane';
 import type { Design } from '~/lib/schemas/design';
+import { MACHINE_SAFETY_NOTES } from './safety-note';
 
 /** Strip proportions in mm (our own plain choices), converted for designs in inches. */
 export const STRIP_MM = {
@@ -75,12 +76,6 @@ export interface IndexTemplateStrip {
 export interface StripSource {
   revision: number | null;
 }
-
-export const MACHINE_CAUTIONS = [
-  'Verify units and scale on a test piece or scrap before cutting the template.',
-  'Secure the work; wear eye and hearing protection; never leave a running machine.',
-  "Follow the machine maker's instructions and your local workshop rules.",
-] as const;
 
 /**
  * The strip for `design` with slots as wide as the jig key (`keyWidth`, design units), not the
@@ -164,7 +159,7 @@ export function indexTemplateStrip(design: Design, keyWidth: number, source: Str
           `Fanned layout: every slot has its own angle (${Math.min(...slots.map((s) => s.angleDeg)).toFixed(2)}° to ${Math.max(...slots.map((s) => s.angleDeg)).toFixed(2)}° from square); the jig must follow each slot's angle.`,
         ]
       : []),
-    ...MACHINE_CAUTIONS,
+    ...MACHINE_SAFETY_NOTES,
   ];
 
   return {

@@ -4,7 +4,8 @@
  * bars, a title block and the page map. Text uses the shipped JetBrains Mono, embedded as a subset.
  *
  * Lines a test or a person may want to find are wrapped in marked content (BMC) with plain tags:
- * Fret<n>, CalibrationBar100mm, CalibrationBar4in, AlignmentMark.
+ * Fret<n>, CalibrationBar100mm, CalibrationBar4in, AlignmentMark, and for the board's other parts
+ * Outline, CentreLine, Nut, Saddle, FaceDot and SideDot.
  */
 import {
   beginMarkedContent,
@@ -65,6 +66,8 @@ const PENS: Record<LineStyle, Pen> = {
   marker: { widthPt: 0.3, colour: BLACK },
   'saddle-mark': { widthPt: 0.8, colour: BLACK },
 };
+/** Marked-content tags of the board's lines that are not frets. */
+const PART_TAGS: Partial<Record<LineStyle, string>> = { 'centre-line': 'CentreLine', nut: 'Nut', saddle: 'Saddle' };
 /**
  * The slot-width band: grey level 0.55 (sRGB), contrast 3.4:1 against white paper by the WCAG 2
  * relative-luminance formula, so it shows on a 600 dpi laser print; the black fret line on top
@@ -141,14 +144,15 @@ function drawTile(
       if (item.style === 'kerf') {
         page.pushOperators(setFillingRgbColor(...KERF_FILL), ...path, fill());
       } else {
-        page.pushOperators(...penOps(PENS.outline), ...path, stroke());
+        page.pushOperators(beginMarkedContent('Outline'), ...penOps(PENS.outline), ...path, stroke(), endMarkedContent());
       }
     } else if (item.kind === 'line' && visible([item.start, item.end])) {
       const start = toPage(item.start);
       const end = toPage(item.end);
-      const tagged = item.fret !== undefined;
+      const tag = item.fret !== undefined ? `Fret${item.fret}` : PART_TAGS[item.style];
+      const tagged = tag !== undefined;
       page.pushOperators(
-        ...(tagged ? [beginMarkedContent(`Fret${item.fret}`)] : []),
+        ...(tagged ? [beginMarkedContent(tag)] : []),
         ...penOps(PENS[item.style]),
         moveTo(start.x, start.y),
         lineTo(end.x, end.y),
@@ -157,7 +161,9 @@ function drawTile(
       );
     } else if (item.kind === 'circle' && visible([item.centre])) {
       const centre = toPage(item.centre);
+      page.pushOperators(beginMarkedContent(item.dot === 'face' ? 'FaceDot' : 'SideDot'));
       page.drawCircle({ x: centre.x, y: centre.y, size: mmToPt(item.radiusMm), borderWidth: PENS.marker.widthPt, borderColor: rgb(0, 0, 0) });
+      page.pushOperators(endMarkedContent());
     } else if (item.kind === 'label' && visible([item.centre])) {
       const centre = toPage(item.centre);
       const width = monoWidth(item.text, item.sizePt);

@@ -1,5 +1,6 @@
 import { formatLength } from '~/lib/format/units';
-import type { Layout, Point, Segment } from '~/lib/geometry/layout';
+import type { Layout, Segment } from '~/lib/geometry/layout';
+import { boardPicture, partsOn, pictureBounds, type LineRole, type PictureLayer } from '~/lib/picture/board-picture';
 
 /**
  * A read-only drawing of a computed layout for the proof page, as plain data an SVG template
@@ -28,11 +29,15 @@ export interface ProofDrawing {
   height: number;
   outline: string;
   strings: DrawingLine[];
+  /** Every fret line, the zero fret first as fret 0 when the design has one. */
   frets: DrawingFret[];
   nut: DrawingLine;
   saddle: DrawingLine;
+  /** The uncompensated nut and saddle lines, where compensation moves them. */
+  references: DrawingLine[];
   centreLine: DrawingLine;
-  dots: { x: number; y: number; r: number }[];
+  /** Face dots and side dots at their real diameters (design units). */
+  dots: { x: number; y: number; r: number; side: boolean }[];
   /** A thin stroke that reads at any zoom, in design units. */
   stroke: number;
 }
@@ -41,7 +46,9 @@ function line(segment: Segment): DrawingLine {
   return { x1: segment.start.x, y1: segment.start.y, x2: segment.end.x, y2: segment.end.y };
 }
 
-function fretReadout(layout: Layout, fret: Layout['frets'][number]): string {
+function fretReadout(layout: Layout, number: number): string {
+  const fret = layout.frets.find((f) => f.number === number);
+  if (!fret) return 'Fret 0: the zero fret, where the nut would be';
   const first = fret.points[0];
   const last = fret.points[fret.points.length - 1];
   const along = (p: typeof first) => (p ? formatLength(p.fromNut, layout.units, true) : '');
@@ -50,30 +57,29 @@ function fretReadout(layout: Layout, fret: Layout['frets'][number]): string {
     : `Fret ${fret.number}: ${along(first)} from the nut`;
 }
 
-/** Builds the proof drawing of `layout`; pure, no DOM. */
+/** Builds the proof drawing of `layout` from its board picture; pure, no DOM. */
 export function proofDrawing(layout: Layout): ProofDrawing {
-  const corners: Point[] = [...layout.outline, layout.saddleLine.start, layout.saddleLine.end, ...layout.strings.flatMap((s) => [s.nut, s.saddle])];
-  const xs = corners.map((p) => p.x);
-  const ys = corners.map((p) => p.y);
-  const minX = Math.min(...xs);
-  const maxX = Math.max(...xs);
-  const minY = Math.min(...ys);
-  const maxY = Math.max(...ys);
-  const margin = (maxX - minX) * 0.02;
-  const width = maxX - minX + 2 * margin;
-  const height = maxY - minY + 2 * margin;
-  const stroke = width / 1500;
+  const picture = boardPicture(layout);
+  const box = pictureBounds(picture, ['outline', 'strings', 'saddle', 'face-dots', 'side-dots']);
+  const margin = (box.maxX - box.minX) * 0.02;
+  const width = box.maxX - box.minX + 2 * margin;
+  const height = box.maxY - box.minY + 2 * margin;
+  const lines = (layer: PictureLayer, role: LineRole) => partsOn(picture, layer, 'line').filter((part) => part.role === role);
+  const only = (layer: PictureLayer, role: LineRole) => line(lines(layer, role)[0]!.segment);
   return {
-    viewBox: `${minX - margin} ${-(maxY + margin)} ${width} ${height}`,
+    viewBox: `${box.minX - margin} ${-(box.maxY + margin)} ${width} ${height}`,
     width,
     height,
     outline: layout.outline.map((p) => `${p.x},${p.y}`).join(' '),
-    strings: layout.strings.map((s) => line({ start: s.nut, end: s.saddle })),
-    frets: layout.frets.map((fret) => ({ number: fret.number, line: line(fret.line), readout: fretReadout(layout, fret) })),
-    nut: line(layout.nutLine),
-    saddle: line(layout.saddleLine),
-    centreLine: line(layout.centreLine),
-    dots: layout.markers.flatMap((m) => m.dots.map((d) => ({ x: d.x, y: d.y, r: stroke * 6 }))),
-    stroke,
+    strings: lines('strings', 'string').map((part) => line(part.segment)),
+    frets: lines('frets', 'fret').map((part) => ({ number: part.fret!, line: line(part.segment), readout: fretReadout(layout, part.fret!) })),
+    nut: only('nut', 'nut'),
+    saddle: only('saddle', 'saddle'),
+    references: [...lines('nut', 'nut-uncompensated'), ...lines('saddle', 'saddle-uncompensated')].map((part) => line(part.segment)),
+    centreLine: only('centre-line', 'centre-line'),
+    dots: (['face-dots', 'side-dots'] as const).flatMap((layer) =>
+      partsOn(picture, layer, 'circle').map((dot) => ({ x: dot.centre.x, y: dot.centre.y, r: dot.diameter / 2, side: layer === 'side-dots' })),
+    ),
+    stroke: width / 1500,
   };
 }

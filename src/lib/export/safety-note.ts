@@ -6,7 +6,7 @@
 /** Printed on every page of the paper template. */
 export const PRINT_CAUTION = 'Print at 100 % / actual size. Measure both bars before cutting.';
 
-/** For machine exports (DXF, SVG) and beside the download buttons. */
+/** For every machine export (slot paths and index template, DXF, SVG and PDF) and beside the download buttons. */
 export const MACHINE_SAFETY_NOTES: readonly string[] = [
   'Verify units and scale on scrap or a test piece before cutting the good blank.',
   'Secure the work: clamp the blank or template; never hold small parts by hand at a blade or cutter.',
@@ -15,8 +15,8 @@ export const MACHINE_SAFETY_NOTES: readonly string[] = [
   "Follow the machine maker's instructions and your local workshop rules; they come first.",
 ];
 
-/** One line for a file comment, naming the units the file is drawn in. */
-export function machineCaution(units: 'mm' | 'in'): string {
+/** One line for a file comment, naming what the file is and the units it is drawn in. */
+export function machineCaution(units: 'mm' | 'in', what: 'slot paths' | 'index template'): string {
   const unitName = units === 'mm' ? 'millimetres' : 'inches';
-  return `Kerfline slot paths. Units: ${unitName} (${units}), drawn 1:1. CAUTION: ${MACHINE_SAFETY_NOTES.join(' ')}`;
+  return `Kerfline ${what}. Units: ${unitName} (${units}), drawn 1:1. CAUTION: ${MACHINE_SAFETY_NOTES.join(' ')}`;
 }

@@ -3,13 +3,13 @@
  * nut toward the bridge, +y up the page = the bass side, or the treble side when mirrored).
  * The PDF writer draws these 1:1; nothing here knows about pages.
  */
-import { formatLength, fromMm, toMm } from '~/lib/format/units';
+import { formatLength, toMm } from '~/lib/format/units';
 import type { Layout, Point, Segment } from '~/lib/geometry/layout';
 import { distance, intersectLines } from '~/lib/geometry/plane';
+import { boardPicture, boundsOf, type Box } from '~/lib/picture/board-picture';
 import type { ExportOptions } from '~/lib/schemas/export-options';
 import { kerfOutline } from './kerf-outline';
 import { ptToMm } from './paper-sizes';
-import type { Box } from './tile-pages';
 
 export type LineStyle =
   | 'outline'
@@ -27,7 +27,7 @@ export type SheetItem =
   /** `fret` is set on fret lines (0 for a zero fret). */
   | { kind: 'line'; style: LineStyle; start: Point; end: Point; fret?: number }
   | { kind: 'polygon'; style: 'outline' | 'kerf'; points: Point[] }
-  | { kind: 'circle'; style: 'marker'; centre: Point; radiusMm: number }
+  | { kind: 'circle'; style: 'marker'; dot: 'face' | 'side'; centre: Point; radiusMm: number }
   | { kind: 'label'; text: string; centre: Point; sizePt: number };
 
 export interface SheetDrawing {
@@ -35,16 +35,11 @@ export interface SheetDrawing {
   bounds: Box;
 }
 
-/** Face dot and side dot marks (mm): position marks, not inlay sizes. */
-const MARKER_RADIUS_MM = { face: 2, side: 0.8 } as const;
 /** Fret numbers sit this far beyond the treble edge (mm). */
 const LABEL_OFFSET_MM = 4;
 const LABEL_SIZE_PT = 7;
 /** JetBrains Mono advances 0.6 em per character. */
 const MONO_ADVANCE_EM = 0.6;
-
-/** Distinct nut/saddle lines are drawn only when compensation moves them further than this (mm). */
-const SAME_LINE_MM = 1e-6;
 
 /** How far the saddle marks run past the board end along the outer strings (mm). */
 const SADDLE_MARK_MM = 12;
@@ -63,57 +58,21 @@ export function sheetDrawing(
 ): SheetDrawing {
   const flip = options.mirror ? -1 : 1;
   const sheet = (p: Point): Point => ({ x: toMm(p.x, layout.units), y: flip * toMm(p.y, layout.units) });
-  const line = (style: LineStyle, segment: Segment, fret?: number): SheetItem => ({
-    kind: 'line',
-    style,
-    start: sheet(segment.start),
-    end: sheet(segment.end),
-    ...(fret === undefined ? {} : { fret }),
-  });
+  const picture = boardPicture(layout, { to: options.toSaddle ? 'saddle' : 'board-end' });
   const slotWidthMm = toMm(layout.slotWidth, layout.units);
-  const items: SheetItem[] = [{ kind: 'polygon', style: 'outline', points: layout.outline.map(sheet) }];
-
-  const fretLines: { number: number; line: Segment; slot: Segment }[] = layout.frets.map((fret) => ({
-    number: fret.number,
-    line: fret.line,
-    slot: fret.slot,
-  }));
-  if (layout.zeroFret) fretLines.unshift({ number: 0, ...layout.zeroFret });
-  if (options.kerf) {
-    for (const fret of fretLines) {
-      const slot = { start: sheet(fret.slot.start), end: sheet(fret.slot.end) };
-      items.push({ kind: 'polygon', style: 'kerf', points: kerfOutline(slot, slotWidthMm) });
+  const items: SheetItem[] = [];
+  for (const part of picture.parts) {
+    if (part.kind === 'polygon') items.push({ kind: 'polygon', style: 'outline', points: part.points.map(sheet) });
+    else if (part.kind === 'circle') items.push({ kind: 'circle', style: 'marker', dot: part.layer === 'face-dots' ? 'face' : 'side', centre: sheet(part.centre), radiusMm: toMm(part.diameter, layout.units) / 2 });
+    else if (part.kind === 'text') items.push(fretNumber(part.text, sheet(part.at), sheet(part.away)));
+    else if (part.role === 'slot') {
+      if (options.kerf) items.push({ kind: 'polygon', style: 'kerf', points: kerfOutline({ start: sheet(part.segment.start), end: sheet(part.segment.end) }, slotWidthMm) });
+    } else if (part.role !== 'string' || options.strings) {
+      items.push({ kind: 'line', style: part.role, start: sheet(part.segment.start), end: sheet(part.segment.end), ...(part.fret === undefined ? {} : { fret: part.fret }) });
     }
   }
-  // Without the saddle, strings and the centre line stop at the board end.
-  const endOf = (from: Point, to: Point): Point =>
-    options.toSaddle ? to : intersectLines(from, to, layout.boardEnd.start, layout.boardEnd.end);
-  if (options.strings) {
-    for (const string of layout.strings) items.push(line('string', { start: string.nut, end: endOf(string.nut, string.saddle) }));
-  }
-  items.push(line('centre-line', { start: layout.centreLine.start, end: endOf(layout.centreLine.start, layout.centreLine.end) }));
-  items.push(line('nut', layout.nutLine));
-  if (differs(layout.nutLine, layout.uncompensated.nutLine, layout)) {
-    items.push(line('nut-uncompensated', layout.uncompensated.nutLine));
-  }
-  if (options.toSaddle) {
-    items.push(line('saddle', layout.saddleLine));
-    if (differs(layout.saddleLine, layout.uncompensated.saddleLine, layout)) {
-      items.push(line('saddle-uncompensated', layout.uncompensated.saddleLine));
-    }
-  } else {
-    items.push(...saddleMarks(layout, sheet));
-  }
+  if (!options.toSaddle) items.push(...saddleMarks(layout, sheet));
   items.push(...stringNumbers(layout, sheet), ...sideNames(layout, sheet));
-  for (const fret of fretLines) {
-    const drawn = line('fret', fret.line, fret.number);
-    items.push(drawn);
-    if (drawn.kind === 'line') items.push(fretNumber(String(fret.number), drawn.start, drawn.end));
-  }
-  for (const marker of layout.markers) {
-    for (const dot of marker.dots) items.push({ kind: 'circle', style: 'marker', centre: sheet(dot), radiusMm: MARKER_RADIUS_MM.face });
-    items.push({ kind: 'circle', style: 'marker', centre: sheet(marker.side), radiusMm: MARKER_RADIUS_MM.side });
-  }
   items.push(endLabel('nut', sheet(layout.nutLine.end), sheet(layout.nutLine.start)));
   if (options.toSaddle) items.push(endLabel('saddle', sheet(layout.saddleLine.end), sheet(layout.saddleLine.start)));
   return { items, bounds: drawingBounds(items) };
@@ -162,18 +121,10 @@ function sideNames(layout: Layout, sheet: (p: Point) => Point): SheetItem[] {
   return [beside(layout.edges.treble, layout.edges.bass, 'treble side'), beside(layout.edges.bass, layout.edges.treble, 'bass side')];
 }
 
-/** Whether `other`'s end points lie off the infinite line through `drawn` (compared in mm). */
-function differs(drawn: Segment, other: Segment, layout: Layout): boolean {
-  const dx = drawn.end.x - drawn.start.x;
-  const dy = drawn.end.y - drawn.start.y;
-  const length = Math.hypot(dx, dy);
-  const offLine = (p: Point) => Math.abs((p.x - drawn.start.x) * dy - (p.y - drawn.start.y) * dx) / length;
-  return Math.max(offLine(other.start), offLine(other.end)) > fromMm(SAME_LINE_MM, layout.units);
-}
-
-/** Fret number just beyond the treble end of the fret line (`start` is the treble edge). */
-function fretNumber(text: string, treble: Point, bass: Point): SheetItem {
-  return { kind: 'label', text, centre: beyond(treble, bass, LABEL_OFFSET_MM), sizePt: LABEL_SIZE_PT };
+/** Fret number beyond the treble end of the fret line; `away` is the picture's direction in board units. */
+function fretNumber(text: string, treble: Point, away: Point): SheetItem {
+  const origin = { x: treble.x - away.x, y: treble.y - away.y };
+  return { kind: 'label', text, centre: beyond(treble, origin, LABEL_OFFSET_MM), sizePt: LABEL_SIZE_PT };
 }
 
 /** A word beyond the `outer` end of a line, away from `inner`. */
@@ -193,29 +144,17 @@ export function labelHalfWidthMm(text: string, sizePt: number): number {
   return ptToMm(text.length * MONO_ADVANCE_EM * sizePt) / 2;
 }
 
+/** Every item's extent in sheet mm, a label's from its printed size, through the picture's one box. */
 function drawingBounds(items: readonly SheetItem[]): Box {
-  const box: Box = { minX: Infinity, minY: Infinity, maxX: -Infinity, maxY: -Infinity };
-  const add = (x: number, y: number) => {
-    box.minX = Math.min(box.minX, x);
-    box.minY = Math.min(box.minY, y);
-    box.maxX = Math.max(box.maxX, x);
-    box.maxY = Math.max(box.maxY, y);
-  };
-  for (const item of items) {
-    if (item.kind === 'line') {
-      add(item.start.x, item.start.y);
-      add(item.end.x, item.end.y);
-    } else if (item.kind === 'polygon') {
-      for (const point of item.points) add(point.x, point.y);
-    } else if (item.kind === 'circle') {
-      add(item.centre.x - item.radiusMm, item.centre.y - item.radiusMm);
-      add(item.centre.x + item.radiusMm, item.centre.y + item.radiusMm);
-    } else {
-      const halfWidth = labelHalfWidthMm(item.text, item.sizePt);
-      const halfHeight = ptToMm(item.sizePt) / 2;
-      add(item.centre.x - halfWidth, item.centre.y - halfHeight);
-      add(item.centre.x + halfWidth, item.centre.y + halfHeight);
-    }
-  }
-  return box;
+  return boundsOf(
+    items.flatMap((item): Point[] => {
+      if (item.kind === 'line') return [item.start, item.end];
+      if (item.kind === 'polygon') return item.points;
+      const half = item.kind === 'circle' ? { x: item.radiusMm, y: item.radiusMm } : { x: labelHalfWidthMm(item.text, item.sizePt), y: ptToMm(item.sizePt) / 2 };
+      return [
+        { x: item.centre.x - half.x, y: item.centre.y - half.y },
+        { x: item.centre.x + half.x, y: item.centre.y + half.y },
+      ];
+    }),
+  );
 }

@@ -3,8 +3,9 @@
  * to the chosen origin. Pure data; dxf.server.ts and svg.ts write it out, so both files carry the
  * same layers and the same numbers.
  */
-import { fromMm, type LengthUnit } from '~/lib/format/units';
+import type { LengthUnit } from '~/lib/format/units';
 import type { Layout, Point, Segment } from '~/lib/geometry/layout';
+import { boardPicture, boundsOf, partsOn, type Box, type LineRole, type PictureLayer } from '~/lib/picture/board-picture';
 import type { ExportOptions } from '~/lib/schemas/export-options';
 import { kerfOutline } from './kerf-outline';
 
@@ -17,6 +18,8 @@ export interface LayerPaths {
   lines: Segment[];
   /** Closed outlines (the last point joins the first). */
   closed: Point[][];
+  /** Dots at their real diameter (face dots and side dots, on the markers layer). */
+  circles: { centre: Point; diameter: number }[];
 }
 
 export interface SlotPaths {
@@ -28,9 +31,6 @@ export interface SlotPaths {
   layers: Record<SlotPathLayer, LayerPaths>;
 }
 
-/** Half the arm of the cross that marks each face dot and side dot centre: 1.5 mm. */
-const MARKER_ARM_MM = 1.5;
-
 /**
  * Sorts a layout onto layers. Slots are single lines along each fret's slot (stopped short of the
  * edges when the design says so), or closed outlines of the slot width around them.
@@ -38,51 +38,41 @@ const MARKER_ARM_MM = 1.5;
  * lowest y to 0.
  */
 export function slotPaths(layout: Layout, options: Pick<ExportOptions, 'slots' | 'origin'>): SlotPaths {
-  const offset =
-    options.origin === 'lower-left'
-      ? {
-          x: -Math.min(...layout.outline.map((p) => p.x)),
-          y: -Math.min(...layout.outline.map((p) => p.y)),
-        }
-      : { x: 0, y: 0 };
+  const board = boundsOf(layout.outline);
+  const offset = options.origin === 'lower-left' ? { x: -board.minX, y: -board.minY } : { x: 0, y: 0 };
   const move = (p: Point): Point => ({ x: p.x + offset.x, y: p.y + offset.y });
   const moveSegment = (s: Segment): Segment => ({ start: move(s.start), end: move(s.end) });
 
-  const slots = layout.frets.map((fret) => fret.slot);
-  if (layout.zeroFret) slots.unshift(layout.zeroFret.slot);
-  const arm = fromMm(MARKER_ARM_MM, layout.units);
-  const crosses = layout.markers
-    .flatMap((marker) => [...marker.dots, marker.side])
-    .flatMap((c) => [
-      { start: { x: c.x - arm, y: c.y }, end: { x: c.x + arm, y: c.y } },
-      { start: { x: c.x, y: c.y - arm }, end: { x: c.x, y: c.y + arm } },
-    ]);
+  const picture = boardPicture(layout);
+  const drawn = (layer: PictureLayer, role: LineRole) =>
+    partsOn(picture, layer, 'line')
+      .filter((part) => part.role === role)
+      .map((part) => moveSegment(part.segment));
+  const slots = drawn('slots', 'slot');
+  const dots = [...partsOn(picture, 'face-dots', 'circle'), ...partsOn(picture, 'side-dots', 'circle')];
 
-  const empty = (): LayerPaths => ({ lines: [], closed: [] });
+  const empty = (): LayerPaths => ({ lines: [], closed: [], circles: [] });
   const layers: Record<SlotPathLayer, LayerPaths> = {
-    outline: { lines: [], closed: [layout.outline.map(move)] },
-    slots:
-      options.slots === 'outlines'
-        ? { lines: [], closed: slots.map((slot) => kerfOutline(moveSegment(slot), layout.slotWidth)) }
-        : { lines: slots.map(moveSegment), closed: [] },
-    'centre-line': { ...empty(), lines: [moveSegment(layout.centreLine)] },
-    nut: { ...empty(), lines: [moveSegment(layout.nutLine)] },
-    saddle: { ...empty(), lines: [moveSegment(layout.saddleLine)] },
-    markers: { ...empty(), lines: crosses.map(moveSegment) },
+    outline: { ...empty(), closed: partsOn(picture, 'outline', 'polygon').map((part) => part.points.map(move)) },
+    slots: options.slots === 'outlines' ? { ...empty(), closed: slots.map((slot) => kerfOutline(slot, layout.slotWidth)) } : { ...empty(), lines: slots },
+    'centre-line': { ...empty(), lines: drawn('centre-line', 'centre-line') },
+    nut: { ...empty(), lines: drawn('nut', 'nut') },
+    saddle: { ...empty(), lines: drawn('saddle', 'saddle') },
+    markers: { ...empty(), circles: dots.map((dot) => ({ centre: move(dot.centre), diameter: dot.diameter })) },
   };
   return { name: layout.name, units: layout.units, scaleAlong: layout.scaleAlong, offset, layers };
 }
 
-/** The extent of every path on every layer. */
-export function slotPathBounds(paths: SlotPaths): { minX: number; minY: number; maxX: number; maxY: number } {
-  const points = SLOT_PATH_LAYERS.flatMap((layer) => [
-    ...paths.layers[layer].lines.flatMap((s) => [s.start, s.end]),
-    ...paths.layers[layer].closed.flat(),
-  ]);
-  return {
-    minX: Math.min(...points.map((p) => p.x)),
-    minY: Math.min(...points.map((p) => p.y)),
-    maxX: Math.max(...points.map((p) => p.x)),
-    maxY: Math.max(...points.map((p) => p.y)),
-  };
+/** The extent of every path on every layer (a dot's whole circle). */
+export function slotPathBounds(paths: SlotPaths): Box {
+  return boundsOf(
+    SLOT_PATH_LAYERS.flatMap((layer) => [
+      ...paths.layers[layer].lines.flatMap((s) => [s.start, s.end]),
+      ...paths.layers[layer].closed.flat(),
+      ...paths.layers[layer].circles.flatMap(({ centre, diameter }) => [
+        { x: centre.x - diameter / 2, y: centre.y - diameter / 2 },
+        { x: centre.x + diameter / 2, y: centre.y + diameter / 2 },
+      ]),
+    ]),
+  );
 }

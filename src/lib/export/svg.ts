@@ -19,19 +19,20 @@ export function slotPathsSvg(paths: SlotPaths): string {
   const height = box.maxY - box.minY;
   const point = (p: Point) => `${num(p.x)} ${num(-p.y)}`;
   const groups = SLOT_PATH_LAYERS.map((layer) => {
-    const { lines, closed } = paths.layers[layer];
+    const { lines, closed, circles } = paths.layers[layer];
     const elements = [
       ...lines.map(
         (s) => `<line x1="${num(s.start.x)}" y1="${num(-s.start.y)}" x2="${num(s.end.x)}" y2="${num(-s.end.y)}"/>`,
       ),
       ...closed.map((points) => `<path d="M ${points.map(point).join(' L ')} Z"/>`),
+      ...circles.map(({ centre, diameter }) => `<circle cx="${num(centre.x)}" cy="${num(-centre.y)}" r="${num(diameter / 2)}"/>`),
     ];
     return `<g id="${layer}">\n${elements.map((e) => `  ${e}`).join('\n')}\n</g>`;
   });
   return [
     '<?xml version="1.0" encoding="UTF-8"?>',
     `<!-- ${escapeComment(`${capitalised(scaleConventionWords(paths.scaleAlong))}.`)} -->`,
-    `<!-- ${escapeComment(machineCaution(paths.units))} -->`,
+    `<!-- ${escapeComment(machineCaution(paths.units, 'slot paths'))} -->`,
     `<svg xmlns="http://www.w3.org/2000/svg" width="${num(width)}${paths.units}" height="${num(height)}${paths.units}" ` +
       `viewBox="${num(box.minX)} ${num(-box.maxY)} ${num(width)} ${num(height)}" ` +
       `fill="none" stroke="#000" stroke-width="${num(fromMm(STROKE_MM, paths.units))}" stroke-linecap="round">`,

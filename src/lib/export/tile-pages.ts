@@ -11,12 +11,9 @@ import { EXPORT_LIMITS } from './export-limits';
 import { drawingWindow, fitWindowLimit, PAGE_FRAME_MM } from './page-frame';
 import { PAPER_SIZES, mmToPt, type PaperName, type SheetPaperName } from './paper-sizes';
 
-export interface Box {
-  minX: number;
-  minY: number;
-  maxX: number;
-  maxY: number;
-}
+import type { Box } from '~/lib/picture/board-picture';
+
+export type { Box };
 
 export type Orientation = 'portrait' | 'landscape';
 

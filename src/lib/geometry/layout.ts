@@ -81,6 +81,8 @@ export interface Layout {
   /** From the drawn nut line to the drawn saddle line, along y = 0. */
   centreLine: Segment;
   markers: LayoutMarker[];
+  /** Face dot and side dot diameters, in the design's units. */
+  dotDiameters: { face: number; side: number };
   warnings: LayoutWarning[];
 }
 
@@ -241,6 +243,7 @@ export function computeLayout(design: Design): Layout {
     outline: board.outline,
     centreLine,
     markers: layoutMarkers(design.markers, spans, edgeLines),
+    dotDiameters: { face: design.faceDotDiameter, side: design.sideDotDiameter },
     warnings: layoutWarnings({
       units: design.units,
       slotWidth: design.slot.width,

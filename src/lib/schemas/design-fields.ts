@@ -108,6 +108,8 @@ export const DESIGN_FIELDS = [
     label: 'The board end runs',
     help: 'The direction of the cut across the board end.',
   },
+  { path: 'faceDotDiameter', kind: 'length', sign: 'positive', defaultMm: 6, maxMm: 50, group: 'Board', label: 'Face dot diameter', help: 'Diameter of each face dot inlay; every drawing and export draws the dots this size.' },
+  { path: 'sideDotDiameter', kind: 'length', sign: 'positive', defaultMm: 2, maxMm: 20, group: 'Board', label: 'Side dot diameter', help: 'Diameter of each side dot on the bass edge; every drawing and export draws the dots this size.' },
   { path: 'slot.width', kind: 'length', sign: 'positive', defaultMm: 0.6, maxMm: 10, group: 'Slots', label: 'Slot width (kerf)', help: 'The width the saw or cutter leaves.' },
   { path: 'slot.overrun', kind: 'length', sign: 'nonNegative', defaultMm: 0, maxMm: 20, group: 'Slots', label: 'Through slots run past each edge by', help: 'Along the slot, so a slanted kerf clears the board corner; 1 mm suits most CNC work.' },
   { path: 'slot.stopped', kind: 'flag', default: false, group: 'Slots', label: 'Stopped slots (end short of both board edges)', help: 'Slots that stop before the edges, as for bound or hidden-tang boards.' },

@@ -10,6 +10,7 @@ import { db } from '~/lib/db/client.server';
 import { templateDesign } from '~/lib/db/templates.server';
 import { tooLarge } from '~/lib/export/design-export.server';
 import { indexTemplateCost, labelCost, refuseOverCap } from '~/lib/export/export-cost';
+import { attachmentHeader, exportFileName } from '~/lib/export/file-name';
 import { indexTemplateStrip } from '~/lib/export/index-template';
 import { indexTemplateDxf } from '~/lib/export/index-template-dxf.server.ts';
 import { LABEL_SIZES, labelSize } from '~/lib/export/index-template-label.server';
@@ -22,12 +23,6 @@ import type { Design } from '~/lib/schemas/design';
 import { FAN_GEOMETRY_LABELS, fanGeometrySchema, type TemplateView } from '~/lib/schemas/template';
 import { fannedStandInDesign } from '~/lib/template-check/template-design';
 import { shelfTemplate, type Allowed } from './route-context.server';
-
-/** A file name from the template's name: letters, digits and dashes only. */
-function fileStem(name: string, id: number): string {
-  const stem = name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60);
-  return stem ? `${stem}-${id}` : `template-${id}`;
-}
 
 export function labelRoute(user: SessionUser | null, id: string | undefined, url: URL, signal?: AbortSignal): Promise<Response> {
   return answerOrServerError('The label', () => label(user, id, url, signal));
@@ -43,7 +38,7 @@ async function label(user: SessionUser | null, id: string | undefined, url: URL,
   if (refusal) return tooLarge(refusal);
   const { template } = found.value;
   const content = { ...template, url: `${config().appOrigin}/templates/${template.id}` };
-  const run = await runExport({ kind: 'label', content, size, filename: `${fileStem(template.name, template.id)}-label-${size.id}.pdf` }, signal);
+  const run = await runExport({ kind: 'label', content, size, filename: exportFileName(template.name, { kind: 'label', templateId: template.id, size: size.id }) }, signal);
   return run.ok ? pdfResponse(run.file.bytes, run.file.filename) : run.response;
 }
 
@@ -60,7 +55,7 @@ async function indexTemplate(user: SessionUser | null, id: string | undefined, u
   const design = await stripDesign(found.value.user.shopId, template, url);
   if (!design.ok) return design.response;
   const strip = indexTemplateStrip(design.value.design, template.keyWidth, { revision: design.value.revision });
-  const stem = `${fileStem(template.name, template.id)}-index-template`;
+  const fileName = (format: 'pdf' | 'dxf') => exportFileName(template.name, { kind: 'index-template', templateId: template.id, format });
   const cost = indexTemplateCost(strip, format === 'pdf' ? indexTemplatePage(strip).pageSize : null);
   const refusal = refuseOverCap(cost, 'this index template', 'format', 'use format=dxf, which has no page size');
   if (refusal) return tooLarge(refusal);
@@ -69,12 +64,12 @@ async function indexTemplate(user: SessionUser | null, id: string | undefined, u
       status: 200,
       headers: {
         'content-type': 'application/dxf',
-        'content-disposition': `attachment; filename="${stem}.dxf"`,
+        'content-disposition': attachmentHeader(fileName('dxf')),
         'cache-control': 'no-store',
       },
     });
   }
-  const run = await runExport({ kind: 'index-template', strip, filename: `${stem}.pdf` }, signal);
+  const run = await runExport({ kind: 'index-template', strip, filename: fileName('pdf') }, signal);
   return run.ok ? pdfResponse(run.file.bytes, run.file.filename) : run.response;
 }
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { boardFile, fileStem, readBoardFile } from '~/lib/boards/board-file.ts';
+import { boardFile, readBoardFile } from '~/lib/boards/board-file.ts';
+import { exportFileName } from '~/lib/export/file-name';
 import { scaleText } from '~/components/boards/board-labels.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 
@@ -24,8 +25,8 @@ describe('board JSON file', () => {
   });
 
   it('makes file names of letters, digits and dashes', () => {
-    expect(fileStem('Demo: seven-string, 648/686 mm', 3)).toBe('demo-seven-string-648-686-mm-r3');
-    expect(fileStem('***', 1)).toBe('board-r1');
+    expect(exportFileName('Demo: seven-string, 648/686 mm', { kind: 'board-file', revision: 3 })).toBe('Demo-seven-string-648-686-mm-r3.json');
+    expect(exportFileName('***', { kind: 'board-file', revision: 1 })).toBe('design-r1.json');
   });
 
   it('shows one scale or a treble–bass range in the design units (0.01 mm, 0.001 in)', () => {

@@ -17,8 +17,8 @@ describe('board thumbnail SVG', () => {
         expect(-p.y).toBeGreaterThanOrEqual(y);
         expect(-p.y).toBeLessThanOrEqual(y + h);
       }
-      // Frets, the nut and the two outer strings.
-      expect(svg.match(/<line /g)).toHaveLength(design.frets + 3);
+      // Frets (and the zero fret), the nut, the two outer strings and the centre line.
+      expect(svg.match(/<line /g)).toHaveLength(design.frets + (design.zeroFret ? 1 : 0) + 4);
     });
   }
 });

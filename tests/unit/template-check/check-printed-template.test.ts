@@ -2,9 +2,8 @@
  * A template made exactly to the design passes whichever line it is measured along. The paper
  * template is printed with the real PDF export and measured back from its vectors (read with
  * pdfjs-dist, an independent PDF reader): the fret lines (marked content Fret<n>), the nut line
- * (the 0.8 pt solid line nearest the nut end) or the zero fret (Fret0), the edges (through the
- * fret lines' ends, which run edge to edge), the centre line (the dashed 0.3 pt line) and the
- * strings (solid 0.3 pt lines).
+ * (Nut) or the zero fret (Fret0), the edges (through the fret lines' ends, which run edge to
+ * edge), the centre line (CentreLine) and the strings (the untagged solid 0.3 pt lines).
  *
  * Precision: pdf-lib writes coordinates with every digit of the double, but pdfjs-dist hands path
  * coordinates back as 32-bit floats (24-bit significand), so read-back points are only good to
@@ -115,17 +114,13 @@ async function fromPdf(design: Design): Promise<Measured> {
     ['treble-edge', { a: first.a, b: last.a }],
     ['bass-edge', { a: first.b, b: last.b }],
   ]);
+  // The PDF tags its centre line and nut line (CentreLine, Nut); strings are the untagged thin solid lines.
+  lines.set('centre-line', tagged('CentreLine'));
   const pens = page!.untagged.map((s) => ({ pen: s, line: line(s) }));
-  const centre = pens.filter((p) => p.pen.dashed && p.pen.widthPt === 0.3);
-  expect(centre).toHaveLength(1);
-  lines.set('centre-line', centre[0]!.line);
   const strings = pens.filter((p) => !p.pen.dashed && p.pen.widthPt === 0.3).sort((p, q) => p.line.a.y - q.line.a.y);
   expect(strings).toHaveLength(design.strings);
   strings.forEach((s, i) => lines.set(`string-${i + 1}`, s.line));
-  const heavy = pens.filter((p) => !p.pen.dashed && p.pen.widthPt === 0.8).sort((p, q) => p.line.a.x + p.line.b.x - (q.line.a.x + q.line.b.x));
-  // The nut, and the saddle mark on each outer string (by default the template stops at the board end).
-  expect(heavy).toHaveLength(3);
-  const nut = design.zeroFret ? tagged('Fret0') : heavy[0]!.line;
+  const nut = design.zeroFret ? tagged('Fret0') : tagged('Nut');
   return { lines, nut, frets, readBackStep: float32StepMm / mmPerUnit };
 }
 

@@ -2,6 +2,7 @@ import DxfParser from 'dxf-parser';
 import { describe, expect, it } from 'vitest';
 import { indexTemplateStrip } from '~/lib/export/index-template';
 import { INDEX_TEMPLATE_LAYERS, indexTemplateDxf } from '~/lib/export/index-template-dxf.server.ts';
+import { dxfComments } from '../../support/dxf-comments';
 import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server';
 import { computeLayout } from '~/lib/geometry/layout';
 import { designOf } from '../../support/design-builders';
@@ -33,12 +34,12 @@ describe('index template DXF (read back with dxf-parser)', () => {
   it('declares millimetres ($INSUNITS 4), has the named layers and one slot per fret plus the nut slot', () => {
     expect(dxf.header['$INSUNITS']).toBe(4);
     expect(dxf.layers.sort()).toEqual(Object.values(INDEX_TEMPLATE_LAYERS).sort());
-    expect(dxf.entities.filter((e) => e.layer === 'SLOTS')).toHaveLength(19);
-    expect(dxf.entities.filter((e) => e.layer === 'NUT')).toHaveLength(1);
+    expect(dxf.entities.filter((e) => e.layer === 'slots')).toHaveLength(19);
+    expect(dxf.entities.filter((e) => e.layer === 'nut')).toHaveLength(1);
   });
 
   it('puts every slot centre line at L (1 - 2^(-n/12)) from the nut within 1e-9 mm (Varieschi & Gower, Am. J. Phys. 78, 2010)', () => {
-    const centres = dxf.entities.filter((e) => e.layer === 'SLOT_CENTRES');
+    const centres = dxf.entities.filter((e) => e.layer === 'slot-centres');
     expect(centres).toHaveLength(20);
     for (let fret = 1; fret <= 19; fret++) {
       const line = centres.find((e) => Math.abs(e.vertices[0]!.x - closedForm(650, fret)) < 1e-6);
@@ -50,18 +51,19 @@ describe('index template DXF (read back with dxf-parser)', () => {
   });
 
   it('makes each slot as wide as the jig key (0.6 mm), not the saw kerf (0.6 mm here vs the design 0.55 mm default)', () => {
-    const slots = dxf.entities.filter((e) => e.layer === 'SLOTS');
+    const slots = dxf.entities.filter((e) => e.layer === 'slots');
     for (const slot of slots) {
       const [a, , , d] = slot.vertices;
       expectNear(Math.hypot(a!.x - d!.x, a!.y - d!.y), 0.6, 1e-9); // mm
     }
   });
 
-  it('engraves name and scale on their own layer and carries the machine cautions', () => {
+  it('engraves name and scale on their own layer and carries the machine cautions as 999 comments, never as TEXT', () => {
     const texts = dxf.entities.filter((e) => e.type === 'TEXT');
-    expect(texts.filter((e) => e.layer === 'ENGRAVING').map((e) => e.text)).toContain('Classical 650 - scale 650.00 mm - key 0.60 mm');
-    const notes = texts.filter((e) => e.layer === 'NOTES').map((e) => e.text).join('\n');
-    expect(notes).toMatch(/Verify units and scale on a test piece/);
+    expect(texts.filter((e) => e.layer === 'engraving').map((e) => e.text)).toContain('Classical 650 - scale 650.00 mm - key 0.60 mm');
+    expect(new Set(texts.map((e) => e.layer))).toEqual(new Set(['engraving']));
+    const notes = dxfComments(indexTemplateDxf(indexTemplateStrip(classical, 0.6))).join('\n');
+    expect(notes).toMatch(/Verify units and scale on scrap or a test piece/);
     expect(notes).toMatch(/eye and hearing protection/);
     expect(notes).toMatch(/not the saw kerf/);
   });
@@ -70,7 +72,7 @@ describe('index template DXF (read back with dxf-parser)', () => {
     const mandolin = designOf({ units: 'in', scale: { treble: 13.875, bass: 13.875 }, frets: 20, stringSpacing: { nut: 0.85, bridge: 1.45 } });
     const parsed = parseDxf(indexTemplateDxf(indexTemplateStrip(mandolin, 0.024)));
     expect(parsed.header['$INSUNITS']).toBe(1);
-    const fret12 = parsed.entities.find((e) => e.layer === 'SLOT_CENTRES' && Math.abs(e.vertices[0]!.x - 13.875 / 2) < 1e-6);
+    const fret12 = parsed.entities.find((e) => e.layer === 'slot-centres' && Math.abs(e.vertices[0]!.x - 13.875 / 2) < 1e-6);
     expectNear(fret12!.vertices[0]!.x, 13.875 / 2, 1e-12); // in: the 12th fret halves the scale
   });
 
@@ -79,7 +81,7 @@ describe('index template DXF (read back with dxf-parser)', () => {
     const layout = computeLayout(fan);
     const strip = indexTemplateStrip(fan, 0.7);
     const parsed = parseDxf(indexTemplateDxf(strip));
-    const centres = parsed.entities.filter((e) => e.layer === 'SLOT_CENTRES');
+    const centres = parsed.entities.filter((e) => e.layer === 'slot-centres');
     const [treble, bass] = [layout.strings[0]!, layout.strings[6]!];
     for (let fret = 1; fret <= 24; fret++) {
       // Expected crossings from the closed form along each outer string.
@@ -101,7 +103,7 @@ describe('index template DXF (read back with dxf-parser)', () => {
     expect(strip.slots[0]!.angleDeg).toBeLessThan(0);
     expect(strip.slots[23]!.angleDeg).toBeGreaterThan(0);
     expect(strip.notes.join(' ')).toMatch(/the jig must follow each slot's angle/);
-    expect(parsed.entities.filter((e) => e.layer === 'ENGRAVING').map((e) => e.text)).toContain('8 0.0%%d');
+    expect(parsed.entities.filter((e) => e.layer === 'engraving').map((e) => e.text)).toContain('8 0.0%%d');
   });
 });
 

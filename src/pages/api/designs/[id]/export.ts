@@ -1,9 +1,9 @@
 import type { APIRoute } from 'astro';
 import { shopName } from '~/lib/accounts/users.server.ts';
-import { boardFile, fileStem } from '~/lib/boards/board-file.ts';
+import { boardFile } from '~/lib/boards/board-file.ts';
 import { requestedBoard, storedDesign } from '~/lib/boards/board-responses.server.ts';
 import { designExportResponse } from '~/lib/export/design-export.server.ts';
-import { attachmentHeader } from '~/lib/export/file-name.ts';
+import { attachmentHeader, exportFileName } from '~/lib/export/file-name.ts';
 import { invalid } from '~/lib/http/problem.ts';
 import { answerOrServerError } from '~/lib/http/server-error.server.ts';
 import { validateExportOptions } from '~/lib/schemas/export-options.ts';
@@ -28,7 +28,7 @@ export const GET: APIRoute = ({ locals, params, url, request }) => answerOrServe
     return new Response(JSON.stringify(boardFile(board), null, 2), {
       headers: {
         'content-type': 'application/json; charset=utf-8',
-        'content-disposition': attachmentHeader(`${fileStem(board.name, board.revision)}.json`),
+        'content-disposition': attachmentHeader(exportFileName(board.name, { kind: 'board-file', revision: board.revision })),
         'cache-control': 'no-store',
       },
     });
