@@ -186,6 +186,20 @@ describe('development Outbox page', () => {
     expect(response.status).toBe(404);
     expect(await response.text()).not.toContain('Outbox');
   });
+
+  it('in demo mode is served to this machine only: a client that a trusted proxy says is elsewhere gets 404', async () => {
+    const proxied = await startBuiltServer({ env: { TRUSTED_PROXIES: 'loopback', KERFLINE_MODE: 'demo' } });
+    try {
+      const local = await fetch(`${proxied.url}/outbox`);
+      expect(local.status).toBe(200);
+      // 203.0.113.0/24 is a documentation range (RFC 5737): a header value here, no traffic goes there.
+      const remote = await fetch(`${proxied.url}/outbox`, { headers: { 'x-forwarded-for': '203.0.113.7' } });
+      expect(remote.status).toBe(404);
+      expect(await remote.text()).not.toContain('Development fake');
+    } finally {
+      await proxied.stop();
+    }
+  });
 });
 
 describe('shop settings on the Members page', () => {
