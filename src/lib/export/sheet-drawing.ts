@@ -6,6 +6,7 @@
 import { formatLength, toMm } from '~/lib/format/units';
 import type { Layout, Point, Segment } from '~/lib/geometry/layout';
 import { distance, intersectLines } from '~/lib/geometry/plane';
+import { measureLineLabel } from '~/lib/template-check/measure-lines';
 import { boardPicture, boundsOf, type Box } from '~/lib/picture/board-picture';
 import type { ExportOptions } from '~/lib/schemas/export-options';
 import { kerfOutline } from './kerf-outline';
@@ -48,8 +49,8 @@ const SIDE_LABEL_OFFSET_MM = 10;
 
 /**
  * Builds the drawing of a computed layout for the paper template: the board from the nut to its
- * end (or on to the saddle with `toSaddle`), string numbers at the nut, "treble side" and
- * "bass side" beside the edges, and, when the saddle is not drawn, a saddle mark on each outer
+ * end (or on to the saddle with `toSaddle`), string numbers at the nut, the measuring lines named
+ * as the Template check names them ("treble edge", "bass edge", "centre line"), and, when the saddle is not drawn, a saddle mark on each outer
  * string with the saddle's distance from the nut along that string.
  */
 export function sheetDrawing(
@@ -110,15 +111,31 @@ function stringNumbers(layout: Layout, sheet: (p: Point) => Point): SheetItem[] 
   });
 }
 
-/** "treble side" below the treble edge and "bass side" beyond the bass edge, halfway along. */
+/**
+ * The lines a template is measured along, named as the Template check names them: "treble edge"
+ * and "bass edge" outside the edges halfway along, "centre line" on the centre line before the nut.
+ */
 function sideNames(layout: Layout, sheet: (p: Point) => Point): SheetItem[] {
+  const strings = layout.strings.length;
   const beside = (edge: Segment, otherEdge: Segment, text: string): SheetItem => {
     const middle = sheet({ x: (edge.start.x + edge.end.x) / 2, y: (edge.start.y + edge.end.y) / 2 });
     const across = sheet({ x: (otherEdge.start.x + otherEdge.end.x) / 2, y: (otherEdge.start.y + otherEdge.end.y) / 2 });
     const outward = Math.sign(middle.y - across.y) || 1;
     return { kind: 'label', text, centre: { x: middle.x, y: middle.y + outward * SIDE_LABEL_OFFSET_MM }, sizePt: LABEL_SIZE_PT };
   };
-  return [beside(layout.edges.treble, layout.edges.bass, 'treble side'), beside(layout.edges.bass, layout.edges.treble, 'bass side')];
+  const centreText = measureLineLabel('centre-line', strings);
+  const nutOnCentre = sheet(layout.centreLine.start);
+  const centre: SheetItem = {
+    kind: 'label',
+    text: centreText,
+    centre: { x: nutOnCentre.x - 2 * LABEL_OFFSET_MM - labelHalfWidthMm(centreText, LABEL_SIZE_PT), y: nutOnCentre.y },
+    sizePt: LABEL_SIZE_PT,
+  };
+  return [
+    beside(layout.edges.treble, layout.edges.bass, measureLineLabel('treble-edge', strings)),
+    beside(layout.edges.bass, layout.edges.treble, measureLineLabel('bass-edge', strings)),
+    centre,
+  ];
 }
 
 /** Fret number beyond the treble end of the fret line; `away` is the picture's direction in board units. */

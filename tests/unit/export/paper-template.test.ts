@@ -248,13 +248,14 @@ describe('a paper template a bench can work from', () => {
     expect(drawnToSaddle).toMatch(/\bsaddle\b/);
   });
 
-  it('numbers the strings at the nut and names the treble and bass sides, mirrored or not', async () => {
+  it('numbers the strings at the nut and names the lines to measure along as the Template check does, mirrored or not', async () => {
     for (const mirror of [false, true]) {
       const { bytes } = await template(demo('seven-string-fan'), { paper: 'fit', mirror });
       const words = pageText(bytes, 1).split(/\s+/);
       for (const n of ['1', '2', '3', '4', '5', '6', '7']) expect(words).toContain(n);
-      expect(pageText(bytes, 1)).toMatch(/treble side/);
-      expect(pageText(bytes, 1)).toMatch(/bass side/);
+      expect(pageText(bytes, 1)).toMatch(/treble edge/);
+      expect(pageText(bytes, 1)).toMatch(/bass edge/);
+      expect(pageText(bytes, 1)).toMatch(/centre line/);
     }
   });
 
