@@ -49,7 +49,7 @@ describe('Boards page in Chromium (built server)', () => {
     await row.getByRole('button', { name: `History of ${design.name}` }).click();
     const history = page.getByRole('region', { name: 'Revision history' });
     await history.getByText('“Perpendicular at 7”').waitFor();
-    await history.getByRole('rowheader', { name: 'perpendicularFret' }).waitFor();
+    await history.getByRole('rowheader', { name: 'Perpendicular fret (0 = nut)' }).waitFor();
     await history.getByRole('button', { name: 'Restore revision 1' }).click();
     await history.getByText('Restored revision 1').waitFor();
     const restored = await api<BoardDetail>(`/api/designs/${board.id}`);
