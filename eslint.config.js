@@ -4,7 +4,8 @@
  * - a module without `.server` in its name is pure and browser-safe: it imports no `*.server.ts`
  *   module and no server-only package;
  * - the geometry imports only geometry, the units and the design schema;
- * - src/lib never imports pages or components, and the product never imports tests or fixtures.
+ * - src/lib never imports pages or components, and the product never imports tests or fixtures;
+ * - one import spelling: the project's own modules are named with their extension.
  */
 import tseslint from 'typescript-eslint';
 
@@ -26,6 +27,16 @@ export default tseslint.config(
     languageOptions: { parser: tseslint.parser, ecmaVersion: 'latest', sourceType: 'module' },
     plugins: { '@typescript-eslint': tseslint.plugin },
     linterOptions: { reportUnusedDisableDirectives: 'error' },
+  },
+  {
+    // One import spelling: a module of the project is named with its extension.
+    files: ['src/**/*.{ts,tsx}', 'tests/**/*.ts', 'scripts/**/*.ts', 'bench/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        { patterns: [{ regex: '^(~|\\.{1,2})/(?!.*\\.(ts|tsx|astro|json|css|mjs|md|svg|js)$)', message: 'name the module with its extension (one import spelling: ./plane.ts, ~/lib/geometry/layout.ts)' }] },
+      ],
+    },
   },
   {
     files: ['src/**/*.{ts,tsx}'],

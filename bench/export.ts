@@ -3,9 +3,9 @@
  * its slot paths DXF. Prints one JSON line per figure: {"figure","value","unit","goal"}.
  * Run with `npm run bench` (or `npx tsx bench/export.ts`).
  */
-import { exportDesign } from '~/lib/export/export-design.server';
+import { exportDesign } from '~/lib/export/export-design.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options';
+import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options.ts';
 
 const RUNS = 25;
 const WARM_UP = 3;

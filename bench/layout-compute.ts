@@ -7,8 +7,8 @@
  * them as ratios within one run.
  * Run: npx tsx bench/layout-compute.ts
  */
-import { computeLayout } from '~/lib/geometry/layout';
-import { validateDesign, type Design } from '~/lib/schemas/design';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 import { reportFigure } from './lib/figure.ts';
 
 const BATCHES = 41;

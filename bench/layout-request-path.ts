@@ -6,11 +6,11 @@
  * and what a constant answer (GET /api/version) never pays. Medians over batches after a warm-up.
  */
 import { readFileSync } from 'node:fs';
-import { LAYOUT_FORMATS } from '~/lib/export/layout-formats';
-import { LAYOUT_BODY_MAX_BYTES, handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server';
-import { computeLayout } from '~/lib/geometry/layout';
-import { readJson } from '~/lib/http/body.server';
-import { validateDesign } from '~/lib/schemas/design';
+import { LAYOUT_FORMATS } from '~/lib/export/layout-formats.ts';
+import { LAYOUT_BODY_MAX_BYTES, handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { readJson } from '~/lib/http/body.server.ts';
+import { validateDesign } from '~/lib/schemas/design.ts';
 import { reportFigure } from './lib/figure.ts';
 
 const BATCHES = 31;

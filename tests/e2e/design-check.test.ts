@@ -8,11 +8,11 @@ import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { newToken } from '~/lib/auth/index.server';
-import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser';
-import { ensureDesign } from '../support/designs';
-import { signInAs, type TestUser } from '../support/sessions';
-import { closeDb } from '../support/test-db';
+import { newToken } from '~/lib/auth/index.server.ts';
+import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
+import { ensureDesign } from '../support/designs.ts';
+import { signInAs, type TestUser } from '../support/sessions.ts';
+import { closeDb } from '../support/test-db.ts';
 
 let browser: Browser;
 let builder: TestUser;

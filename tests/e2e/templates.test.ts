@@ -6,12 +6,12 @@ import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { designRevisions, designs } from '~/lib/db/schema';
-import { newToken } from '~/lib/auth/index.server';
+import { designRevisions, designs } from '~/lib/db/schema.ts';
+import { newToken } from '~/lib/auth/index.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser';
-import { signInAs, type TestUser } from '../support/sessions';
-import { closeDb, db } from '../support/test-db';
+import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
+import { signInAs, type TestUser } from '../support/sessions.ts';
+import { closeDb, db } from '../support/test-db.ts';
 
 let browser: Browser;
 let builder: TestUser;

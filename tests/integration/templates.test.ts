@@ -1,17 +1,17 @@
 import { and, count, eq } from 'drizzle-orm';
 import DxfParser from 'dxf-parser';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { SessionUser } from '~/lib/auth/index.server';
-import { designRevisions, designs, templateChecks, templates, users } from '~/lib/db/schema';
-import { seedDemoShop } from '~/lib/db/seed/demo-shop.server';
-import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server';
+import type { SessionUser } from '~/lib/auth/index.server.ts';
+import { designRevisions, designs, templateChecks, templates, users } from '~/lib/db/schema.ts';
+import { seedDemoShop } from '~/lib/db/seed/demo-shop.server.ts';
+import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import type { TemplateView } from '~/lib/schemas/template';
-import { listChecksRoute, postCheckRoute } from '~/lib/templates-api/check-endpoints.server';
-import { indexTemplateRoute, labelRoute } from '~/lib/templates-api/export-endpoints.server';
-import { createRoute, listRoute, readRoute, retireRoute, updateRoute } from '~/lib/templates-api/shelf-endpoints.server';
-import { newShopUser, type TestUser } from '../support/sessions';
-import { closeDb, db } from '../support/test-db';
+import type { TemplateView } from '~/lib/schemas/template.ts';
+import { listChecksRoute, postCheckRoute } from '~/lib/templates-api/check-endpoints.server.ts';
+import { indexTemplateRoute, labelRoute } from '~/lib/templates-api/export-endpoints.server.ts';
+import { createRoute, listRoute, readRoute, retireRoute, updateRoute } from '~/lib/templates-api/shelf-endpoints.server.ts';
+import { newShopUser, type TestUser } from '../support/sessions.ts';
+import { closeDb, db } from '../support/test-db.ts';
 
 afterAll(() => closeDb());
 

@@ -1,7 +1,7 @@
 /** Designs for unit tests: one plain default design, overridden per test, validated or failing the test. */
 import { expect } from 'vitest';
-import { computeLayout, type Layout } from '~/lib/geometry/layout';
-import { validateDesign, type Design, type DesignInput } from '~/lib/schemas/design';
+import { computeLayout, type Layout } from '~/lib/geometry/layout.ts';
+import { validateDesign, type Design, type DesignInput } from '~/lib/schemas/design.ts';
 
 /** A plain six-string design in mm; override any field. */
 export function designInput(overrides: Partial<DesignInput> = {}): DesignInput {

@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import { useHydrated } from '~/components/ui/use-hydrated';
+import { useHydrated } from '~/components/ui/use-hydrated.ts';
 import { BOARD_SORTS, BOARD_STATUS_FILTERS, INSTRUMENT_TYPES, type BoardListQuery } from '~/lib/schemas/board.ts';
 import { INSTRUMENT_LABELS, SORT_LABELS, STATUS_LABELS } from './board-labels.ts';
 

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRef } from 'react';
-import { useHydrated } from '~/components/ui/use-hydrated';
+import { useHydrated } from '~/components/ui/use-hydrated.ts';
 import { BOARD_FILE_MAX_BYTES } from '~/lib/schemas/board.ts';
 import { importBoardFile } from './board-requests.ts';
 

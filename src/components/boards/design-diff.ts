@@ -4,8 +4,8 @@
  * form's label and the value in the design's units (describeChange). Used by the revision compare
  * and the conflict view; browser-safe and pure.
  */
-import { formatLength, type LengthUnit } from '~/lib/format/units';
-import { DESIGN_FIELDS } from '~/lib/schemas/design-fields';
+import { formatLength, type LengthUnit } from '~/lib/format/units.ts';
+import { DESIGN_FIELDS } from '~/lib/schemas/design-fields.ts';
 export interface FieldChange {
   path: string;
   /** The value in the first design; undefined when the field is only in the second. */

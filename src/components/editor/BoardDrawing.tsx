@@ -6,14 +6,14 @@
 import type Konva from 'konva';
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from 'react';
 import { Circle, Group, Layer, Line, Stage } from 'react-konva';
-import { formatLength } from '~/lib/format/units';
-import type { Layout, Point } from '~/lib/geometry/layout';
-import { distance } from '~/lib/geometry/plane';
-import { BoardScene } from './BoardScene';
-import { BUTTON } from './control-styles';
-import { nearestFret, snapPoint, snapTargets } from './board-picking';
-import { DRAWING_COLOURS as C, LINE_WIDTHS_PX as W, PICK_REACH_PX, SNAP_REACH_PX } from './drawing-style';
-import { redrawCommitted, redrawDrawn } from './redraw-timing';
+import { formatLength } from '~/lib/format/units.ts';
+import type { Layout, Point } from '~/lib/geometry/layout.ts';
+import { distance } from '~/lib/geometry/plane.ts';
+import { BoardScene } from './BoardScene.tsx';
+import { BUTTON } from './control-styles.ts';
+import { nearestFret, snapPoint, snapTargets } from './board-picking.ts';
+import { DRAWING_COLOURS as C, LINE_WIDTHS_PX as W, PICK_REACH_PX, SNAP_REACH_PX } from './drawing-style.ts';
+import { redrawCommitted, redrawDrawn } from './redraw-timing.ts';
 import {
   boundsOf,
   clampZoom,
@@ -25,7 +25,7 @@ import {
   zoomBy,
   type ScreenPoint,
   type View,
-} from './view-transform';
+} from './view-transform.ts';
 
 export interface BoardDrawingProps {
   layout: Layout;

@@ -7,11 +7,11 @@
  */
 import { memo } from 'react';
 import { Circle, Group, Line, Text } from 'react-konva';
-import { formatLength } from '~/lib/format/units';
-import type { Layout, Point, Segment } from '~/lib/geometry/layout';
-import { boardPicture, partsOn } from '~/lib/picture/board-picture';
-import { DASHES_PX, DRAWING_COLOURS as C, LABEL_FONT, LINE_WIDTHS_PX as W } from './drawing-style';
-import { boundsOf } from './view-transform';
+import { formatLength } from '~/lib/format/units.ts';
+import type { Layout, Point, Segment } from '~/lib/geometry/layout.ts';
+import { boardPicture, partsOn } from '~/lib/picture/board-picture.ts';
+import { DASHES_PX, DRAWING_COLOURS as C, LABEL_FONT, LINE_WIDTHS_PX as W } from './drawing-style.ts';
+import { boundsOf } from './view-transform.ts';
 
 interface BoardSceneProps {
   layout: Layout;

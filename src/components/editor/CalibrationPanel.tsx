@@ -3,10 +3,10 @@
  * the user measures it with a ruler and enters what they see.
  */
 import { useId, useState } from 'react';
-import { BUTTON, FIELD_ERROR, INPUT, PRIMARY_BUTTON } from './control-styles';
-import { parseNumber } from './design-draft';
-import { CALIBRATION_BAR_MM, measurementProblem, pxPerMmFromMeasurement } from './screen-calibration';
-import { CSS_PX_PER_MM } from './view-transform';
+import { BUTTON, FIELD_ERROR, INPUT, PRIMARY_BUTTON } from './control-styles.ts';
+import { parseNumber } from './design-draft.ts';
+import { CALIBRATION_BAR_MM, measurementProblem, pxPerMmFromMeasurement } from './screen-calibration.ts';
+import { CSS_PX_PER_MM } from './view-transform.ts';
 
 interface CalibrationPanelProps {
   pxPerMm: number;

@@ -5,9 +5,9 @@
  * temperament and markers have controls of their own.
  */
 import { useId, useState, type ChangeEvent, type ReactNode } from 'react';
-import type { DesignIssue } from '~/lib/schemas/design';
-import { DESIGN_FIELDS, type DesignFieldRow, type FieldGroup } from '~/lib/schemas/design-fields';
-import { BUTTON, FIELD_ERROR, INPUT } from './control-styles';
+import type { DesignIssue } from '~/lib/schemas/design.ts';
+import { DESIGN_FIELDS, type DesignFieldRow, type FieldGroup } from '~/lib/schemas/design-fields.ts';
+import { BUTTON, FIELD_ERROR, INPUT } from './control-styles.ts';
 import {
   applySpacingOffer,
   fieldOfIssue,
@@ -20,9 +20,9 @@ import {
   type FlagField,
   type LengthField,
   type NumberField,
-} from './design-draft';
-import { ScaleConventionFigure } from './ScaleConventionFigure';
-import { ScalaUpload } from './ScalaUpload';
+} from './design-draft.ts';
+import { ScaleConventionFigure } from './ScaleConventionFigure.tsx';
+import { ScalaUpload } from './ScalaUpload.tsx';
 
 export interface PresetChoice {
   id: string;

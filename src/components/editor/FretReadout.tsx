@@ -1,6 +1,6 @@
 /** Per-string distances of the fret under the pointer (or the last one tapped). */
-import { formatLength } from '~/lib/format/units';
-import type { Layout } from '~/lib/geometry/layout';
+import { formatLength } from '~/lib/format/units.ts';
+import type { Layout } from '~/lib/geometry/layout.ts';
 
 export function FretReadout({ layout, fret }: { layout: Layout; fret: number | null }) {
   const shown = layout.frets.find((candidate) => candidate.number === fret);

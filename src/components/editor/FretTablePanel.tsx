@@ -14,13 +14,13 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { memo, useMemo, useState } from 'react';
-import { scaleConventionWords } from '~/lib/format/design-specs';
-import { formatLength } from '~/lib/format/units';
-import { fretTableCsv, fretTableRows, type FretTableRow } from '~/lib/export/csv';
-import { exportFileName } from '~/lib/export/file-name';
-import type { Layout } from '~/lib/geometry/layout';
-import type { Design } from '~/lib/schemas/design';
-import { BUTTON } from './control-styles';
+import { scaleConventionWords } from '~/lib/format/design-specs.ts';
+import { formatLength } from '~/lib/format/units.ts';
+import { fretTableCsv, fretTableRows, type FretTableRow } from '~/lib/export/csv.ts';
+import { exportFileName } from '~/lib/export/file-name.ts';
+import type { Layout } from '~/lib/geometry/layout.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import { BUTTON } from './control-styles.ts';
 
 const column = createColumnHelper<FretTableRow>();
 

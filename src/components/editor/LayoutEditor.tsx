@@ -11,28 +11,28 @@
  * the same code the server runs for every export, so there is nothing to cross-check.
  */
 import { Suspense, lazy, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
-import { STATUS_LABELS } from '~/components/boards/board-labels';
-import { ConflictNotice } from '~/components/boards/ConflictNotice';
-import { RevisionHistory } from '~/components/boards/RevisionHistory';
-import { SaveStatusBadge } from '~/components/boards/SaveStatusBadge';
-import { SaveToBoardsButton } from '~/components/boards/SaveToBoardsButton';
-import { computeLayout } from '~/lib/geometry/layout';
-import { blankDesign } from '~/lib/presets/blank-design';
+import { STATUS_LABELS } from '~/components/boards/board-labels.ts';
+import { ConflictNotice } from '~/components/boards/ConflictNotice.tsx';
+import { RevisionHistory } from '~/components/boards/RevisionHistory.tsx';
+import { SaveStatusBadge } from '~/components/boards/SaveStatusBadge.tsx';
+import { SaveToBoardsButton } from '~/components/boards/SaveToBoardsButton.tsx';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { blankDesign } from '~/lib/presets/blank-design.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import type { BoardDetail, BoardSummary } from '~/lib/schemas/board';
-import { validateDesign, type Design } from '~/lib/schemas/design';
-import { BoardDrawing } from './BoardDrawing';
-import { describeBoard } from './board-summary';
-import { CalibrationPanel } from './CalibrationPanel';
-import { BUTTON } from './control-styles';
-import { createDesignStore } from './design-store';
-import { draftFromDesign, validateDraft, type DesignDraft } from './design-draft';
-import { DesignForm, type PresetChoice } from './DesignForm';
-import { FretReadout } from './FretReadout';
-import { FretTablePanel } from './FretTablePanel';
-import { redrawStarted } from './redraw-timing';
-import { loadScreenPxPerMm, saveScreenPxPerMm } from './screen-calibration';
-import { useAutosave } from './use-autosave';
+import type { BoardDetail, BoardSummary } from '~/lib/schemas/board.ts';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
+import { BoardDrawing } from './BoardDrawing.tsx';
+import { describeBoard } from './board-summary.ts';
+import { CalibrationPanel } from './CalibrationPanel.tsx';
+import { BUTTON } from './control-styles.ts';
+import { createDesignStore } from './design-store.ts';
+import { draftFromDesign, validateDraft, type DesignDraft } from './design-draft.ts';
+import { DesignForm, type PresetChoice } from './DesignForm.tsx';
+import { FretReadout } from './FretReadout.tsx';
+import { FretTablePanel } from './FretTablePanel.tsx';
+import { redrawStarted } from './redraw-timing.ts';
+import { loadScreenPxPerMm, saveScreenPxPerMm } from './screen-calibration.ts';
+import { useAutosave } from './use-autosave.ts';
 
 export interface LayoutEditorProps {
   /** 'edit' (default) shows the form; 'view' is read-only: drawing, readouts and fret table. */
@@ -58,8 +58,8 @@ function openBoard(board: BoardSummary): OpenBoard {
 }
 
 // Loaded when their tab first opens, so the drawing's own script stays small.
-const ExportPanel = lazy(() => import('~/components/export/ExportPanel'));
-const ProofPanel = lazy(() => import('~/components/proof/ProofPanel'));
+const ExportPanel = lazy(() => import('~/components/export/ExportPanel.tsx'));
+const ProofPanel = lazy(() => import('~/components/proof/ProofPanel.tsx'));
 
 type Tab = 'table' | 'exports' | 'history' | 'proofs';
 

@@ -4,9 +4,9 @@
  * design keeps the file's text (validated again by the design schema).
  */
 import { useId, useState, type ChangeEvent } from 'react';
-import { parseScl, type ScalaScale } from '~/lib/geometry/scala';
-import { DESIGN_LIMITS } from '~/lib/schemas/design';
-import { FIELD_ERROR } from './control-styles';
+import { parseScl, type ScalaScale } from '~/lib/geometry/scala.ts';
+import { DESIGN_LIMITS } from '~/lib/schemas/design.ts';
+import { FIELD_ERROR } from './control-styles.ts';
 
 /** Largest .scl file read, in bytes: the design keeps at most this many characters of it. */
 const SCL_MAX_BYTES = DESIGN_LIMITS.maxSclChars;

@@ -2,8 +2,8 @@
  * Finding what the pointer is on, in board coordinates: the nearest fret line for the readouts,
  * and the nearest fret/string intersection for the measure tool's snapping.
  */
-import type { Layout } from '~/lib/geometry/layout';
-import { distance, type Point, type Segment } from '~/lib/geometry/plane';
+import type { Layout } from '~/lib/geometry/layout.ts';
+import { distance, type Point, type Segment } from '~/lib/geometry/plane.ts';
 
 /** Shortest distance from `point` to the segment (not the infinite line). */
 export function distanceToSegment(point: Point, segment: Segment): number {

@@ -1,7 +1,7 @@
 /** A plain-text account of the drawing, for screen readers and anyone who prefers words. */
-import { formatLength } from '~/lib/format/units';
-import type { Layout } from '~/lib/geometry/layout';
-import type { Design } from '~/lib/schemas/design';
+import { formatLength } from '~/lib/format/units.ts';
+import type { Layout } from '~/lib/geometry/layout.ts';
+import type { Design } from '~/lib/schemas/design.ts';
 
 export function describeBoard(design: Design, layout: Layout): string {
   const show = (length: number) => formatLength(length, layout.units, true);

@@ -11,8 +11,8 @@
  * converted from, computes with the exact converted value (the text shows it rounded), and
  * switching back restores the original text as long as the field was not edited.
  */
-import { convertLength, type LengthUnit } from '~/lib/format/units';
-import { validateDesign, type Design, type DesignIssue, type Marker } from '~/lib/schemas/design';
+import { convertLength, type LengthUnit } from '~/lib/format/units.ts';
+import { validateDesign, type Design, type DesignIssue, type Marker } from '~/lib/schemas/design.ts';
 import {
   CHOICE_ROWS,
   COUNT_ROWS,
@@ -24,7 +24,7 @@ import {
   type CountPath,
   type FlagPath,
   type LengthPath,
-} from '~/lib/schemas/design-fields';
+} from '~/lib/schemas/design-fields.ts';
 
 /** Every length field of the field table (design-fields.ts), by path. */
 export const LENGTH_FIELDS: readonly LengthPath[] = LENGTH_ROWS.map((row) => row.path);

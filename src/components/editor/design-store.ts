@@ -6,9 +6,9 @@
  * talks to this interface; useAutosave (use-autosave.ts) decides when to
  * save and keeps the version.
  */
-import { BoardRequestError, fetchBoard, saveBoard } from '~/components/boards/board-requests';
-import type { BoardDetail } from '~/lib/schemas/board';
-import { validateDesign, type Design } from '~/lib/schemas/design';
+import { BoardRequestError, fetchBoard, saveBoard } from '~/components/boards/board-requests.ts';
+import type { BoardDetail } from '~/lib/schemas/board.ts';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 
 export type DesignStorage = { kind: 'scratch' } | { kind: 'board'; boardId: number };
 

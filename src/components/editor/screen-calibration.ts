@@ -3,7 +3,7 @@
  * rarely match. The user measures a bar drawn 100 mm long (by that assumption) with a ruler and
  * enters what they see; the result is kept in this browser's local storage.
  */
-import { CSS_PX_PER_MM } from './view-transform';
+import { CSS_PX_PER_MM } from './view-transform.ts';
 
 /** Nominal length of the calibration bar, in millimetres. */
 export const CALIBRATION_BAR_MM = 100;

@@ -3,11 +3,11 @@
  * pixels (+y down). Board y is flipped for display only, so the bass side is drawn at the top.
  * Pure maths, shared by the drawing, its navigation and the unit tests.
  */
-import { MM_PER_INCH, type LengthUnit } from '~/lib/format/units';
-import type { Box } from '~/lib/picture/board-picture';
+import { MM_PER_INCH, type LengthUnit } from '~/lib/format/units.ts';
+import type { Box } from '~/lib/picture/board-picture.ts';
 
 /** The one bounding box, shared with every other surface. */
-export { boundsOf } from '~/lib/picture/board-picture';
+export { boundsOf } from '~/lib/picture/board-picture.ts';
 
 export interface View {
   /** Screen pixels per board unit (mm or in). */

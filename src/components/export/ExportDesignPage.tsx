@@ -4,8 +4,8 @@
  */
 import { useState } from 'react';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { validateDesign, type Design, type DesignIssue } from '~/lib/schemas/design';
-import ExportPanel from './ExportPanel';
+import { validateDesign, type Design, type DesignIssue } from '~/lib/schemas/design.ts';
+import ExportPanel from './ExportPanel.tsx';
 
 const FIRST = DEMO_DESIGNS[0]!;
 

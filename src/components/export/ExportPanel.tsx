@@ -3,14 +3,14 @@
  * tiling (the same tile-pages module the PDF uses), and downloads built by POST /api/export.
  */
 import { useMemo, useState } from 'react';
-import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note';
-import { EXPORT_LIMITS } from '~/lib/export/export-limits';
-import { PAPER_LABELS, PAPER_NAMES, ptToMm } from '~/lib/export/paper-sizes';
-import { sheetDrawing } from '~/lib/export/sheet-drawing';
-import { planTiles } from '~/lib/export/tile-pages';
-import { computeLayout } from '~/lib/geometry/layout';
-import { formatLength, fromMm } from '~/lib/format/units';
-import type { Design } from '~/lib/schemas/design';
+import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note.ts';
+import { EXPORT_LIMITS } from '~/lib/export/export-limits.ts';
+import { PAPER_LABELS, PAPER_NAMES, ptToMm } from '~/lib/export/paper-sizes.ts';
+import { sheetDrawing } from '~/lib/export/sheet-drawing.ts';
+import { planTiles } from '~/lib/export/tile-pages.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { formatLength, fromMm } from '~/lib/format/units.ts';
+import type { Design } from '~/lib/schemas/design.ts';
 import {
   DEFAULT_EXPORT_OPTIONS,
   ORIENTATIONS,
@@ -18,9 +18,9 @@ import {
   SLOT_STYLES,
   validateExportOptions,
   type ExportFormat,
-} from '~/lib/schemas/export-options';
-import { exportFailureMessage, type ExportProblem } from './export-failure';
-import { TilingPreview } from './TilingPreview';
+} from '~/lib/schemas/export-options.ts';
+import { exportFailureMessage, type ExportProblem } from './export-failure.ts';
+import { TilingPreview } from './TilingPreview.tsx';
 
 interface Props {
   design: Design;

@@ -1,5 +1,5 @@
-import type { TilePlan } from '~/lib/export/tile-pages';
-import type { Point } from '~/lib/geometry/layout';
+import type { TilePlan } from '~/lib/export/tile-pages.ts';
+import type { Point } from '~/lib/geometry/layout.ts';
 
 interface Props {
   plan: TilePlan;

@@ -2,7 +2,7 @@
  * What the Export panel says when an export is refused or fails, from the answer's status, its
  * problem body ({ error, field, errorId }) and its Retry-After header.
  */
-import { TOO_LARGE_STATUS } from '~/lib/export/export-limits';
+import { TOO_LARGE_STATUS } from '~/lib/export/export-limits.ts';
 
 export interface ExportProblem {
   error?: string;

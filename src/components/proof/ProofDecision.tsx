@@ -4,8 +4,8 @@
  * recorded answer.
  */
 import { useState, type SubmitEvent } from 'react';
-import { useHydrated } from '~/components/ui/use-hydrated';
-import { PROOF_LIMITS } from '~/lib/schemas/proof';
+import { useHydrated } from '~/components/ui/use-hydrated.ts';
+import { PROOF_LIMITS } from '~/lib/schemas/proof.ts';
 
 interface Props {
   action: string;

@@ -3,8 +3,8 @@
  * (the link is shown once, to copy), see every proof with its state and answer, revoke a link.
  */
 import { useCallback, useEffect, useState, type SubmitEvent } from 'react';
-import { useHydrated } from '~/components/ui/use-hydrated';
-import { PROOF_LIMITS, PROOF_STATE_LABELS, type CreatedProof, type ProofSummary } from '~/lib/schemas/proof';
+import { useHydrated } from '~/components/ui/use-hydrated.ts';
+import { PROOF_LIMITS, PROOF_STATE_LABELS, type CreatedProof, type ProofSummary } from '~/lib/schemas/proof.ts';
 
 interface Props {
   designId: number;

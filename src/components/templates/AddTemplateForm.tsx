@@ -4,7 +4,7 @@
  * field, shown next to it.
  */
 import { cloneElement, useId, useState, type ReactElement, type SyntheticEvent } from 'react';
-import { ApiError, createTemplate } from './shelf-api';
+import { ApiError, createTemplate } from './shelf-api.ts';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
 
 export interface DesignChoice {

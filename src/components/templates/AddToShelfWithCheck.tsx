@@ -3,9 +3,9 @@
  * that design revision, with this check saved on it (one request; both are saved or neither).
  */
 import { useId, useState, type SyntheticEvent } from 'react';
-import type { LengthUnit } from '~/lib/format/units';
-import type { CheckGrid } from '~/lib/schemas/template';
-import { ApiError, createTemplate } from './shelf-api';
+import type { LengthUnit } from '~/lib/format/units.ts';
+import type { CheckGrid } from '~/lib/schemas/template.ts';
+import { ApiError, createTemplate } from './shelf-api.ts';
 
 interface Props {
   designId: number;

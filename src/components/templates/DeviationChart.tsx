@@ -2,8 +2,8 @@
  * Deviation of each measured slot against fret number, with the tolerance band. Plain SVG; the
  * results table beside it carries the same numbers for anyone who cannot see the chart.
  */
-import { formatLength } from '~/lib/format/units';
-import type { CheckResult } from '~/lib/template-check/compare';
+import { formatLength } from '~/lib/format/units.ts';
+import type { CheckResult } from '~/lib/template-check/compare.ts';
 
 const WIDTH = 720;
 const HEIGHT = 300;

@@ -5,18 +5,18 @@
  * the template to the shelf together with the check. The server checks them again either way.
  */
 import { useMemo, useState, type ChangeEvent } from 'react';
-import { formatLength, type LengthUnit } from '~/lib/format/units';
-import type { Design } from '~/lib/schemas/design';
-import type { TemplateView } from '~/lib/schemas/template';
-import { defaultTolerance, type Measurement, type WorkMethod } from '~/lib/template-check/compare';
-import { measureLineLabel, measureLines, type MeasureLine } from '~/lib/template-check/measure-lines';
-import { MEASUREMENTS_CSV_MAX_BYTES, parseMeasurementsCsv } from '~/lib/template-check/measurements-csv';
-import { runCheck, runCsvCheck, type CheckOutcome } from '~/lib/template-check/run-check';
-import type { SavedCheck } from '~/lib/db/templates.server';
-import { AddToShelfWithCheck } from './AddToShelfWithCheck';
-import { DeviationChart } from './DeviationChart';
-import { DiagnosisHeadlines } from './DiagnosisHeadlines';
-import { ApiError, postCheck } from './shelf-api';
+import { formatLength, type LengthUnit } from '~/lib/format/units.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import type { TemplateView } from '~/lib/schemas/template.ts';
+import { defaultTolerance, type Measurement, type WorkMethod } from '~/lib/template-check/compare.ts';
+import { measureLineLabel, measureLines, type MeasureLine } from '~/lib/template-check/measure-lines.ts';
+import { MEASUREMENTS_CSV_MAX_BYTES, parseMeasurementsCsv } from '~/lib/template-check/measurements-csv.ts';
+import { runCheck, runCsvCheck, type CheckOutcome } from '~/lib/template-check/run-check.ts';
+import type { SavedCheck } from '~/lib/db/templates.server.ts';
+import { AddToShelfWithCheck } from './AddToShelfWithCheck.tsx';
+import { DeviationChart } from './DeviationChart.tsx';
+import { DiagnosisHeadlines } from './DiagnosisHeadlines.tsx';
+import { ApiError, postCheck } from './shelf-api.ts';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
 
 /** What the check is about: a template on the shelf, or a saved design's revision. */

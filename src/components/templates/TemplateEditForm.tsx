@@ -1,8 +1,8 @@
 /** Edits a template's shelf record: condition, where it is kept, material and notes. */
 import { useState, type SyntheticEvent } from 'react';
-import type { TemplateView } from '~/lib/schemas/template';
-import { ApiError, patchTemplate } from './shelf-api';
-import { ConditionOptions } from './template-labels';
+import type { TemplateView } from '~/lib/schemas/template.ts';
+import { ApiError, patchTemplate } from './shelf-api.ts';
+import { ConditionOptions } from './template-labels.tsx';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
 
 const input = 'rounded border border-paper-line px-2 py-1';

@@ -6,12 +6,12 @@
 import { QueryClient, QueryClientProvider, keepPreviousData, useQuery } from '@tanstack/react-query';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { useCallback, useEffect, useState } from 'react';
-import { listQueryFromSearch, searchFromListQuery } from '~/components/ui/list-url-state';
-import { formatLength } from '~/lib/format/units';
-import { LAST_RESULT_FILTERS, TEMPLATE_SORTS, templateListQuerySchema, type TemplateListQuery, type TemplateSort, type TemplateView } from '~/lib/schemas/template';
-import { AddTemplateForm, type DesignChoice } from './AddTemplateForm';
-import { CONDITION_LABELS, ConditionOptions, LAST_RESULT_LABELS, LastCheck } from './template-labels';
-import { fetchTemplates } from './shelf-api';
+import { listQueryFromSearch, searchFromListQuery } from '~/components/ui/list-url-state.ts';
+import { formatLength } from '~/lib/format/units.ts';
+import { LAST_RESULT_FILTERS, TEMPLATE_SORTS, templateListQuerySchema, type TemplateListQuery, type TemplateSort, type TemplateView } from '~/lib/schemas/template.ts';
+import { AddTemplateForm, type DesignChoice } from './AddTemplateForm.tsx';
+import { CONDITION_LABELS, ConditionOptions, LAST_RESULT_LABELS, LastCheck } from './template-labels.tsx';
+import { fetchTemplates } from './shelf-api.ts';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
 
 const queryClient = new QueryClient({ defaultOptions: { queries: { retry: 1, staleTime: 5_000 } } });

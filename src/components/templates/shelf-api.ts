@@ -1,5 +1,5 @@
 /** Browser calls to the Template shelf API; errors come back as the API's `{ error, field }`. */
-import type { TemplatePage, TemplateView } from '~/lib/schemas/template';
+import type { TemplatePage, TemplateView } from '~/lib/schemas/template.ts';
 
 export class ApiError extends Error {
   constructor(

@@ -1,5 +1,5 @@
 /** Words and small pieces shown for a template in several places. */
-import type { LAST_RESULT_FILTERS, TemplateCondition, TemplateView } from '~/lib/schemas/template';
+import type { LAST_RESULT_FILTERS, TemplateCondition, TemplateView } from '~/lib/schemas/template.ts';
 
 export const CONDITION_LABELS: Record<TemplateCondition, string> = {
   in_use: 'In use',

@@ -5,11 +5,11 @@
  * at fault on stderr).
  */
 import { readFile } from 'node:fs/promises';
-import { formatLength } from '~/lib/format/units';
-import { validateDesign, type Design } from '~/lib/schemas/design';
-import { defaultTolerance, type CheckResult } from '~/lib/template-check/compare';
-import { parseMeasureLine } from '~/lib/template-check/measure-lines';
-import { runCsvCheck } from '~/lib/template-check/run-check';
+import { formatLength } from '~/lib/format/units.ts';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
+import { defaultTolerance, type CheckResult } from '~/lib/template-check/compare.ts';
+import { parseMeasureLine } from '~/lib/template-check/measure-lines.ts';
+import { runCsvCheck } from '~/lib/template-check/run-check.ts';
 import type { KerflineCommand } from './parse-command.server.ts';
 
 type CheckCommand = Extract<KerflineCommand, { kind: 'check' }>;

@@ -1,9 +1,9 @@
 import { readFile, writeFile } from 'node:fs/promises';
-import { layoutExportRefusal } from '~/lib/export/export-cost';
-import { exportDesign } from '~/lib/export/export-design.server';
-import { computeLayout } from '~/lib/geometry/layout';
-import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note';
-import { validateDesign } from '~/lib/schemas/design';
+import { layoutExportRefusal } from '~/lib/export/export-cost.ts';
+import { exportDesign } from '~/lib/export/export-design.server.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note.ts';
+import { validateDesign } from '~/lib/schemas/design.ts';
 import { USAGE, parseCommand } from './parse-command.server.ts';
 import { runCheckCommand } from './run-check-command.server.ts';
 

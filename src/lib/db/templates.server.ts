@@ -3,15 +3,15 @@
  * another shop's rows: a template or design of another shop is simply "not found".
  */
 import { and, asc, count, desc, eq, isNull, like, or, sql, type SQL } from 'drizzle-orm';
-import type { Db } from '~/lib/db/client.server';
-import { MM_PER_INCH } from '~/lib/format/units';
-import { designRevisions, designs, templateChecks, templates } from '~/lib/db/schema';
-import type { CheckResult } from '~/lib/template-check/compare';
-import { runCheck } from '~/lib/template-check/run-check';
-import { readSavedResult } from '~/lib/template-check/saved-result';
-import { standInDesign } from '~/lib/template-check/template-design';
-import { validateDesign, type Design } from '~/lib/schemas/design';
-import type { CheckGrid, TemplateCreate, TemplateListQuery, TemplatePage, TemplateUpdate, TemplateView } from '~/lib/schemas/template';
+import type { Db } from '~/lib/db/client.server.ts';
+import { MM_PER_INCH } from '~/lib/format/units.ts';
+import { designRevisions, designs, templateChecks, templates } from '~/lib/db/schema.ts';
+import type { CheckResult } from '~/lib/template-check/compare.ts';
+import { runCheck } from '~/lib/template-check/run-check.ts';
+import { readSavedResult } from '~/lib/template-check/saved-result.ts';
+import { standInDesign } from '~/lib/template-check/template-design.ts';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
+import type { CheckGrid, TemplateCreate, TemplateListQuery, TemplatePage, TemplateUpdate, TemplateView } from '~/lib/schemas/template.ts';
 
 type TemplateRow = typeof templates.$inferSelect;
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];

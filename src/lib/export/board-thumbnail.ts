@@ -1,5 +1,5 @@
-import type { Layout, Point, Segment } from '~/lib/geometry/layout';
-import { boardPicture, boundsOf, partsOn, type PictureLayer } from '~/lib/picture/board-picture';
+import type { Layout, Point, Segment } from '~/lib/geometry/layout.ts';
+import { boardPicture, boundsOf, partsOn, type PictureLayer } from '~/lib/picture/board-picture.ts';
 
 /** Size of the drawing in CSS pixels; the board is scaled to fit and centred. */
 export const THUMBNAIL_SIZE = { width: 240, height: 48 } as const;

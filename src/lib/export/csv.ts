@@ -1,4 +1,4 @@
-import type { Layout } from '~/lib/geometry/layout';
+import type { Layout } from '~/lib/geometry/layout.ts';
 
 /** The fret table's header; part of the public output format. */
 export const FRET_TABLE_HEADER = 'fret,string,scale_length,from_nut,from_previous,x,y';

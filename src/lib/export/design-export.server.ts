@@ -4,16 +4,16 @@
  * a cap (export-cost.ts), the paper template built in the worker pool, text formats (a few ms at
  * most) built here.
  */
-import { computeLayout } from '~/lib/geometry/layout';
-import { problem } from '~/lib/http/problem';
-import type { Design } from '~/lib/schemas/design';
-import type { ExportOptions } from '~/lib/schemas/export-options';
-import { layoutExportRefusal, type ExportRefusal } from './export-cost';
-import { exportDesign, type ExportContext, type ExportFile } from './export-design.server';
-import { TOO_LARGE_STATUS } from './export-limits';
-import { attachmentHeader } from './file-name';
-import type { ExportPool } from './worker/export-pool.server';
-import { runExport } from './worker/run-export.server';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { problem } from '~/lib/http/problem.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import type { ExportOptions } from '~/lib/schemas/export-options.ts';
+import { layoutExportRefusal, type ExportRefusal } from './export-cost.ts';
+import { exportDesign, type ExportContext, type ExportFile } from './export-design.server.ts';
+import { TOO_LARGE_STATUS } from './export-limits.ts';
+import { attachmentHeader } from './file-name.ts';
+import type { ExportPool } from './worker/export-pool.server.ts';
+import { runExport } from './worker/run-export.server.ts';
 
 /** 422 in the problem shape, `field` naming the option to change. */
 export function tooLarge(refusal: ExportRefusal): Response {

@@ -4,14 +4,14 @@
  * a millimetre design and Letter for an inch design when the template is one sheet sized to the board).
  */
 import type { PDFDocument, PDFFont } from 'pdf-lib';
-import { formatLength } from '~/lib/format/units';
-import type { Layout } from '~/lib/geometry/layout';
-import { distanceRows } from './distance-table';
-import { PAGE_FRAME_MM } from './page-frame';
-import { PAPER_SIZES, mmToPt } from './paper-sizes';
-import { INK } from './pdf-kit.server';
-import { PRINT_CAUTION } from './safety-note';
-import type { TilePlan } from './tile-pages';
+import { formatLength } from '~/lib/format/units.ts';
+import type { Layout } from '~/lib/geometry/layout.ts';
+import { distanceRows } from './distance-table.ts';
+import { PAGE_FRAME_MM } from './page-frame.ts';
+import { PAPER_SIZES, mmToPt } from './paper-sizes.ts';
+import { INK } from './pdf-kit.server.ts';
+import { PRINT_CAUTION } from './safety-note.ts';
+import type { TilePlan } from './tile-pages.ts';
 
 const ROW_PT = 13;
 const SIZE_PT = 9;

@@ -4,8 +4,8 @@
  * nut line) along the treble edge, the bass edge and the centre line, the same lines and numbers the
  * Template check compares with (template-check/reference.ts).
  */
-import type { Layout } from '~/lib/geometry/layout';
-import { referenceLine } from '~/lib/template-check/reference';
+import type { Layout } from '~/lib/geometry/layout.ts';
+import { referenceLine } from '~/lib/template-check/reference.ts';
 
 export interface DistanceRow {
   fret: number;

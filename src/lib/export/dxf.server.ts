@@ -7,11 +7,11 @@
  * could cut. Kept server-side so makerjs stays out of the browser bundle.
  */
 import makerjs from 'makerjs';
-import type { LengthUnit } from '~/lib/format/units';
-import type { Point, Segment } from '~/lib/geometry/plane';
-import { capitalised, scaleConventionWords } from '~/lib/format/design-specs';
-import { machineCaution } from './safety-note';
-import { SLOT_PATH_LAYERS, type SlotPaths } from './slot-paths';
+import type { LengthUnit } from '~/lib/format/units.ts';
+import type { Point, Segment } from '~/lib/geometry/plane.ts';
+import { capitalised, scaleConventionWords } from '~/lib/format/design-specs.ts';
+import { machineCaution } from './safety-note.ts';
+import { SLOT_PATH_LAYERS, type SlotPaths } from './slot-paths.ts';
 
 /**
  * makerjs rounds coordinates to `accuracy` (1e-7 by default); 1e-12 keeps every double the

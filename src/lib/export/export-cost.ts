@@ -7,14 +7,14 @@
  * (pdf-lib, makerjs) with the largest valid designs, rounded up; tests check that real files
  * stay under them.
  */
-import type { Layout } from '~/lib/geometry/layout';
-import type { ExportOptions } from '~/lib/schemas/export-options';
-import { EXPORT_LIMITS } from './export-limits';
-import type { IndexTemplateStrip } from './index-template';
-import type { LabelSize } from './index-template-label.server';
-import { sheetDrawing } from './sheet-drawing';
-import { slotPaths, SLOT_PATH_LAYERS } from './slot-paths';
-import { planTiles, type TilePlan } from './tile-pages';
+import type { Layout } from '~/lib/geometry/layout.ts';
+import type { ExportOptions } from '~/lib/schemas/export-options.ts';
+import { EXPORT_LIMITS } from './export-limits.ts';
+import type { IndexTemplateStrip } from './index-template.ts';
+import type { LabelSize } from './index-template-label.server.ts';
+import { sheetDrawing } from './sheet-drawing.ts';
+import { slotPaths, SLOT_PATH_LAYERS } from './slot-paths.ts';
+import { planTiles, type TilePlan } from './tile-pages.ts';
 
 export interface ExportCost {
   /** PDF pages; 0 for text formats. */

@@ -2,18 +2,18 @@
  * One entry point for every export of a validated design: the API routes (unsaved designs here,
  * saved designs in the Boards area) and the command line call this.
  */
-import { computeLayout } from '~/lib/geometry/layout';
-import type { Design } from '~/lib/schemas/design';
-import type { ExportFormat, ExportOptions } from '~/lib/schemas/export-options';
-import { slotPathsDxf } from './dxf.server';
-import { exportFileName } from './file-name';
-import { LAYOUT_FORMATS } from './layout-formats';
-import { paperTemplatePdf } from './pdf.server';
-import { slotPaths } from './slot-paths';
-import { slotPathsSvg } from './svg';
-import type { ExportContext } from './title-block';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import type { ExportFormat, ExportOptions } from '~/lib/schemas/export-options.ts';
+import { slotPathsDxf } from './dxf.server.ts';
+import { exportFileName } from './file-name.ts';
+import { LAYOUT_FORMATS } from './layout-formats.ts';
+import { paperTemplatePdf } from './pdf.server.ts';
+import { slotPaths } from './slot-paths.ts';
+import { slotPathsSvg } from './svg.ts';
+import type { ExportContext } from './title-block.ts';
 
-export type { ExportContext } from './title-block';
+export type { ExportContext } from './title-block.ts';
 
 export interface ExportFile {
   bytes: Uint8Array;

@@ -1,11 +1,11 @@
-import { LAYOUT_BODY_MAX_BYTES } from '~/lib/geometry-api/layout-endpoint.server';
-import { readJson } from '~/lib/http/body.server';
-import { invalid, problem } from '~/lib/http/problem';
-import { validateDesign } from '~/lib/schemas/design';
-import { validateExportOptions } from '~/lib/schemas/export-options';
-import { answerOrServerError } from '~/lib/http/server-error.server';
-import { designExportResponse } from './design-export.server';
-import type { ExportPool } from './worker/export-pool.server';
+import { LAYOUT_BODY_MAX_BYTES } from '~/lib/geometry-api/layout-endpoint.server.ts';
+import { readJson } from '~/lib/http/body.server.ts';
+import { invalid, problem } from '~/lib/http/problem.ts';
+import { validateDesign } from '~/lib/schemas/design.ts';
+import { validateExportOptions } from '~/lib/schemas/export-options.ts';
+import { answerOrServerError } from '~/lib/http/server-error.server.ts';
+import { designExportResponse } from './design-export.server.ts';
+import type { ExportPool } from './worker/export-pool.server.ts';
 
 /**
  * POST /api/export?format=pdf|dxf|svg|csv|json&paper=...: a design as JSON in (saved or not), the

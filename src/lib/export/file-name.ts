@@ -5,7 +5,7 @@
  * dashes and underscores only, so the name is safe in a Content-Disposition header and on every
  * file system, and the same file gets the same name wherever it is downloaded from.
  */
-import type { ExportFormat } from '~/lib/schemas/export-options';
+import type { ExportFormat } from '~/lib/schemas/export-options.ts';
 
 const SUFFIX: Readonly<Record<ExportFormat, string>> = {
   pdf: 'paper-template.pdf',

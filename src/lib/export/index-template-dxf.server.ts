@@ -4,10 +4,10 @@
  * coordinates (y toward the bass side). The strip's notes and the machine caution travel as
  * comments (group 999), never as geometry.
  */
-import { fromMm } from '~/lib/format/units';
-import { dxfDocument } from './dxf.server';
-import type { IndexTemplateStrip } from './index-template';
-import { machineCaution } from './safety-note';
+import { fromMm } from '~/lib/format/units.ts';
+import { dxfDocument } from './dxf.server.ts';
+import type { IndexTemplateStrip } from './index-template.ts';
+import { machineCaution } from './safety-note.ts';
 
 export const INDEX_TEMPLATE_LAYERS = {
   outline: 'outline',

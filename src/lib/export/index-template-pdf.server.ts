@@ -4,11 +4,11 @@
  * and the machine cautions. The strip is drawn in board coordinates with y (bass side) down.
  */
 import { PDFDocument, degrees, rgb, type PDFPage } from 'pdf-lib';
-import type { Point } from '~/lib/geometry/plane';
-import { CALIBRATION_BARS_TOP_PT, drawCalibrationBars, embedMonoFont, FAINT, INK } from './pdf-kit.server';
-import { PRINT_CAUTION } from './safety-note';
-import type { IndexTemplateStrip } from './index-template';
-import { indexTemplatePage, STRIP_PAGE_PT, type StripPlacement } from './index-template-page';
+import type { Point } from '~/lib/geometry/plane.ts';
+import { CALIBRATION_BARS_TOP_PT, drawCalibrationBars, embedMonoFont, FAINT, INK } from './pdf-kit.server.ts';
+import { PRINT_CAUTION } from './safety-note.ts';
+import type { IndexTemplateStrip } from './index-template.ts';
+import { indexTemplatePage, STRIP_PAGE_PT, type StripPlacement } from './index-template-page.ts';
 
 export async function indexTemplatePdf(strip: IndexTemplateStrip): Promise<{ bytes: Uint8Array; placement: StripPlacement; pageSize: [number, number] }> {
   const { pageSize, placement } = indexTemplatePage(strip);

@@ -9,12 +9,12 @@
  * exactly L (1 - r(n)) from the nut; a fanned strip follows the design's own string lines and
  * each slot keeps its angle.
  */
-import { scaleConventionWords } from '~/lib/format/design-specs';
-import { fromMm, formatLength, type LengthUnit } from '~/lib/format/units';
-import { computeLayout } from '~/lib/geometry/layout';
-import { distance, intersectLines, type Point, type Segment } from '~/lib/geometry/plane';
-import type { Design } from '~/lib/schemas/design';
-import { MACHINE_SAFETY_NOTES } from './safety-note';
+import { scaleConventionWords } from '~/lib/format/design-specs.ts';
+import { fromMm, formatLength, type LengthUnit } from '~/lib/format/units.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { distance, intersectLines, type Point, type Segment } from '~/lib/geometry/plane.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import { MACHINE_SAFETY_NOTES } from './safety-note.ts';
 
 /** Strip proportions in mm (our own plain choices), converted for designs in inches. */
 export const STRIP_MM = {

@@ -1,4 +1,4 @@
-import type { Point, Segment } from '~/lib/geometry/layout';
+import type { Point, Segment } from '~/lib/geometry/layout.ts';
 
 /**
  * The closed outline of a slot of width `width` cut along `slot`: a rectangle whose long sides run

@@ -1,5 +1,5 @@
-import type { Layout } from '~/lib/geometry/layout';
-import { fretTableCsv } from './csv';
+import type { Layout } from '~/lib/geometry/layout.ts';
+import { fretTableCsv } from './csv.ts';
 
 /**
  * The text forms of a computed layout, shared by POST /api/layout and the command line. Every

@@ -3,8 +3,8 @@
  * print into, a header (caution, page label, page map) and a footer (calibration bars, title
  * block). What is left is the drawing window, where the board is drawn 1:1.
  */
-import { EXPORT_LIMITS } from './export-limits';
-import { PAPER_SIZES, ptToMm, type PaperName, type SheetPaperName } from './paper-sizes';
+import { EXPORT_LIMITS } from './export-limits.ts';
+import { PAPER_SIZES, ptToMm, type PaperName, type SheetPaperName } from './paper-sizes.ts';
 
 export const PAGE_FRAME_MM = {
   /** Unprinted edge on every side; 8 mm suits common office printers (common practice). */

@@ -2,7 +2,7 @@
  * Paper sizes for the paper template, in PostScript points (72 pt = 1 in = 25.4 mm exactly,
  * ISO 32000-1). Sizes are given portrait (width < height).
  */
-import { MM_PER_INCH, type LengthUnit } from '~/lib/format/units';
+import { MM_PER_INCH, type LengthUnit } from '~/lib/format/units.ts';
 
 export const PT_PER_IN = 72;
 /** Points per millimetre: 72 / 25.4. */

@@ -20,8 +20,8 @@ import {
   type PDFFont,
   type PDFPage,
 } from 'pdf-lib';
-import { mmToPt, PT_PER_IN } from './paper-sizes';
-import { woffToSfnt } from './woff-to-sfnt.server';
+import { mmToPt, PT_PER_IN } from './paper-sizes.ts';
+import { woffToSfnt } from './woff-to-sfnt.server.ts';
 
 /** Ink of the index template strip and its label. */
 export const INK = rgb(0.12, 0.14, 0.16);

@@ -29,17 +29,17 @@ import {
   type PDFFont,
   type PDFPage,
 } from 'pdf-lib';
-import type { Layout, Point } from '~/lib/geometry/layout';
-import type { Design } from '~/lib/schemas/design';
-import type { ExportOptions } from '~/lib/schemas/export-options';
-import { PAGE_FRAME_MM } from './page-frame';
-import { PAPER_LABELS, mmToPt } from './paper-sizes';
-import { addDistancePage } from './distance-table-page.server';
-import { drawCalibrationBars, embedMonoFont } from './pdf-kit.server';
-import { PRINT_CAUTION } from './safety-note';
-import { sheetDrawing, type LineStyle, type SheetItem } from './sheet-drawing';
-import { planTiles, type Tile, type TilePlan } from './tile-pages';
-import { titleBlockLines, type ExportContext } from './title-block';
+import type { Layout, Point } from '~/lib/geometry/layout.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import type { ExportOptions } from '~/lib/schemas/export-options.ts';
+import { PAGE_FRAME_MM } from './page-frame.ts';
+import { PAPER_LABELS, mmToPt } from './paper-sizes.ts';
+import { addDistancePage } from './distance-table-page.server.ts';
+import { drawCalibrationBars, embedMonoFont } from './pdf-kit.server.ts';
+import { PRINT_CAUTION } from './safety-note.ts';
+import { sheetDrawing, type LineStyle, type SheetItem } from './sheet-drawing.ts';
+import { planTiles, type Tile, type TilePlan } from './tile-pages.ts';
+import { titleBlockLines, type ExportContext } from './title-block.ts';
 
 type Rgb = [number, number, number];
 export interface Pen {

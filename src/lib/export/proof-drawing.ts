@@ -1,6 +1,6 @@
-import { formatLength } from '~/lib/format/units';
-import type { Layout, Segment } from '~/lib/geometry/layout';
-import { boardPicture, partsOn, pictureBounds, type LineRole, type PictureLayer } from '~/lib/picture/board-picture';
+import { formatLength } from '~/lib/format/units.ts';
+import type { Layout, Segment } from '~/lib/geometry/layout.ts';
+import { boardPicture, partsOn, pictureBounds, type LineRole, type PictureLayer } from '~/lib/picture/board-picture.ts';
 
 /**
  * A read-only drawing of a computed layout for the proof page, as plain data an SVG template

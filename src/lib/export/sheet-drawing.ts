@@ -3,14 +3,14 @@
  * nut toward the bridge, +y up the page = the bass side, or the treble side when mirrored).
  * The PDF writer draws these 1:1; nothing here knows about pages.
  */
-import { formatLength, toMm } from '~/lib/format/units';
-import type { Layout, Point, Segment } from '~/lib/geometry/layout';
-import { distance, intersectLines } from '~/lib/geometry/plane';
-import { measureLineLabel } from '~/lib/template-check/measure-lines';
-import { boardPicture, boundsOf, type Box } from '~/lib/picture/board-picture';
-import type { ExportOptions } from '~/lib/schemas/export-options';
-import { kerfOutline } from './kerf-outline';
-import { ptToMm } from './paper-sizes';
+import { formatLength, toMm } from '~/lib/format/units.ts';
+import type { Layout, Point, Segment } from '~/lib/geometry/layout.ts';
+import { distance, intersectLines } from '~/lib/geometry/plane.ts';
+import { measureLineLabel } from '~/lib/template-check/measure-lines.ts';
+import { boardPicture, boundsOf, type Box } from '~/lib/picture/board-picture.ts';
+import type { ExportOptions } from '~/lib/schemas/export-options.ts';
+import { kerfOutline } from './kerf-outline.ts';
+import { ptToMm } from './paper-sizes.ts';
 
 export type LineStyle =
   | 'outline'

@@ -3,11 +3,11 @@
  * to the chosen origin. Pure data; dxf.server.ts and svg.ts write it out, so both files carry the
  * same layers and the same numbers.
  */
-import type { LengthUnit } from '~/lib/format/units';
-import type { Layout, Point, Segment } from '~/lib/geometry/layout';
-import { boardPicture, boundsOf, partsOn, type Box, type LineRole, type PictureLayer } from '~/lib/picture/board-picture';
-import type { ExportOptions } from '~/lib/schemas/export-options';
-import { kerfOutline } from './kerf-outline';
+import type { LengthUnit } from '~/lib/format/units.ts';
+import type { Layout, Point, Segment } from '~/lib/geometry/layout.ts';
+import { boardPicture, boundsOf, partsOn, type Box, type LineRole, type PictureLayer } from '~/lib/picture/board-picture.ts';
+import type { ExportOptions } from '~/lib/schemas/export-options.ts';
+import { kerfOutline } from './kerf-outline.ts';
 
 /** Layer names, plain words a CAM program shows as they are. */
 export const SLOT_PATH_LAYERS = ['outline', 'slots', 'centre-line', 'nut', 'saddle', 'markers'] as const;

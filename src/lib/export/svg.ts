@@ -4,11 +4,11 @@
  * own, unrounded; only y is negated because SVG's y runs down the screen. Each layer is a group
  * whose id is the layer name.
  */
-import { capitalised, scaleConventionWords } from '~/lib/format/design-specs';
-import { fromMm } from '~/lib/format/units';
-import type { Point } from '~/lib/geometry/layout';
-import { machineCaution } from './safety-note';
-import { SLOT_PATH_LAYERS, slotPathBounds, type SlotPaths } from './slot-paths';
+import { capitalised, scaleConventionWords } from '~/lib/format/design-specs.ts';
+import { fromMm } from '~/lib/format/units.ts';
+import type { Point } from '~/lib/geometry/layout.ts';
+import { machineCaution } from './safety-note.ts';
+import { SLOT_PATH_LAYERS, slotPathBounds, type SlotPaths } from './slot-paths.ts';
 
 /** Hairline width: 0.1 mm. */
 const STROKE_MM = 0.1;

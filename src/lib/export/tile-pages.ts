@@ -6,12 +6,12 @@
  * "Sheet coordinates" are millimetres on the printed drawing: +x along the board from the nut,
  * +y up the page (the board's bass side, or its treble side when mirrored).
  */
-import type { ExportOptions } from '~/lib/schemas/export-options';
-import { EXPORT_LIMITS } from './export-limits';
-import { drawingWindow, fitWindowLimit, PAGE_FRAME_MM } from './page-frame';
-import { PAPER_SIZES, mmToPt, type PaperName, type SheetPaperName } from './paper-sizes';
+import type { ExportOptions } from '~/lib/schemas/export-options.ts';
+import { EXPORT_LIMITS } from './export-limits.ts';
+import { drawingWindow, fitWindowLimit, PAGE_FRAME_MM } from './page-frame.ts';
+import { PAPER_SIZES, mmToPt, type PaperName, type SheetPaperName } from './paper-sizes.ts';
 
-import type { Box } from '~/lib/picture/board-picture';
+import type { Box } from '~/lib/picture/board-picture.ts';
 
 export type { Box };
 

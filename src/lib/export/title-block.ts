@@ -2,11 +2,11 @@
  * The title block printed on every page of the paper template: what the design is, so a print
  * found on the bench months later can be matched to its design and revision.
  */
-import { scaleConventionWords } from '~/lib/format/design-specs';
-import { formatLength } from '~/lib/format/units';
-import { parseScl } from '~/lib/geometry/scala';
-import type { Design } from '~/lib/schemas/design';
-import type { ExportOptions } from '~/lib/schemas/export-options';
+import { scaleConventionWords } from '~/lib/format/design-specs.ts';
+import { formatLength } from '~/lib/format/units.ts';
+import { parseScl } from '~/lib/geometry/scala.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import type { ExportOptions } from '~/lib/schemas/export-options.ts';
 
 /** Where an export comes from; a saved design passes its revision and shop. */
 export interface ExportContext {

@@ -1,7 +1,7 @@
-import { parseScl } from '~/lib/geometry/scala';
-import type { Design } from '~/lib/schemas/design';
-import { CHOICE_ROWS } from '~/lib/schemas/design-fields';
-import { formatLength } from './units';
+import { parseScl } from '~/lib/geometry/scala.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import { CHOICE_ROWS } from '~/lib/schemas/design-fields.ts';
+import { formatLength } from './units.ts';
 
 const SCALE_ALONG_WORDS = CHOICE_ROWS.find((row) => row.path === 'scaleAlong')!.optionLabels;
 

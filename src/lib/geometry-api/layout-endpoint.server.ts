@@ -1,8 +1,8 @@
-import { LAYOUT_FORMATS, isLayoutFormatName, type LayoutFormatName } from '~/lib/export/layout-formats';
-import { computeLayout } from '~/lib/geometry/layout';
-import { readJson } from '~/lib/http/body.server';
-import { invalid, problem } from '~/lib/http/problem';
-import { validateDesign } from '~/lib/schemas/design';
+import { LAYOUT_FORMATS, isLayoutFormatName, type LayoutFormatName } from '~/lib/export/layout-formats.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { readJson } from '~/lib/http/body.server.ts';
+import { invalid, problem } from '~/lib/http/problem.ts';
+import { validateDesign } from '~/lib/schemas/design.ts';
 
 /** Largest design body accepted by POST /api/layout. */
 export const LAYOUT_BODY_MAX_BYTES = 64 * 1024;

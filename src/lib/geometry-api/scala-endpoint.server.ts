@@ -1,6 +1,6 @@
-import { parseScl } from '~/lib/geometry/scala';
-import { readText } from '~/lib/http/body.server';
-import { json, problem } from '~/lib/http/problem';
+import { parseScl } from '~/lib/geometry/scala.ts';
+import { readText } from '~/lib/http/body.server.ts';
+import { json, problem } from '~/lib/http/problem.ts';
 
 /** Largest .scl body accepted by POST /api/scala. */
 export const SCALA_BODY_MAX_BYTES = 64 * 1024;

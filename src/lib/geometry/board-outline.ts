@@ -1,4 +1,4 @@
-import { distance, intersectLines, lerpPoint, moveToward, type Point, type Segment } from './plane';
+import { distance, intersectLines, lerpPoint, moveToward, type Point, type Segment } from './plane.ts';
 
 export interface BoardOutlineInput {
   /** Drawn nut line ends on string 1 (treble) and string N (bass); the board starts here. */

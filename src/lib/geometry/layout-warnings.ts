@@ -1,5 +1,5 @@
-import { formatLength, type LengthUnit } from '~/lib/format/units';
-import { distance, type Segment } from './plane';
+import { formatLength, type LengthUnit } from '~/lib/format/units.ts';
+import { distance, type Segment } from './plane.ts';
 
 export type LayoutWarningCode =
   | 'frets-closer-than-slot'

@@ -1,16 +1,16 @@
-import type { LengthUnit } from '~/lib/format/units';
-import type { Design } from '~/lib/schemas/design';
+import type { LengthUnit } from '~/lib/format/units.ts';
+import type { Design } from '~/lib/schemas/design.ts';
 
 export type ScaleConvention = Design['scaleAlong'];
-import { acrossBoard, boardOutline, minimumOverrun, stopShortOfEdges } from './board-outline';
-import { layoutMarkers, type LayoutMarker } from './markers';
-import { layoutWarnings, type ClosestGap, type LayoutWarning } from './layout-warnings';
-import { extendBothEnds, intersectLines, lerpPoint, moveToward, type Point, type Segment } from './plane';
-import { remainingFraction } from './temperament';
+import { acrossBoard, boardOutline, minimumOverrun, stopShortOfEdges } from './board-outline.ts';
+import { layoutMarkers, type LayoutMarker } from './markers.ts';
+import { layoutWarnings, type ClosestGap, type LayoutWarning } from './layout-warnings.ts';
+import { extendBothEnds, intersectLines, lerpPoint, moveToward, type Point, type Segment } from './plane.ts';
+import { remainingFraction } from './temperament.ts';
 
-export type { LayoutMarker } from './markers';
-export type { LayoutWarning, LayoutWarningCode } from './layout-warnings';
-export type { Point, Segment } from './plane';
+export type { LayoutMarker } from './markers.ts';
+export type { LayoutWarning, LayoutWarningCode } from './layout-warnings.ts';
+export type { Point, Segment } from './plane.ts';
 
 export interface LayoutString {
   /** 1 = treble .. N = bass. */

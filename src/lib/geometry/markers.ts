@@ -1,5 +1,5 @@
-import type { Marker } from '~/lib/schemas/design';
-import { lerpPoint, type Point, type Segment } from './plane';
+import type { Marker } from '~/lib/schemas/design.ts';
+import { lerpPoint, type Point, type Segment } from './plane.ts';
 
 export interface LayoutMarker {
   fret: number;

@@ -1,4 +1,4 @@
-import { parseScl, type ScalaScale } from './scala';
+import { parseScl, type ScalaScale } from './scala.ts';
 
 /** How the octave (or a Scala scale's period) is divided into frets. */
 export type Temperament = { kind: 'equal'; divisions: number } | { kind: 'scala'; scl: string };

@@ -3,8 +3,8 @@
  * with the same id (`errorId`), so a user's report can be matched to the server's log line.
  */
 import { randomBytes } from 'node:crypto';
-import { isDbUnavailable } from '~/lib/db/db-errors';
-import { problem } from './problem';
+import { isDbUnavailable } from '~/lib/db/db-errors.ts';
+import { problem } from './problem.ts';
 
 /** Logs `kerfline: error <id>: <what>: <error>` and answers 500 naming the id. */
 export function serverError(what: string, error: unknown): Response {

@@ -6,9 +6,9 @@
  * Parts are in board units (the design's mm or in, +x from the nut toward the bridge, +y toward
  * the bass side); a surface only maps them into its own space and style. Pure, no DOM.
  */
-import { fromMm } from '~/lib/format/units';
-import type { FretLine, Layout, Point, Segment } from '~/lib/geometry/layout';
-import { intersectLines } from '~/lib/geometry/plane';
+import { fromMm } from '~/lib/format/units.ts';
+import type { FretLine, Layout, Point, Segment } from '~/lib/geometry/layout.ts';
+import { intersectLines } from '~/lib/geometry/plane.ts';
 
 /** The layers a picture is grouped into, in drawing order (later layers on top). */
 export const PICTURE_LAYERS = [

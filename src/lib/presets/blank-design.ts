@@ -2,7 +2,7 @@
  * The editor's "blank" starting point: a plain single-scale six-string board in millimetres,
  * with neutral values (common practice, from memory) for the user to type over.
  */
-import { validateDesign, type Design } from '~/lib/schemas/design';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 
 const BLANK_INPUT = {
   name: 'Untitled board',

@@ -3,7 +3,7 @@
  * E-mail addresses are trimmed and lower-cased, so lookups are case-insensitive.
  */
 import { z } from 'zod';
-import { isTimeZone } from '~/lib/format/dates';
+import { isTimeZone } from '~/lib/format/dates.ts';
 
 /** A member's role in a shop (the database's enum is made from this list). */
 export const ROLES = ['owner', 'builder', 'client'] as const;

@@ -9,7 +9,7 @@
  * in inches (1 in = 25.4 mm). Defaults are common practice, from memory.
  */
 import { z } from 'zod';
-import { formatLength, fromMm, type LengthUnit } from '~/lib/format/units';
+import { formatLength, fromMm, type LengthUnit } from '~/lib/format/units.ts';
 
 /** The form's groups of fields, in the order the form shows them. */
 export const FIELD_GROUPS = ['Strings and scale', 'Board', 'Slots', 'Compensation'] as const;

@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { formatLength } from '~/lib/format/units';
-import { parseScl } from '~/lib/geometry/scala';
-import { COUNT_ROWS, fieldShape, fieldValues, magnitudeProblems, maxLengthMm } from './design-fields';
+import { formatLength } from '~/lib/format/units.ts';
+import { parseScl } from '~/lib/geometry/scala.ts';
+import { COUNT_ROWS, fieldShape, fieldValues, magnitudeProblems, maxLengthMm } from './design-fields.ts';
 
 /**
  * The design: everything needed to lay out one fretboard. The required field names are part of

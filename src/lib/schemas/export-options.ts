@@ -4,8 +4,8 @@
  * and converted, so the same rules and messages apply everywhere.
  */
 import { z } from 'zod';
-import { maxOverlapMm } from '~/lib/export/page-frame';
-import { PAPER_NAMES } from '~/lib/export/paper-sizes';
+import { maxOverlapMm } from '~/lib/export/page-frame.ts';
+import { PAPER_NAMES } from '~/lib/export/paper-sizes.ts';
 
 export const EXPORT_FORMATS = ['pdf', 'dxf', 'svg', 'csv', 'json'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];

@@ -4,9 +4,9 @@
  * layer. Lengths are in the template's `units`.
  */
 import { z } from 'zod';
-import { DESIGN_LIMITS } from '~/lib/schemas/design';
-import { fromMm } from '~/lib/format/units';
-import type { MeasureLine } from '~/lib/template-check/measure-lines';
+import { DESIGN_LIMITS } from '~/lib/schemas/design.ts';
+import { fromMm } from '~/lib/format/units.ts';
+import type { MeasureLine } from '~/lib/template-check/measure-lines.ts';
 
 export const TEMPLATE_LIMITS = {
   nameMaxChars: 120,

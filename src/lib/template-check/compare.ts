@@ -2,9 +2,9 @@
  * Template check: measured slot positions compared with a design. Pure maths on plain data; every
  * length is in the reference's units (convert measurements and tolerance before calling).
  */
-import { formatLength, fromMm, type LengthUnit } from '~/lib/format/units';
-import { measureLinePhrase, type MeasureLine } from './measure-lines';
-import { referenceAlong, type CheckReference } from './reference';
+import { formatLength, fromMm, type LengthUnit } from '~/lib/format/units.ts';
+import { measureLinePhrase, type MeasureLine } from './measure-lines.ts';
+import { referenceAlong, type CheckReference } from './reference.ts';
 
 /** Default tolerances in mm, common practice: hand-sawn work +/-0.1 mm, CNC +/-0.05 mm. */
 export const DEFAULT_TOLERANCE_MM = { hand: 0.1, cnc: 0.05 } as const;

@@ -4,11 +4,11 @@
  * printed template marks (the zero fret where the design has one, else the drawn nut line).
  * Everything comes from computeLayout; here we only find where its lines cross.
  */
-import { computeLayout, type Layout, type Point, type Segment } from '~/lib/geometry/layout';
-import { intersectLines } from '~/lib/geometry/plane';
-import type { LengthUnit } from '~/lib/format/units';
-import type { Design } from '~/lib/schemas/design';
-import { measureLines, type MeasureLine } from './measure-lines';
+import { computeLayout, type Layout, type Point, type Segment } from '~/lib/geometry/layout.ts';
+import { intersectLines } from '~/lib/geometry/plane.ts';
+import type { LengthUnit } from '~/lib/format/units.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import { measureLines, type MeasureLine } from './measure-lines.ts';
 
 /** One expected slot position along one line, in the design's units. */
 export interface ReferenceSlot {

@@ -3,12 +3,12 @@
  * chose, converted once here into the design's units. Used by the API (authoritative, saved), by
  * the page for an instant preview and by `kerfline check` on the command line.
  */
-import { convertLength, type LengthUnit } from '~/lib/format/units';
-import type { Design } from '~/lib/schemas/design';
-import { compareTemplate, type CheckError, type CheckResult, type Measurement } from './compare';
-import type { MeasureLine } from './measure-lines';
-import { parseMeasurementsCsv, type CsvLineError } from './measurements-csv';
-import { checkReference } from './reference';
+import { convertLength, type LengthUnit } from '~/lib/format/units.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import { compareTemplate, type CheckError, type CheckResult, type Measurement } from './compare.ts';
+import type { MeasureLine } from './measure-lines.ts';
+import { parseMeasurementsCsv, type CsvLineError } from './measurements-csv.ts';
+import { checkReference } from './reference.ts';
 
 export interface CheckInput {
   units: LengthUnit;

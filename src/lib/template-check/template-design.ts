@@ -5,9 +5,9 @@
  * Cutting a fanned strip also needs the slot angles, so there the caller supplies the string
  * spacing and perpendicular fret the typed record lacks (see `fannedStandInDesign`).
  */
-import { fromMm } from '~/lib/format/units';
-import { validateDesign, type Design, type DesignIssue } from '~/lib/schemas/design';
-import type { FanGeometry, TemplateSpec } from '~/lib/schemas/template';
+import { fromMm } from '~/lib/format/units.ts';
+import { validateDesign, type Design, type DesignIssue } from '~/lib/schemas/design.ts';
+import type { FanGeometry, TemplateSpec } from '~/lib/schemas/template.ts';
 
 /** Outer string spacing of the stand-in design; it does not change along-string positions. */
 const STAND_IN_SPACING_MM = 40;

@@ -3,15 +3,15 @@
  * (text/csv, with `units`, `tolerance` and optionally `along`, the line of rows that name none, in
  * the query). Bad input is answered with the line or field at fault and nothing is saved.
  */
-import type { SessionUser } from '~/lib/auth/index.server';
-import { db } from '~/lib/db/client.server';
-import { listChecks, saveCheck, templateDesign } from '~/lib/db/templates.server';
-import { readText } from '~/lib/http/body.server';
-import { invalid, json, problem, zodIssues } from '~/lib/http/problem';
-import { checkGridSchema, checkSettingsSchema } from '~/lib/schemas/template';
-import { MEASUREMENTS_CSV_MAX_BYTES } from '~/lib/template-check/measurements-csv';
-import { runCheck, runCsvCheck, type CheckOutcome } from '~/lib/template-check/run-check';
-import { shelfTemplate } from './route-context.server';
+import type { SessionUser } from '~/lib/auth/index.server.ts';
+import { db } from '~/lib/db/client.server.ts';
+import { listChecks, saveCheck, templateDesign } from '~/lib/db/templates.server.ts';
+import { readText } from '~/lib/http/body.server.ts';
+import { invalid, json, problem, zodIssues } from '~/lib/http/problem.ts';
+import { checkGridSchema, checkSettingsSchema } from '~/lib/schemas/template.ts';
+import { MEASUREMENTS_CSV_MAX_BYTES } from '~/lib/template-check/measurements-csv.ts';
+import { runCheck, runCsvCheck, type CheckOutcome } from '~/lib/template-check/run-check.ts';
+import { shelfTemplate } from './route-context.server.ts';
 
 export async function listChecksRoute(user: SessionUser | null, id: string | undefined): Promise<Response> {
   const found = await shelfTemplate(user, id);

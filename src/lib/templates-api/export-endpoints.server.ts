@@ -4,25 +4,25 @@
  * typed fanned template also takes nutSpacing, saddleSpacing and perpendicularFret).
  * The PDFs are built in the export worker pool; a strip too large for one PDF page is a 422.
  */
-import type { SessionUser } from '~/lib/auth/index.server';
-import { config } from '~/lib/config/env.server';
-import { db } from '~/lib/db/client.server';
-import { templateDesign } from '~/lib/db/templates.server';
-import { tooLarge } from '~/lib/export/design-export.server';
-import { indexTemplateCost, labelCost, refuseOverCap } from '~/lib/export/export-cost';
-import { attachmentHeader, exportFileName } from '~/lib/export/file-name';
-import { indexTemplateStrip } from '~/lib/export/index-template';
+import type { SessionUser } from '~/lib/auth/index.server.ts';
+import { config } from '~/lib/config/env.server.ts';
+import { db } from '~/lib/db/client.server.ts';
+import { templateDesign } from '~/lib/db/templates.server.ts';
+import { tooLarge } from '~/lib/export/design-export.server.ts';
+import { indexTemplateCost, labelCost, refuseOverCap } from '~/lib/export/export-cost.ts';
+import { attachmentHeader, exportFileName } from '~/lib/export/file-name.ts';
+import { indexTemplateStrip } from '~/lib/export/index-template.ts';
 import { indexTemplateDxf } from '~/lib/export/index-template-dxf.server.ts';
-import { LABEL_SIZES, labelSize } from '~/lib/export/index-template-label.server';
-import { indexTemplatePage } from '~/lib/export/index-template-page';
-import { pdfResponse } from '~/lib/export/pdf-kit.server';
-import { runExport } from '~/lib/export/worker/run-export.server';
-import { invalid, problem, zodIssues } from '~/lib/http/problem';
-import { answerOrServerError } from '~/lib/http/server-error.server';
-import type { Design } from '~/lib/schemas/design';
-import { FAN_GEOMETRY_LABELS, fanGeometrySchema, type TemplateView } from '~/lib/schemas/template';
-import { fannedStandInDesign } from '~/lib/template-check/template-design';
-import { shelfTemplate, type Allowed } from './route-context.server';
+import { LABEL_SIZES, labelSize } from '~/lib/export/index-template-label.server.ts';
+import { indexTemplatePage } from '~/lib/export/index-template-page.ts';
+import { pdfResponse } from '~/lib/export/pdf-kit.server.ts';
+import { runExport } from '~/lib/export/worker/run-export.server.ts';
+import { invalid, problem, zodIssues } from '~/lib/http/problem.ts';
+import { answerOrServerError } from '~/lib/http/server-error.server.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import { FAN_GEOMETRY_LABELS, fanGeometrySchema, type TemplateView } from '~/lib/schemas/template.ts';
+import { fannedStandInDesign } from '~/lib/template-check/template-design.ts';
+import { shelfTemplate, type Allowed } from './route-context.server.ts';
 
 export function labelRoute(user: SessionUser | null, id: string | undefined, url: URL, signal?: AbortSignal): Promise<Response> {
   return answerOrServerError('The label', () => label(user, id, url, signal));

@@ -1,9 +1,9 @@
 /** What every Template shelf route does first: the role check, then the template of this shop. */
-import { CAN, requireRole, type SessionUser } from '~/lib/auth/index.server';
-import { db } from '~/lib/db/client.server';
-import { getTemplate } from '~/lib/db/templates.server';
-import { problem } from '~/lib/http/problem';
-import type { TemplateView } from '~/lib/schemas/template';
+import { CAN, requireRole, type SessionUser } from '~/lib/auth/index.server.ts';
+import { db } from '~/lib/db/client.server.ts';
+import { getTemplate } from '~/lib/db/templates.server.ts';
+import { problem } from '~/lib/http/problem.ts';
+import type { TemplateView } from '~/lib/schemas/template.ts';
 
 export type Allowed<T> = { ok: true; value: T } | { ok: false; response: Response };
 

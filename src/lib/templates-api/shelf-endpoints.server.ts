@@ -3,13 +3,13 @@
  * a Template check made against the design before the template was on the shelf: both are saved
  * together, or neither.
  */
-import { db } from '~/lib/db/client.server';
-import { createTemplate, createTemplateWithCheck, listTemplates, retireTemplate, updateTemplate } from '~/lib/db/templates.server';
-import { readValidJson } from '~/lib/http/body.server';
-import { invalid, json, problem, zodIssues } from '~/lib/http/problem';
-import type { SessionUser } from '~/lib/auth/index.server';
-import { templateCreateSchema, templateListQuerySchema, templateUpdateSchema } from '~/lib/schemas/template';
-import { shelfTemplate, shelfUser } from './route-context.server';
+import { db } from '~/lib/db/client.server.ts';
+import { createTemplate, createTemplateWithCheck, listTemplates, retireTemplate, updateTemplate } from '~/lib/db/templates.server.ts';
+import { readValidJson } from '~/lib/http/body.server.ts';
+import { invalid, json, problem, zodIssues } from '~/lib/http/problem.ts';
+import type { SessionUser } from '~/lib/auth/index.server.ts';
+import { templateCreateSchema, templateListQuerySchema, templateUpdateSchema } from '~/lib/schemas/template.ts';
+import { shelfTemplate, shelfUser } from './route-context.server.ts';
 
 const BODY_MAX_BYTES = 16 * 1024;
 

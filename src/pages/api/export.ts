@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { handleExportRequest } from '~/lib/export/export-endpoint.server';
+import { handleExportRequest } from '~/lib/export/export-endpoint.server.ts';
 
 export const prerender = false;
 

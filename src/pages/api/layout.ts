@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server';
+import { handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server.ts';
 
 export const prerender = false;
 

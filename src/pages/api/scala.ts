@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { handleScalaRequest } from '~/lib/geometry-api/scala-endpoint.server';
+import { handleScalaRequest } from '~/lib/geometry-api/scala-endpoint.server.ts';
 
 export const prerender = false;
 

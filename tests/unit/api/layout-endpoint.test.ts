@@ -1,10 +1,10 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { fretTableCsv } from '~/lib/export/csv';
-import { computeLayout } from '~/lib/geometry/layout';
-import { handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server';
-import { invalidFieldArbitrary } from '../geometry/design-arbitraries';
-import { designInput, validDesign, withField } from '../../support/design-builders';
+import { fretTableCsv } from '~/lib/export/csv.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server.ts';
+import { invalidFieldArbitrary } from '../geometry/design-arbitraries.ts';
+import { designInput, validDesign, withField } from '../../support/design-builders.ts';
 
 const URL_BASE = 'http://127.0.0.1:4321/api/layout';
 const FAN = designInput({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { handleScalaRequest } from '~/lib/geometry-api/scala-endpoint.server';
+import { handleScalaRequest } from '~/lib/geometry-api/scala-endpoint.server.ts';
 
 function post(body: BodyInit, type = 'text/plain') {
   return handleScalaRequest(

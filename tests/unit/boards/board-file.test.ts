@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { boardFile, readBoardFile } from '~/lib/boards/board-file.ts';
-import { exportFileName } from '~/lib/export/file-name';
+import { exportFileName } from '~/lib/export/file-name.ts';
 import { scaleText } from '~/components/boards/board-labels.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 

@@ -6,10 +6,10 @@ import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
 import { parseCommand } from '~/lib/cli/parse-command.server.ts';
-import { runKerfline } from '~/lib/cli/run-kerfline.server';
-import { computeLayout } from '~/lib/geometry/layout';
-import { validateDesign } from '~/lib/schemas/design';
-import { expectNear } from '../../support/expect-near';
+import { runKerfline } from '~/lib/cli/run-kerfline.server.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { validateDesign } from '~/lib/schemas/design.ts';
+import { expectNear } from '../../support/expect-near.ts';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const FAN_FILE = join(ROOT, 'src/lib/boards/demo/seven-string-fan.json');

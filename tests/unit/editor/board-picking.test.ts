@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { distanceToSegment, nearestFret, snapPoint, snapTargets } from '~/components/editor/board-picking';
-import { computeLayout } from '~/lib/geometry/layout';
+import { distanceToSegment, nearestFret, snapPoint, snapTargets } from '~/components/editor/board-picking.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 
 const fan = DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan');

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { BoardRequestError } from '~/components/boards/board-requests';
-import { boardStore, type BoardRequests } from '~/components/editor/design-store';
+import { BoardRequestError } from '~/components/boards/board-requests.ts';
+import { boardStore, type BoardRequests } from '~/components/editor/design-store.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import type { BoardDetail } from '~/lib/schemas/board';
-import type { Design } from '~/lib/schemas/design';
+import type { BoardDetail } from '~/lib/schemas/board.ts';
+import type { Design } from '~/lib/schemas/design.ts';
 
 const design = DEMO_DESIGNS[0]!.design;
 

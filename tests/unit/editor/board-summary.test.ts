@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { describeBoard } from '~/components/editor/board-summary';
-import { computeLayout } from '~/lib/geometry/layout';
+import { describeBoard } from '~/components/editor/board-summary.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 
 describe('text summary of the drawing', () => {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { applySpacingOffer, draftFromDesign, parseLength, spacingOffer, switchUnits, typedLength, validateDraft, type DesignDraft } from '~/components/editor/design-draft';
-import { blankDesign } from '~/lib/presets/blank-design';
+import { applySpacingOffer, draftFromDesign, parseLength, spacingOffer, switchUnits, typedLength, validateDraft, type DesignDraft } from '~/components/editor/design-draft.ts';
+import { blankDesign } from '~/lib/presets/blank-design.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import type { Design } from '~/lib/schemas/design';
+import type { Design } from '~/lib/schemas/design.ts';
 
 function demo(id: string): Design {
   const found = DEMO_DESIGNS.find((d) => d.id === id);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { SCRATCH_STORAGE_KEY, scratchStore } from '~/components/editor/design-store';
-import { loadScreenPxPerMm, measurementProblem, pxPerMmFromMeasurement, saveScreenPxPerMm } from '~/components/editor/screen-calibration';
+import { SCRATCH_STORAGE_KEY, scratchStore } from '~/components/editor/design-store.ts';
+import { loadScreenPxPerMm, measurementProblem, pxPerMmFromMeasurement, saveScreenPxPerMm } from '~/components/editor/screen-calibration.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 
 function memoryStorage() {

@@ -10,8 +10,8 @@ import {
   zoomAt,
   zoomBy,
   type View,
-} from '~/components/editor/view-transform';
-import { expectNear } from '../../support/expect-near';
+} from '~/components/editor/view-transform.ts';
+import { expectNear } from '../../support/expect-near.ts';
 
 const view: View = { zoom: 2.5, originX: 40, originY: 300 };
 

@@ -8,15 +8,15 @@
 import DxfParser from 'dxf-parser';
 import { describe, expect, it } from 'vitest';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { boardThumbnailSvg } from '~/lib/export/board-thumbnail';
-import { exportDesign } from '~/lib/export/export-design.server';
-import { exportFileName } from '~/lib/export/file-name';
-import { proofDrawing } from '~/lib/export/proof-drawing';
-import { toMm } from '~/lib/format/units';
-import { computeLayout } from '~/lib/geometry/layout';
-import { boardPicture, partsOn } from '~/lib/picture/board-picture';
-import { validateDesign, type Design } from '~/lib/schemas/design';
-import { validateExportOptions } from '~/lib/schemas/export-options';
+import { boardThumbnailSvg } from '~/lib/export/board-thumbnail.ts';
+import { exportDesign } from '~/lib/export/export-design.server.ts';
+import { exportFileName } from '~/lib/export/file-name.ts';
+import { proofDrawing } from '~/lib/export/proof-drawing.ts';
+import { toMm } from '~/lib/format/units.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { boardPicture, partsOn } from '~/lib/picture/board-picture.ts';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
+import { validateExportOptions } from '~/lib/schemas/export-options.ts';
 import { readPdf } from '../../support/pdf-readback.ts';
 
 /** What a surface shows. Dot diameters in mm, rounded to 0.1 mm; frets by number. */

@@ -2,9 +2,9 @@ import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runKerfline } from '~/lib/cli/run-kerfline.server';
-import { handleExportRequest } from '~/lib/export/export-endpoint.server';
-import { exportFileName } from '~/lib/export/file-name';
+import { runKerfline } from '~/lib/cli/run-kerfline.server.ts';
+import { handleExportRequest } from '~/lib/export/export-endpoint.server.ts';
+import { exportFileName } from '~/lib/export/file-name.ts';
 import sevenStringFan from '../../../src/lib/boards/demo/seven-string-fan.json';
 
 function post(query: string, body: unknown, type = 'application/json'): Promise<Response> {

@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { layoutExportCost, layoutExportRefusal, refuseOverCap, type ExportCost } from '~/lib/export/export-cost';
-import { exportDesign } from '~/lib/export/export-design.server';
-import { EXPORT_LIMITS } from '~/lib/export/export-limits';
-import { sheetDrawing } from '~/lib/export/sheet-drawing';
-import { planTiles } from '~/lib/export/tile-pages';
-import { computeLayout } from '~/lib/geometry/layout';
+import { layoutExportCost, layoutExportRefusal, refuseOverCap, type ExportCost } from '~/lib/export/export-cost.ts';
+import { exportDesign } from '~/lib/export/export-design.server.ts';
+import { EXPORT_LIMITS } from '~/lib/export/export-limits.ts';
+import { sheetDrawing } from '~/lib/export/sheet-drawing.ts';
+import { planTiles } from '~/lib/export/tile-pages.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { DESIGN_LIMITS, type Design } from '~/lib/schemas/design';
-import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options';
+import { DESIGN_LIMITS, type Design } from '~/lib/schemas/design.ts';
+import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options.ts';
 import { designOf } from '../../support/design-builders.ts';
 import { readPdf } from '../../support/pdf-readback.ts';
 

@@ -8,10 +8,10 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { handleExportRequest } from '~/lib/export/export-endpoint.server';
-import { EXPORT_POOL } from '~/lib/export/export-limits';
-import { createExportPool, defaultPoolSettings, type ExportPool, type ExportPoolSettings } from '~/lib/export/worker/export-pool.server';
-import { runExport } from '~/lib/export/worker/run-export.server';
+import { handleExportRequest } from '~/lib/export/export-endpoint.server.ts';
+import { EXPORT_POOL } from '~/lib/export/export-limits.ts';
+import { createExportPool, defaultPoolSettings, type ExportPool, type ExportPoolSettings } from '~/lib/export/worker/export-pool.server.ts';
+import { runExport } from '~/lib/export/worker/run-export.server.ts';
 import { designOf } from '../../support/design-builders.ts';
 
 /** The heaviest paper template the caps allow: the largest design on 200 Letter pages. */

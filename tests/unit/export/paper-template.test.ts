@@ -2,14 +2,14 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { PNG } from 'pngjs';
 import { describe, expect, it } from 'vitest';
-import { exportDesign } from '~/lib/export/export-design.server';
-import { sheetDrawing } from '~/lib/export/sheet-drawing';
-import { planTiles, type TilePlan } from '~/lib/export/tile-pages';
-import { computeLayout, type Layout } from '~/lib/geometry/layout';
+import { exportDesign } from '~/lib/export/export-design.server.ts';
+import { sheetDrawing } from '~/lib/export/sheet-drawing.ts';
+import { planTiles, type TilePlan } from '~/lib/export/tile-pages.ts';
+import { computeLayout, type Layout } from '~/lib/geometry/layout.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import type { Design } from '~/lib/schemas/design';
-import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options';
-import { referenceLine } from '~/lib/template-check/reference';
+import type { Design } from '~/lib/schemas/design.ts';
+import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options.ts';
+import { referenceLine } from '~/lib/template-check/reference.ts';
 import { pageText, pdfFonts, readPdf, renderPage, type PageSegment, type ReadPage } from '../../support/pdf-readback.ts';
 
 /** ISO 32000-1: PDF user space units are 1/72 in; 1 in = 25.4 mm exactly. */

@@ -1,11 +1,11 @@
 import DxfParser from 'dxf-parser';
 import { describe, expect, it } from 'vitest';
-import { exportDesign } from '~/lib/export/export-design.server';
-import { computeLayout, type Layout, type Point } from '~/lib/geometry/layout';
+import { exportDesign } from '~/lib/export/export-design.server.ts';
+import { computeLayout, type Layout, type Point } from '~/lib/geometry/layout.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { validateDesign, type Design } from '~/lib/schemas/design';
-import { validateExportOptions } from '~/lib/schemas/export-options';
-import { distanceToLine } from '../../support/expect-near';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
+import { validateExportOptions } from '~/lib/schemas/export-options.ts';
+import { distanceToLine } from '../../support/expect-near.ts';
 
 /** Slot end points must survive the file round trip to within 1e-9 of the design's unit. */
 const TOLERANCE = 1e-9;

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { maxOverlapMm } from '~/lib/export/page-frame';
-import { inWindow, planTiles, type Box } from '~/lib/export/tile-pages';
-import { validateExportOptions } from '~/lib/schemas/export-options';
+import { maxOverlapMm } from '~/lib/export/page-frame.ts';
+import { inWindow, planTiles, type Box } from '~/lib/export/tile-pages.ts';
+import { validateExportOptions } from '~/lib/schemas/export-options.ts';
 
 /** A board-sized drawing: 700 x 90 mm (invented demo numbers). */
 const LONG: Box = { minX: -10, minY: -45, maxX: 690, maxY: 45 };

@@ -1,6 +1,6 @@
 /** Dates in a shop's time zone, checked against the IANA tz database as Node's ICU ships it. */
 import { describe, expect, it } from 'vitest';
-import { dayInZone, isTimeZone, momentInZone, timeZones } from '~/lib/format/dates';
+import { dayInZone, isTimeZone, momentInZone, timeZones } from '~/lib/format/dates.ts';
 
 // 2026-12-03T23:30Z is still the 3rd in London (GMT in winter) and already the 4th in Auckland
 // (NZDT, UTC+13, from the tz database).

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { FRET_TABLE_HEADER, fretTableCsv } from '~/lib/export/csv';
-import { layoutOf } from '../../support/design-builders';
+import { FRET_TABLE_HEADER, fretTableCsv } from '~/lib/export/csv.ts';
+import { layoutOf } from '../../support/design-builders.ts';
 
 describe('fret table CSV', () => {
   const layout = layoutOf({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8, frets: 24 });

@@ -1,5 +1,5 @@
 import fc from 'fast-check';
-import type { DesignInput } from '~/lib/schemas/design';
+import type { DesignInput } from '~/lib/schemas/design.ts';
 
 /** Random valid designs in mm over the whole accepted range of strings, frets and temperaments. */
 export const validDesignArbitrary: fc.Arbitrary<DesignInput> = fc

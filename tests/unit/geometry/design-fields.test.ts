@@ -4,10 +4,10 @@
  * practice values); 1 in = 25.4 mm exactly (NIST SP 811, appendix B).
  */
 import { describe, expect, it } from 'vitest';
-import { DESIGN_FIELDS, LENGTH_ROWS, fieldValue, setFieldValue } from '~/lib/schemas/design-fields';
-import { validateDesign } from '~/lib/schemas/design';
-import { draftFromDesign, validateDraft } from '~/components/editor/design-draft';
-import { designInput } from '../../support/design-builders';
+import { DESIGN_FIELDS, LENGTH_ROWS, fieldValue, setFieldValue } from '~/lib/schemas/design-fields.ts';
+import { validateDesign } from '~/lib/schemas/design.ts';
+import { draftFromDesign, validateDraft } from '~/components/editor/design-draft.ts';
+import { designInput } from '../../support/design-builders.ts';
 
 const MM_PER_IN = 25.4;
 

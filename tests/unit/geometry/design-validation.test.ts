@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { validateDesign } from '~/lib/schemas/design';
-import { designInput, validDesign, withField } from '../../support/design-builders';
+import { validateDesign } from '~/lib/schemas/design.ts';
+import { designInput, validDesign, withField } from '../../support/design-builders.ts';
 
 function issuePaths(input: unknown): string[] {
   const validation = validateDesign(input);

@@ -1,7 +1,7 @@
 import { Midi } from 'tonal';
 import { describe, expect, it } from 'vitest';
-import { expectNear } from '../../support/expect-near';
-import { fretPoint, layoutOf } from '../../support/design-builders';
+import { expectNear } from '../../support/expect-near.ts';
+import { fretPoint, layoutOf } from '../../support/design-builders.ts';
 
 const CHECKED_FRETS = [1, 2, 5, 7, 12, 17, 19, 22, 24];
 

@@ -1,9 +1,9 @@
 import { readFile, readdir } from 'node:fs/promises';
 import { describe, expect, it } from 'vitest';
-import { fretTableCsv } from '~/lib/export/csv';
-import { computeLayout } from '~/lib/geometry/layout';
+import { fretTableCsv } from '~/lib/export/csv.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { validDesign } from '../../support/design-builders';
+import { validDesign } from '../../support/design-builders.ts';
 
 const FIXTURES = new URL('../../../fixtures/', import.meta.url);
 const DESIGNS = new URL('../../../src/lib/boards/demo/', import.meta.url);

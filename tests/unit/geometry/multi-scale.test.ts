@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { fretTableCsv } from '~/lib/export/csv';
-import { distance, type Point } from '~/lib/geometry/plane';
-import { kerfOutline } from '~/lib/export/kerf-outline';
-import { distanceToLine, expectNear } from '../../support/expect-near';
-import { fretPoint, layoutOf } from '../../support/design-builders';
+import { fretTableCsv } from '~/lib/export/csv.ts';
+import { distance, type Point } from '~/lib/geometry/plane.ts';
+import { kerfOutline } from '~/lib/export/kerf-outline.ts';
+import { distanceToLine, expectNear } from '../../support/expect-near.ts';
+import { fretPoint, layoutOf } from '../../support/design-builders.ts';
 
 const FAN = {
   strings: 7,

@@ -1,10 +1,10 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { computeLayout } from '~/lib/geometry/layout';
-import { distance, type Point } from '~/lib/geometry/plane';
-import { validateDesign } from '~/lib/schemas/design';
-import { invalidFieldArbitrary, validDesignArbitrary } from './design-arbitraries';
-import { validDesign, withField } from '../../support/design-builders';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { distance, type Point } from '~/lib/geometry/plane.ts';
+import { validateDesign } from '~/lib/schemas/design.ts';
+import { invalidFieldArbitrary, validDesignArbitrary } from './design-arbitraries.ts';
+import { validDesign, withField } from '../../support/design-builders.ts';
 
 function offLine(point: Point, a: Point, b: Point): number {
   return Math.abs((b.x - a.x) * (point.y - a.y) - (b.y - a.y) * (point.x - a.x)) / distance(a, b);

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { parseScl } from '~/lib/geometry/scala';
-import { validateDesign } from '~/lib/schemas/design';
-import { expectNear } from '../../support/expect-near';
-import { designInput, fretPoint, layoutOf } from '../../support/design-builders';
+import { parseScl } from '~/lib/geometry/scala.ts';
+import { validateDesign } from '~/lib/schemas/design.ts';
+import { expectNear } from '../../support/expect-near.ts';
+import { designInput, fretPoint, layoutOf } from '../../support/design-builders.ts';
 
 /** 12-tone equal temperament written as a .scl file in cents (Scala .scl format). */
 const TWELVE_TET_SCL = [

@@ -6,9 +6,9 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { computeLayout } from '~/lib/geometry/layout';
-import { expectNear } from '../../support/expect-near';
-import { designOf } from '../../support/design-builders';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { expectNear } from '../../support/expect-near.ts';
+import { designOf } from '../../support/design-builders.ts';
 
 const IN = 25.4;
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { MM_PER_INCH, convertLength, formatLength, fromMm, inToMm, mmToIn, toMm } from '~/lib/format/units';
-import { expectNear } from '../../support/expect-near';
-import { layoutOf } from '../../support/design-builders';
+import { MM_PER_INCH, convertLength, formatLength, fromMm, inToMm, mmToIn, toMm } from '~/lib/format/units.ts';
+import { expectNear } from '../../support/expect-near.ts';
+import { layoutOf } from '../../support/design-builders.ts';
 
 const MM_DESIGN = {
   units: 'mm' as const,

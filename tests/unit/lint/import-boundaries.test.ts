@@ -18,18 +18,27 @@ describe('import boundaries', () => {
     ['a pure lib module importing a .server module', 'src/lib/export/example.ts', "import { sendMail } from '~/lib/mail/send.server.ts';"],
     ['a pure module using a server-only package', 'src/lib/export/example.ts', "import makerjs from 'makerjs';"],
     ['a pure module using node: built-ins', 'src/lib/boards/example.ts', "import { readFileSync } from 'node:fs';"],
-    ['geometry importing beyond geometry, units and the design schema', 'src/lib/geometry/example.ts', "import { exportFileName } from '~/lib/export/file-name';"],
-    ['lib importing a component', 'src/lib/boards/example.server.ts', "import { BoardsTable } from '~/components/boards/BoardsTable';"],
+    ['geometry importing beyond geometry, units and the design schema', 'src/lib/geometry/example.ts', "import { exportFileName } from '~/lib/export/file-name.ts';"],
+    ['lib importing a component', 'src/lib/boards/example.server.ts', "import { BoardsTable } from '~/components/boards/BoardsTable.tsx';"],
     ['the product importing test fixtures', 'src/lib/boards/example.ts', "import table from '../../../fixtures/tables/mandolin.csv?raw';"],
   ])('refuses %s', async (_what, path, code) => {
     expect((await problems(path, code)).length).toBeGreaterThan(0);
   });
 
   it.each([
-    ['a type-only import of a server type in a component', 'src/components/templates/Example.tsx', "import type { SavedCheck } from '~/lib/db/templates.server';"],
-    ['geometry importing geometry, units and the design schema', 'src/lib/geometry/example.ts', "import { lerpPoint } from './plane';\nimport { fromMm } from '~/lib/format/units';\nimport type { Design } from '~/lib/schemas/design';"],
+    ['a type-only import of a server type in a component', 'src/components/templates/Example.tsx', "import type { SavedCheck } from '~/lib/db/templates.server.ts';"],
+    ['geometry importing geometry, units and the design schema', 'src/lib/geometry/example.ts', "import { lerpPoint } from './plane.ts';\nimport { fromMm } from '~/lib/format/units.ts';\nimport type { Design } from '~/lib/schemas/design.ts';"],
     ['a .server module using server packages and modules', 'src/lib/export/example.server.ts', "import makerjs from 'makerjs';\nimport { db } from '~/lib/db/client.server.ts';"],
   ])('allows %s', async (_what, path, code) => {
     expect(await problems(path, code)).toEqual([]);
+  });
+});
+
+describe('one import spelling', () => {
+  it('refuses a project module named without its extension, and takes it with one', async () => {
+    expect((await problems('src/lib/export/example.ts', "import { computeLayout } from '~/lib/geometry/layout';")).length).toBeGreaterThan(0);
+    expect((await problems('src/lib/geometry/example.ts', "import { lerpPoint } from './plane';")).length).toBeGreaterThan(0);
+    expect(await problems('src/lib/export/example.ts', "import { computeLayout } from '~/lib/geometry/layout.ts';")).toEqual([]);
+    expect(await problems('src/lib/export/example.ts', "import { z } from 'zod';")).toEqual([]);
   });
 });

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { proofDrawing } from '~/lib/export/proof-drawing';
-import { designSpecs } from '~/lib/format/design-specs';
-import { computeLayout } from '~/lib/geometry/layout';
-import { decisionSchema, PROOF_LIMITS } from '~/lib/schemas/proof';
-import { designInput, validDesign } from '../../support/design-builders';
+import { proofDrawing } from '~/lib/export/proof-drawing.ts';
+import { designSpecs } from '~/lib/format/design-specs.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { decisionSchema, PROOF_LIMITS } from '~/lib/schemas/proof.ts';
+import { designInput, validDesign } from '../../support/design-builders.ts';
 
 const FAN = validDesign(designInput({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8, stringSpacing: { nut: 41, bridge: 63 } }));
 

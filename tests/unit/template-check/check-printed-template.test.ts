@@ -15,15 +15,15 @@
  */
 import { describe, expect, it } from 'vitest';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { exportDesign } from '~/lib/export/export-design.server';
-import { sheetDrawing } from '~/lib/export/sheet-drawing';
-import { planTiles } from '~/lib/export/tile-pages';
-import { computeLayout } from '~/lib/geometry/layout';
-import type { Design } from '~/lib/schemas/design';
-import { validateExportOptions } from '~/lib/schemas/export-options';
-import { defaultTolerance, type Measurement } from '~/lib/template-check/compare';
-import { measureLines, type MeasureLine } from '~/lib/template-check/measure-lines';
-import { runCheck } from '~/lib/template-check/run-check';
+import { exportDesign } from '~/lib/export/export-design.server.ts';
+import { sheetDrawing } from '~/lib/export/sheet-drawing.ts';
+import { planTiles } from '~/lib/export/tile-pages.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import { validateExportOptions } from '~/lib/schemas/export-options.ts';
+import { defaultTolerance, type Measurement } from '~/lib/template-check/compare.ts';
+import { measureLines, type MeasureLine } from '~/lib/template-check/measure-lines.ts';
+import { runCheck } from '~/lib/template-check/run-check.ts';
 import { readPdf, type PageSegment } from '../../support/pdf-readback.ts';
 
 /** ISO 32000-1: PDF user space units are 1/72 in; 1 in = 25.4 mm exactly. */

@@ -1,9 +1,9 @@
 import { Interval, Midi, Note } from 'tonal';
 import { describe, expect, it } from 'vitest';
-import { centsError, compareTemplate, defaultTolerance, type Measurement } from '~/lib/template-check/compare';
-import { checkReference } from '~/lib/template-check/reference';
-import { designOf } from '../../support/design-builders';
-import { expectNear } from '../../support/expect-near';
+import { centsError, compareTemplate, defaultTolerance, type Measurement } from '~/lib/template-check/compare.ts';
+import { checkReference } from '~/lib/template-check/reference.ts';
+import { designOf } from '../../support/design-builders.ts';
+import { expectNear } from '../../support/expect-near.ts';
 
 const FRETS = Array.from({ length: 20 }, (_, i) => i + 1);
 

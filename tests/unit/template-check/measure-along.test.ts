@@ -1,15 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { computeLayout, type Layout } from '~/lib/geometry/layout';
-import type { Design } from '~/lib/schemas/design';
-import { checkGridSchema } from '~/lib/schemas/template';
-import { defaultTolerance, type CheckResult, type Measurement } from '~/lib/template-check/compare';
-import type { MeasureLine } from '~/lib/template-check/measure-lines';
-import { checkReference, referenceAlong } from '~/lib/template-check/reference';
-import { runCheck } from '~/lib/template-check/run-check';
-import { readSavedResult } from '~/lib/template-check/saved-result';
-import { validDesign } from '../../support/design-builders';
-import { expectNear } from '../../support/expect-near';
+import { computeLayout, type Layout } from '~/lib/geometry/layout.ts';
+import type { Design } from '~/lib/schemas/design.ts';
+import { checkGridSchema } from '~/lib/schemas/template.ts';
+import { defaultTolerance, type CheckResult, type Measurement } from '~/lib/template-check/compare.ts';
+import type { MeasureLine } from '~/lib/template-check/measure-lines.ts';
+import { checkReference, referenceAlong } from '~/lib/template-check/reference.ts';
+import { runCheck } from '~/lib/template-check/run-check.ts';
+import { readSavedResult } from '~/lib/template-check/saved-result.ts';
+import { validDesign } from '../../support/design-builders.ts';
+import { expectNear } from '../../support/expect-near.ts';
 
 const FANS = ['seven-string-fan', 'short-scale-bass'].map((id) => DEMO_DESIGNS.find((d) => d.id === id)!);
 

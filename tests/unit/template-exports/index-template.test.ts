@@ -1,12 +1,12 @@
 import DxfParser from 'dxf-parser';
 import { describe, expect, it } from 'vitest';
-import { indexTemplateStrip } from '~/lib/export/index-template';
+import { indexTemplateStrip } from '~/lib/export/index-template.ts';
 import { INDEX_TEMPLATE_LAYERS, indexTemplateDxf } from '~/lib/export/index-template-dxf.server.ts';
-import { dxfComments } from '../../support/dxf-comments';
-import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server';
-import { computeLayout } from '~/lib/geometry/layout';
-import { designOf } from '../../support/design-builders';
-import { expectNear } from '../../support/expect-near';
+import { dxfComments } from '../../support/dxf-comments.ts';
+import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
+import { designOf } from '../../support/design-builders.ts';
+import { expectNear } from '../../support/expect-near.ts';
 import { pageText, readPdf } from '../../support/pdf-readback.ts';
 
 /** Closed form for 12-tone equal temperament: d(n) = L (1 - 2^(-n/12)). */

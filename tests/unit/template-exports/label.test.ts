@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { LABEL_SIZES, labelSize, scaleInBothUnits, templateLabelPdf, type LabelContent } from '~/lib/export/index-template-label.server';
-import { expectNear } from '../../support/expect-near';
+import { LABEL_SIZES, labelSize, scaleInBothUnits, templateLabelPdf, type LabelContent } from '~/lib/export/index-template-label.server.ts';
+import { expectNear } from '../../support/expect-near.ts';
 import { decodeQr, readPdf } from '../../support/pdf-readback.ts';
 
 const PT_PER_MM = 72 / 25.4; // ISO 32000-1: 72 pt = 1 in = 25.4 mm

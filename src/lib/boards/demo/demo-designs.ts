@@ -4,7 +4,7 @@
  * fixtures/tables are computed from these files.
  * Demo data: plausible values, not measurements of any real instrument.
  */
-import { validateDesign, type Design } from '~/lib/schemas/design';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 import classical650 from './classical-650.json';
 import mandolin from './mandolin.json';
 import sevenStringFan from './seven-string-fan.json';

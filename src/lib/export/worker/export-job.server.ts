@@ -3,12 +3,12 @@
  * receive, and the one function that builds their bytes. The worker (export-worker.server.ts)
  * only calls `buildExportFile`; the command line calls exportDesign itself, in its own process.
  */
-import type { Design } from '~/lib/schemas/design';
-import type { ExportOptions } from '~/lib/schemas/export-options';
-import { exportDesign, type ExportContext, type ExportFile } from '../export-design.server';
-import type { IndexTemplateStrip } from '../index-template';
-import { templateLabelPdf, type LabelContent, type LabelSize } from '../index-template-label.server';
-import { indexTemplatePdf } from '../index-template-pdf.server';
+import type { Design } from '~/lib/schemas/design.ts';
+import type { ExportOptions } from '~/lib/schemas/export-options.ts';
+import { exportDesign, type ExportContext, type ExportFile } from '../export-design.server.ts';
+import type { IndexTemplateStrip } from '../index-template.ts';
+import { templateLabelPdf, type LabelContent, type LabelSize } from '../index-template-label.server.ts';
+import { indexTemplatePdf } from '../index-template-pdf.server.ts';
 
 export type ExportJob =
   | { kind: 'design'; design: Design; options: ExportOptions; context: ExportContext }

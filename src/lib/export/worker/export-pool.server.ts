@@ -8,9 +8,9 @@ import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { Piscina } from 'piscina';
-import type { ExportFile } from '../export-design.server';
-import { EXPORT_POOL } from '../export-limits';
-import type { ExportJob } from './export-job.server';
+import type { ExportFile } from '../export-design.server.ts';
+import { EXPORT_POOL } from '../export-limits.ts';
+import type { ExportJob } from './export-job.server.ts';
 
 /** The bundled worker, from the project root (the server runs there: npm start, npm test). */
 export const EXPORT_WORKER_FILE = 'dist/workers/export-worker.mjs';

@@ -4,8 +4,8 @@
  * server code is split into chunks a worker cannot name.
  */
 import { parentPort } from 'node:worker_threads';
-import { buildExportFile } from './export-job.server';
-import type { PooledJob } from './export-pool.server';
+import { buildExportFile } from './export-job.server.ts';
+import type { PooledJob } from './export-pool.server.ts';
 
 export default function exportWorker({ id, job }: PooledJob) {
   // Tells the pool this job has left the queue (piscina itself does not say).

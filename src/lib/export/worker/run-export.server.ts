@@ -3,12 +3,12 @@
  * 503 with Retry-After when the queue is full, 504 when the job ran out of time, 500 with an
  * error id for anything unexpected (the server logs the same id).
  */
-import type { ExportFile } from '../export-design.server';
-import { EXPORT_POOL } from '../export-limits';
-import { problem } from '~/lib/http/problem';
-import { serverError } from '~/lib/http/server-error.server';
-import type { ExportJob } from './export-job.server';
-import { exportPool, type ExportPool, type PoolOutcome } from './export-pool.server';
+import type { ExportFile } from '../export-design.server.ts';
+import { EXPORT_POOL } from '../export-limits.ts';
+import { problem } from '~/lib/http/problem.ts';
+import { serverError } from '~/lib/http/server-error.server.ts';
+import type { ExportJob } from './export-job.server.ts';
+import { exportPool, type ExportPool, type PoolOutcome } from './export-pool.server.ts';
 
 export type ExportRun = { ok: true; file: ExportFile } | { ok: false; response: Response };
 
