@@ -128,6 +128,15 @@ describe('creating a proof', () => {
     const list = await callRoute(designProofsRoute.GET, { path: `/api/designs/${designId}/proofs`, user: otherOwner, params: { id: String(designId) } });
     expect(list.status).toBe(404);
   });
+
+  it('reads ids strictly, as every route does: "7e0", "07" or " 7" name no design (404), though Number() would say 7', async () => {
+    for (const raw of [`${designId}e0`, `0${designId}`, ` ${designId}`, `${designId}.0`]) {
+      const list = await callRoute(designProofsRoute.GET, { path: `/api/designs/${encodeURIComponent(raw)}/proofs`, user: owner, params: { id: raw } });
+      expect(list.status, raw).toBe(404);
+    }
+    const plain = await callRoute(designProofsRoute.GET, { path: `/api/designs/${designId}/proofs`, user: owner, params: { id: String(designId) } });
+    expect(plain.status).toBe(200);
+  });
 });
 
 describe('opening a proof', () => {

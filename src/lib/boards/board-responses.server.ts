@@ -3,6 +3,7 @@
  * board it names), design validation with field paths, and one mapping from a write's outcome to
  * a status code.
  */
+import { parseRecordId } from '~/lib/http/record-id.ts';
 import { CAN, requireRole, type Guarded, type SessionUser } from '~/lib/auth/index.server.ts';
 import { getDesign, type WriteResult } from '~/lib/db/designs.server.ts';
 import { json, problem, type FieldIssue } from '~/lib/http/problem.ts';
@@ -20,12 +21,6 @@ export function boardNotFound(): Response {
   return problem(404, NOT_FOUND);
 }
 
-/** The `[id]` route parameter as a board id, or null (answered as 404, like any unknown id). */
-export function boardId(param: string | undefined): number | null {
-  if (!param || !/^[1-9][0-9]{0,15}$/.test(param)) return null;
-  const id = Number(param);
-  return Number.isSafeInteger(id) ? id : null;
-}
 
 export type BoardTarget = { ok: true; user: SessionUser; id: number } | { ok: false; response: Response };
 
@@ -33,7 +28,7 @@ export type BoardTarget = { ok: true; user: SessionUser; id: number } | { ok: fa
 export function boardTarget(user: SessionUser | null, param: string | undefined): BoardTarget {
   const guard = requireBoardsUser(user);
   if (!guard.ok) return guard;
-  const id = boardId(param);
+  const id = parseRecordId(param);
   return id === null ? { ok: false, response: boardNotFound() } : { ok: true, user: guard.user, id };
 }
 
@@ -48,7 +43,7 @@ export type RequestedBoard =
 export async function requestedBoard(user: SessionUser | null, idParam: string | undefined, revisionParam: string | null | undefined): Promise<RequestedBoard> {
   const target = boardTarget(user, idParam);
   if (!target.ok) return target;
-  const revision = revisionParam === null || revisionParam === undefined ? undefined : boardId(revisionParam);
+  const revision = revisionParam === null || revisionParam === undefined ? undefined : parseRecordId(revisionParam);
   if (revision === null) return { ok: false, response: problem(400, 'revision must be a whole number from 1', { field: 'revision' }) };
   const board = await getDesign(target.user.shopId, target.id, revision);
   return board ? { ok: true, user: target.user, board, revision } : { ok: false, response: boardNotFound() };

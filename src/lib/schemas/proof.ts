@@ -120,6 +120,3 @@ export const PROOF_STATE_LABELS: Readonly<Record<ProofState, string>> = {
   revoked: 'revoked',
   expired: 'expired',
 };
-
-/** A database id in a URL: a positive whole number (anything else is simply not found). */
-export const recordIdSchema = z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER);

@@ -1,4 +1,5 @@
 /** What every Template shelf route does first: the role check, then the template of this shop. */
+import { parseRecordId } from '~/lib/http/record-id.ts';
 import { CAN, requireRole, type SessionUser } from '~/lib/auth/index.server.ts';
 import { db } from '~/lib/db/client.server.ts';
 import { getTemplate } from '~/lib/db/templates.server.ts';
@@ -13,18 +14,12 @@ export function shelfUser(user: SessionUser | null): Allowed<SessionUser> {
   return guard.ok ? { ok: true, value: guard.user } : { ok: false, response: guard.response };
 }
 
-/** Parses a positive whole id from a route parameter; anything else is "not found". */
-export function parseId(raw: string | undefined): number | null {
-  if (!raw || !/^[1-9]\d{0,15}$/.test(raw)) return null;
-  const id = Number(raw);
-  return Number.isSafeInteger(id) ? id : null;
-}
 
 /** The signed-in shop member and the template `rawId` of their shop; 404 for any other id. */
 export async function shelfTemplate(user: SessionUser | null, rawId: string | undefined): Promise<Allowed<{ user: SessionUser; template: TemplateView }>> {
   const allowed = shelfUser(user);
   if (!allowed.ok) return allowed;
-  const id = parseId(rawId);
+  const id = parseRecordId(rawId);
   const template = id === null ? null : await getTemplate(db(), allowed.value.shopId, id);
   if (!template) return { ok: false, response: problem(404, 'No such template') };
   return { ok: true, value: { user: allowed.value, template } };

@@ -5,7 +5,8 @@ import { inMinutes } from '~/lib/accounts/limits.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { json, problem } from '~/lib/http/problem.ts';
 import { limitMail } from '~/lib/mail/mail-budgets.server.ts';
-import { createProofSchema, recordIdSchema } from '~/lib/schemas/proof.ts';
+import { parseRecordId } from '~/lib/http/record-id.ts';
+import { createProofSchema } from '~/lib/schemas/proof.ts';
 
 export const prerender = false;
 
@@ -16,8 +17,8 @@ const NO_DESIGN = 'No such design in your shop';
 export const GET: APIRoute = async ({ params, locals }) => {
   const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
-  const id = recordIdSchema.safeParse(params.id);
-  const list = id.success ? await listDesignProofs(guard.user.shopId, id.data, new Date()) : null;
+  const id = parseRecordId(params.id);
+  const list = id !== null ? await listDesignProofs(guard.user.shopId, id, new Date()) : null;
   return list ? json({ proofs: list }) : problem(404, NO_DESIGN);
 };
 
@@ -29,8 +30,8 @@ export const GET: APIRoute = async ({ params, locals }) => {
 export const POST: APIRoute = async ({ params, request, locals }) => {
   const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
-  const id = recordIdSchema.safeParse(params.id);
-  if (!id.success) return problem(404, NO_DESIGN);
+  const id = parseRecordId(params.id);
+  if (id === null) return problem(404, NO_DESIGN);
   const parsed = await readValidJson(request, BODY_MAX_BYTES, createProofSchema);
   if (!parsed.ok) return parsed.response;
   const now = new Date();
@@ -38,6 +39,6 @@ export const POST: APIRoute = async ({ params, request, locals }) => {
   if (!mail.ok) {
     return problem(429, `This shop has sent as many proofs as it may for now; try again ${inMinutes(mail.retryAfterSeconds)}`, {}, { 'retry-after': String(mail.retryAfterSeconds) });
   }
-  const created = await createProof(guard.user, id.data, parsed.value, now);
+  const created = await createProof(guard.user, id, parsed.value, now);
   return created ? json(created, 201) : problem(404, NO_DESIGN);
 };

@@ -2,7 +2,7 @@ import type { APIRoute } from 'astro';
 import { CAN, requireRole } from '~/lib/auth/index.server.ts';
 import { revokeProof } from '~/lib/db/proofs.server.ts';
 import { json, problem } from '~/lib/http/problem.ts';
-import { recordIdSchema } from '~/lib/schemas/proof.ts';
+import { parseRecordId } from '~/lib/http/record-id.ts';
 
 export const prerender = false;
 
@@ -10,9 +10,9 @@ export const prerender = false;
 export const POST: APIRoute = async ({ params, locals }) => {
   const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
-  const id = recordIdSchema.safeParse(params.proofId);
-  if (!id.success) return problem(404, 'No such proof in your shop');
-  const result = await revokeProof(guard.user.shopId, id.data, new Date());
+  const id = parseRecordId(params.proofId);
+  if (id === null) return problem(404, 'No such proof in your shop');
+  const result = await revokeProof(guard.user.shopId, id, new Date());
   if (result.ok) return json({ proof: result.proof });
   return result.reason === 'answered'
     ? problem(409, 'The client has already answered this proof; an answer is kept, not revoked')

@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
 import { CAN, requireRole } from '~/lib/auth/index.server.ts';
 import { handleDecision } from '~/lib/proof-api/decision-endpoint.server.ts';
-import { recordIdSchema } from '~/lib/schemas/proof.ts';
+import { parseRecordId } from '~/lib/http/record-id.ts';
 
 export const prerender = false;
 
@@ -9,7 +9,7 @@ export const prerender = false;
 export const POST: APIRoute = ({ params, request, locals }) => {
   const guard = requireRole(locals.user, CAN.viewProofs);
   if (!guard.ok) return guard.response;
-  const id = recordIdSchema.safeParse(params.proofId);
-  const locator = id.success ? { proofId: id.data, shopId: guard.user.shopId, clientEmail: guard.user.email } : null;
+  const id = parseRecordId(params.proofId);
+  const locator = id !== null ? { proofId: id, shopId: guard.user.shopId, clientEmail: guard.user.email } : null;
   return handleDecision(request, locator, `user:${guard.user.id}`, new Date());
 };
