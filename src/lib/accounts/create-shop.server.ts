@@ -9,14 +9,14 @@ import { db } from '~/lib/db/client.server.ts';
 import type { CreateShopInput } from '~/lib/schemas/account.ts';
 import { existingAccountMail, newShopMail } from './account-mail.ts';
 import { INVITATION_TTL_MS } from './links.ts';
-import { deliver } from './mail-delivery.server.ts';
+import { sendMail } from '~/lib/mail/send.server.ts';
 import { issueToken } from './one-time-tokens.server.ts';
 import { findUserByEmail } from './users.server.ts';
 
 export async function requestNewShop(input: CreateShopInput): Promise<void> {
   const origin = config().appOrigin;
   if (await findUserByEmail(input.email)) {
-    await deliver(input.email, existingAccountMail(origin));
+    await sendMail({ to: input.email, ...existingAccountMail(origin) });
     return;
   }
   const token = await issueToken(db(), {
@@ -27,5 +27,5 @@ export async function requestNewShop(input: CreateShopInput): Promise<void> {
     role: 'owner',
     ttlMs: INVITATION_TTL_MS,
   });
-  await deliver(input.email, newShopMail(origin, input.shopName, token));
+  await sendMail({ to: input.email, ...newShopMail(origin, input.shopName, token) });
 }

@@ -11,7 +11,7 @@ import { oneTimeTokens, shops, users, type Role } from '~/lib/db/schema.ts';
 import type { AcceptInvitationInput } from '~/lib/schemas/account.ts';
 import { invitationMail } from './account-mail.ts';
 import { INVITATION_TTL_MS } from './links.ts';
-import { deliver } from './mail-delivery.server.ts';
+import { sendMail } from '~/lib/mail/send.server.ts';
 import { findUsableToken, issueToken, markTokenUsed, revokePendingTokens } from './one-time-tokens.server.ts';
 import { done, refused, type Outcome } from './outcome.ts';
 import { findUserByEmail, shopName } from './users.server.ts';
@@ -39,7 +39,7 @@ async function issueAndMail(inviter: Inviter, email: string, role: Role): Promis
     return issueToken(tx, { kind: 'invite', shopId: inviter.shopId, email, role, createdBy: inviter.userId, ttlMs: INVITATION_TTL_MS });
   });
   const mail = invitationMail(config().appOrigin, await shopName(inviter.shopId), role, inviter.displayName, token);
-  return (await deliver(email, mail)) ? done(undefined) : refused(502, {}, NOT_SENT);
+  return (await sendMail({ to: email, ...mail })) ? done(undefined) : refused(502, {}, NOT_SENT);
 }
 
 /** Invites `email` with `role`; a pending invitation for the same address is replaced. */

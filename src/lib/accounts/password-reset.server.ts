@@ -7,7 +7,7 @@ import { users } from '~/lib/db/schema.ts';
 import { limitMail } from '~/lib/mail/mail-budgets.server.ts';
 import { resetMail } from './account-mail.ts';
 import { RESET_TTL_MS } from './links.ts';
-import { deliver } from './mail-delivery.server.ts';
+import { sendMail } from '~/lib/mail/send.server.ts';
 import { findUsableToken, issueToken, markTokenUsed, revokePendingTokens } from './one-time-tokens.server.ts';
 import { done, refused, type Outcome } from './outcome.ts';
 import { findUserByEmail } from './users.server.ts';
@@ -26,7 +26,7 @@ export async function startPasswordReset(email: string, now = new Date()): Promi
     await revokePendingTokens(tx, 'reset', user.shopId, user.email);
     return issueToken(tx, { kind: 'reset', shopId: user.shopId, userId: user.id, email: user.email, ttlMs: RESET_TTL_MS });
   });
-  await deliver(user.email, resetMail(config().appOrigin, token));
+  await sendMail({ to: user.email, ...resetMail(config().appOrigin, token) });
 }
 
 /** True while the reset link can still be used (the page shows the form, or "no longer valid"). */

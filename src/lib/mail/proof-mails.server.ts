@@ -39,18 +39,13 @@ export const PROOF_SUBJECTS = {
 } as const;
 
 
-async function trySend(to: string, subject: string, lines: string[]): Promise<boolean> {
-  try {
-    await sendMail({ to, subject, text: `${lines.join('\n')}\n` });
-    return true;
-  } catch {
-    return false;
-  }
+function send(to: string, subject: string, lines: string[]): Promise<boolean> {
+  return sendMail({ to, subject, text: `${lines.join('\n')}\n` });
 }
 
 export function mailClientProof(mail: ClientProofMail): Promise<boolean> {
   const from = mail.shopName || 'Your luthier';
-  return trySend(mail.to, PROOF_SUBJECTS.toClient, [
+  return send(mail.to, PROOF_SUBJECTS.toClient, [
     `Hello ${mail.clientName},`,
     '',
     `${from} has shared the fret layout "${mail.designName}" (revision ${mail.revision}) for your review.`,
@@ -67,7 +62,7 @@ export function mailClientProof(mail: ClientProofMail): Promise<boolean> {
 export function mailBuilderDecision(mail: BuilderDecisionMail): Promise<boolean> {
   const approved = mail.decision.kind === 'approved';
   const subject = approved ? PROOF_SUBJECTS.approved : PROOF_SUBJECTS.changesRequested;
-  return trySend(mail.to, subject, [
+  return send(mail.to, subject, [
     approved
       ? `${mail.decision.name} approved revision ${mail.revision} of "${mail.designName}" on ${momentInZone(new Date(mail.decision.at), mail.timeZone)}.`
       : `${mail.decision.name} asked for changes to revision ${mail.revision} of "${mail.designName}" on ${momentInZone(new Date(mail.decision.at), mail.timeZone)}.`,
