@@ -60,6 +60,14 @@ describe('Boards page in Chromium (built server)', () => {
     await row.getByRole('button', { name: `Archive ${design.name}` }).click();
     await page.getByText('No boards match these filters.').waitFor();
     expect((await api<BoardDetail>(`/api/designs/${board.id}`)).status).toBe('archived');
+    // Undo right away brings it back; archiving again leaves it to the Archived filter.
+    const undo = page.getByRole('status').filter({ hasText: `Archived “${design.name}”` });
+    await undo.getByRole('button', { name: 'Undo' }).click();
+    await row.getByRole('button', { name: `Archive ${design.name}` }).waitFor();
+    expect((await api<BoardDetail>(`/api/designs/${board.id}`)).status).not.toBe('archived');
+    expect(await undo.count()).toBe(0);
+    await row.getByRole('button', { name: `Archive ${design.name}` }).click();
+    await page.getByText('No boards match these filters.').waitFor();
     await page.getByLabel('Status').selectOption('archived');
     await row.getByRole('button', { name: `Unarchive ${design.name}` }).waitFor();
     expect(new URL(page.url()).searchParams.get('status')).toBe('archived');

@@ -1,6 +1,6 @@
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { defaultDirection, type BoardListQuery, type BoardSort, type BoardSummary } from '~/lib/schemas/board.ts';
 import { INSTRUMENT_LABELS, scaleText, STATUS_LABELS } from './board-labels.ts';
 import { archiveBoard, duplicateBoard, fetchBoards } from './board-requests.ts';
@@ -21,11 +21,21 @@ const STATUS_TONES: Readonly<Record<BoardSummary['status'], string>> = {
 };
 const button = 'rounded border border-paper-line bg-white px-2 py-0.5 text-sm hover:bg-paper-shade disabled:opacity-50';
 
-function RowActions({ board, onHistory }: { board: BoardSummary; onHistory: () => void }) {
+/** How long the "Archived … Undo" notice stays, in milliseconds. */
+const UNDO_MS = 10_000;
+
+function RowActions({ board, onHistory, onArchived }: { board: BoardSummary; onHistory: () => void; onArchived: (board: BoardSummary) => void }) {
   const client = useQueryClient();
   const refresh = () => client.invalidateQueries({ queryKey: ['boards'] });
   const duplicate = useMutation({ mutationFn: () => duplicateBoard(board.id), onSuccess: refresh });
-  const archive = useMutation({ mutationFn: () => archiveBoard(board.id, board.status !== 'archived'), onSuccess: refresh });
+  const archiving = board.status !== 'archived';
+  const archive = useMutation({
+    mutationFn: () => archiveBoard(board.id, archiving),
+    onSuccess: () => {
+      if (archiving) onArchived(board);
+      return refresh();
+    },
+  });
   const failed = duplicate.error ?? archive.error;
   return (
     <div className="flex flex-wrap items-center gap-2">
@@ -57,9 +67,34 @@ function SortHeader({ label, sort, query, onChange }: { label: string; sort: Boa
 }
 
 /** The Boards table: fetched from the API in the browser, sorted and paged on the server. */
+/** After archiving: the board's name and an Undo button for 10 s (the Archived filter brings it back later too). */
+function UndoArchive({ board, onDone }: { board: BoardSummary; onDone: () => void }) {
+  const client = useQueryClient();
+  const undo = useMutation({
+    mutationFn: () => archiveBoard(board.id, false),
+    onSuccess: async () => {
+      await client.invalidateQueries({ queryKey: ['boards'] });
+      onDone();
+    },
+  });
+  useEffect(() => {
+    const timer = setTimeout(onDone, UNDO_MS);
+    return () => clearTimeout(timer);
+  }, [onDone]);
+  return (
+    <div role="status" className="flex items-center gap-3 rounded border border-paper-line bg-white p-2 text-sm shadow">
+      <span>Archived “{board.name}”. Find it again with Status: Archived.</span>
+      <button type="button" className={button} disabled={undo.isPending} onClick={() => undo.mutate()}>Undo</button>
+      {undo.error && <span role="alert" className="text-rosewood">{undo.error.message}</span>}
+    </div>
+  );
+}
+
 export function BoardsTable({ query, onChange }: Props) {
   const client = useQueryClient();
   const [historyId, setHistoryId] = useState<number | null>(null);
+  const [archived, setArchived] = useState<BoardSummary | null>(null);
+  const clearArchived = useMemo(() => () => setArchived(null), []);
   const boards = useQuery({ queryKey: ['boards', query], queryFn: () => fetchBoards(query), placeholderData: keepPreviousData });
   const columns = useMemo(
     () => [
@@ -97,7 +132,11 @@ export function BoardsTable({ query, onChange }: Props) {
         header: () => <SortHeader label="Last changed" sort="updated" query={query} onChange={onChange} />,
         cell: (c) => <time dateTime={c.getValue()}>{new Date(c.getValue()).toLocaleString()}</time>,
       }),
-      column.display({ id: 'actions', header: 'Actions', cell: ({ row }) => <RowActions board={row.original} onHistory={() => setHistoryId(row.original.id)} /> }),
+      column.display({
+        id: 'actions',
+        header: 'Actions',
+        cell: ({ row }) => <RowActions board={row.original} onHistory={() => setHistoryId(row.original.id)} onArchived={setArchived} />,
+      }),
     ],
     [query, onChange],
   );
@@ -122,11 +161,13 @@ export function BoardsTable({ query, onChange }: Props) {
   const { total, pageSize } = boards.data;
   const pages = Math.max(1, Math.ceil(total / pageSize));
   const historyBoard = boards.data.items.find((b) => b.id === historyId);
+  const undo = archived && <UndoArchive key={archived.id} board={archived} onDone={clearArchived} />;
   if (total === 0) {
-    return <p role="status" className="rounded border border-paper-line bg-white p-3 text-sm">{query.q || query.instrument || query.units || query.status !== 'active' ? 'No boards match these filters.' : 'No saved boards yet. Save a design from Layout, or import a JSON file.'}</p>;
+    return <div className="space-y-3">{undo}<p role="status" className="rounded border border-paper-line bg-white p-3 text-sm">{query.q || query.instrument || query.units || query.status !== 'active' ? 'No boards match these filters.' : 'No saved boards yet. Save a design from Layout, or import a JSON file.'}</p></div>;
   }
   return (
     <div className="space-y-3">
+      {undo}
       <div className="overflow-x-auto">
         <table className="w-full border-collapse text-left text-sm" aria-busy={boards.isFetching}>
           <caption className="sr-only">Saved boards</caption>
