@@ -30,4 +30,11 @@ const server = http.createServer((req, res) => {
   makeForwardingHonest(req, trust);
   handler(req, res);
 });
-server.listen(port, host, () => console.log(`kerfline: serving on http://${host}:${port}`));
+server.listen(port, host, () => {
+  console.log(`kerfline: serving on http://${host}:${port}`);
+  // A loosened limit is never silent: RATE_LIMIT_SCALE is for load tests only (docs/operations.md).
+  const scale = process.env.RATE_LIMIT_SCALE;
+  if (scale !== undefined && scale.trim() !== '' && Number(scale) !== 1) {
+    console.error(`kerfline: RATE_LIMIT_SCALE=${scale}: every rate limit budget is multiplied by ${scale}. For load testing only, never for a server people use.`);
+  }
+});
