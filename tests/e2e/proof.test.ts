@@ -1,7 +1,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
-import { createProof, revokeProof } from '~/lib/db/proofs.server.ts';
+import { createProof, revokeProof } from '~/lib/proofs/proofs.server.ts';
 import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
 import { ensureDesign } from '../support/designs.ts';
 import { hoverFret, readScene } from '../support/konva-scene.ts';

@@ -13,7 +13,7 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { MAIL_BUDGETS, ROUTE_BUDGETS, SIGN_IN_BUDGETS } from '~/lib/http/rate-budgets.ts';
-import { PROOF_SUBJECTS } from '~/lib/mail/proof-mails.server.ts';
+import { PROOF_SUBJECTS } from '~/lib/proofs/proof-mails.server.ts';
 import { BASE_URL, launchBrowser } from '../support/browser.ts';
 import { startBuiltServer, type BuiltServer } from '../support/built-server.ts';
 import { fixtureDesign, insertDesign } from '../support/designs.ts';

@@ -7,9 +7,9 @@ import { seedDemoShop } from '~/lib/db/seed/demo-shop.server.ts';
 import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { TemplateView } from '~/lib/schemas/template.ts';
-import { listChecksRoute, postCheckRoute } from '~/lib/templates-api/check-endpoints.server.ts';
-import { indexTemplateRoute, labelRoute } from '~/lib/templates-api/export-endpoints.server.ts';
-import { createRoute, listRoute, readRoute, retireRoute, updateRoute } from '~/lib/templates-api/shelf-endpoints.server.ts';
+import { listChecksRoute, postCheckRoute } from '~/lib/templates/check-endpoints.server.ts';
+import { indexTemplateRoute, labelRoute } from '~/lib/templates/export-endpoints.server.ts';
+import { createRoute, listRoute, readRoute, retireRoute, updateRoute } from '~/lib/templates/shelf-endpoints.server.ts';
 import { newShopUser, type TestUser } from '../support/sessions.ts';
 import { closeDb, db } from '../support/test-db.ts';
 

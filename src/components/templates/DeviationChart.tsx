@@ -3,7 +3,7 @@
  * results table beside it carries the same numbers for anyone who cannot see the chart.
  */
 import { formatLength } from '~/lib/format/units.ts';
-import type { CheckResult } from '~/lib/template-check/compare.ts';
+import type { CheckResult } from '~/lib/templates/check/compare.ts';
 
 const WIDTH = 720;
 const HEIGHT = 300;

@@ -3,8 +3,8 @@
  * (a template made for another scale, one shifted at the nut, or single slots off).
  */
 import { formatLength } from '~/lib/format/units.ts';
-import type { CheckResult, Diagnosis } from '~/lib/template-check/compare.ts';
-import { measureLinePhrase, type MeasureLine } from '~/lib/template-check/measure-lines.ts';
+import type { CheckResult, Diagnosis } from '~/lib/templates/check/compare.ts';
+import { measureLinePhrase, type MeasureLine } from '~/lib/templates/check/measure-lines.ts';
 
 /** Lines are named where it matters: on a fanned board, or when more than one line was measured. */
 function where(along: MeasureLine, strings: number, namedLines: boolean): string {

@@ -1,7 +1,7 @@
 import { parseArgs } from 'node:util';
 import { EXPORT_FORMATS, validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options.ts';
 import { PAPER_NAMES } from '~/lib/export/paper-sizes.ts';
-import { EDGE_AND_CENTRE_LINES, parseMeasureLine, type MeasureLine } from '~/lib/template-check/measure-lines.ts';
+import { EDGE_AND_CENTRE_LINES, parseMeasureLine, type MeasureLine } from '~/lib/templates/check/measure-lines.ts';
 
 /** Output forms of `kerfline check`. */
 export const CHECK_FORMATS = ['text', 'json'] as const;

@@ -7,9 +7,9 @@
 import { readFile } from 'node:fs/promises';
 import { formatLength } from '~/lib/format/units.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
-import { defaultTolerance, type CheckResult } from '~/lib/template-check/compare.ts';
-import { parseMeasureLine } from '~/lib/template-check/measure-lines.ts';
-import { runCsvCheck } from '~/lib/template-check/run-check.ts';
+import { defaultTolerance, type CheckResult } from '~/lib/templates/check/compare.ts';
+import { parseMeasureLine } from '~/lib/templates/check/measure-lines.ts';
+import { runCsvCheck } from '~/lib/templates/check/run-check.ts';
 import type { KerflineCommand } from './parse-command.server.ts';
 
 type CheckCommand = Extract<KerflineCommand, { kind: 'check' }>;

@@ -2,10 +2,10 @@
  * The table of fret distances a paper template can carry on its last page: for every fret, the
  * distance from the nut reference the template marks (the zero fret where there is one, else the
  * nut line) along the treble edge, the bass edge and the centre line, the same lines and numbers the
- * Template check compares with (template-check/reference.ts).
+ * Template check compares with (templates/check/reference.ts).
  */
 import type { Layout } from '~/lib/geometry/layout.ts';
-import { referenceLine } from '~/lib/template-check/reference.ts';
+import { referenceLine } from '~/lib/templates/check/reference.ts';
 
 export interface DistanceRow {
   fret: number;

@@ -10,8 +10,8 @@
 import type { Layout } from '~/lib/geometry/layout.ts';
 import type { ExportOptions } from '~/lib/schemas/export-options.ts';
 import { EXPORT_LIMITS } from './export-limits.ts';
-import type { IndexTemplateStrip } from './index-template.ts';
-import type { LabelSize } from './index-template-label.server.ts';
+import type { IndexTemplateStrip } from '~/lib/templates/index-template.ts';
+import type { LabelSize } from '~/lib/templates/index-template-label.server.ts';
 import { sheetDrawing } from './sheet-drawing.ts';
 import { slotPaths, SLOT_PATH_LAYERS } from './slot-paths.ts';
 import { planTiles, type TilePlan } from './tile-pages.ts';

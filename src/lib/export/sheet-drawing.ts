@@ -6,7 +6,7 @@
 import { formatLength, toMm } from '~/lib/format/units.ts';
 import type { Layout, Point, Segment } from '~/lib/geometry/layout.ts';
 import { distance, intersectLines } from '~/lib/geometry/plane.ts';
-import { measureLineLabel } from '~/lib/template-check/measure-lines.ts';
+import { measureLineLabel } from '~/lib/templates/check/measure-lines.ts';
 import { boardPicture, boundsOf, type Box } from '~/lib/picture/board-picture.ts';
 import type { ExportOptions } from '~/lib/schemas/export-options.ts';
 import { kerfOutline } from './kerf-outline.ts';

@@ -4,7 +4,7 @@
  * public proof page. Middleware counts each matching request per client address and, when signed
  * in, per user, before the route runs.
  */
-import { PROOF_PAGE_HEADERS } from './proof-page-headers.ts';
+import { PROOF_PAGE_HEADERS } from '~/lib/proofs/proof-page-headers.ts';
 import type { RouteBudgetName } from './rate-budgets.ts';
 
 export interface LimitedRoute {

@@ -6,7 +6,7 @@
 import { z } from 'zod';
 import { DESIGN_LIMITS } from '~/lib/schemas/design.ts';
 import { fromMm } from '~/lib/format/units.ts';
-import type { MeasureLine } from '~/lib/template-check/measure-lines.ts';
+import type { MeasureLine } from '~/lib/templates/check/measure-lines.ts';
 
 export const TEMPLATE_LIMITS = {
   nameMaxChars: 120,

@@ -9,7 +9,7 @@ import { computeLayout, type Layout } from '~/lib/geometry/layout.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import { validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options.ts';
-import { referenceLine } from '~/lib/template-check/reference.ts';
+import { referenceLine } from '~/lib/templates/check/reference.ts';
 import { pageText, pdfFonts, readPdf, renderPage, type PageSegment, type ReadPage } from '../../support/pdf-readback.ts';
 
 /** ISO 32000-1: PDF user space units are 1/72 in; 1 in = 25.4 mm exactly. */

@@ -26,7 +26,7 @@ describe('import boundaries', () => {
   });
 
   it.each([
-    ['a type-only import of a server type in a component', 'src/components/templates/Example.tsx', "import type { SavedCheck } from '~/lib/db/templates.server.ts';"],
+    ['a type-only import of a server type in a component', 'src/components/templates/Example.tsx', "import type { SavedCheck } from '~/lib/templates/shelf.server.ts';"],
     ['geometry importing geometry, units and the design schema', 'src/lib/geometry/example.ts', "import { lerpPoint } from './plane.ts';\nimport { fromMm } from '~/lib/format/units.ts';\nimport type { Design } from '~/lib/schemas/design.ts';"],
     ['a .server module using server packages and modules', 'src/lib/export/example.server.ts', "import makerjs from 'makerjs';\nimport { db } from '~/lib/db/client.server.ts';"],
   ])('allows %s', async (_what, path, code) => {

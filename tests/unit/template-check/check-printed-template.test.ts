@@ -21,9 +21,9 @@ import { planTiles } from '~/lib/export/tile-pages.ts';
 import { computeLayout } from '~/lib/geometry/layout.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import { validateExportOptions } from '~/lib/schemas/export-options.ts';
-import { defaultTolerance, type Measurement } from '~/lib/template-check/compare.ts';
-import { measureLines, type MeasureLine } from '~/lib/template-check/measure-lines.ts';
-import { runCheck } from '~/lib/template-check/run-check.ts';
+import { defaultTolerance, type Measurement } from '~/lib/templates/check/compare.ts';
+import { measureLines, type MeasureLine } from '~/lib/templates/check/measure-lines.ts';
+import { runCheck } from '~/lib/templates/check/run-check.ts';
 import { readPdf, type PageSegment } from '../../support/pdf-readback.ts';
 
 /** ISO 32000-1: PDF user space units are 1/72 in; 1 in = 25.4 mm exactly. */

@@ -1,7 +1,7 @@
 import { Interval, Midi, Note } from 'tonal';
 import { describe, expect, it } from 'vitest';
-import { centsError, compareTemplate, defaultTolerance, type Measurement } from '~/lib/template-check/compare.ts';
-import { checkReference } from '~/lib/template-check/reference.ts';
+import { centsError, compareTemplate, defaultTolerance, type Measurement } from '~/lib/templates/check/compare.ts';
+import { checkReference } from '~/lib/templates/check/reference.ts';
 import { designOf } from '../../support/design-builders.ts';
 import { expectNear } from '../../support/expect-near.ts';
 

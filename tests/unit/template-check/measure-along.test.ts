@@ -3,11 +3,11 @@ import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { computeLayout, type Layout } from '~/lib/geometry/layout.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import { checkGridSchema } from '~/lib/schemas/template.ts';
-import { defaultTolerance, type CheckResult, type Measurement } from '~/lib/template-check/compare.ts';
-import type { MeasureLine } from '~/lib/template-check/measure-lines.ts';
-import { checkReference, referenceAlong } from '~/lib/template-check/reference.ts';
-import { runCheck } from '~/lib/template-check/run-check.ts';
-import { readSavedResult } from '~/lib/template-check/saved-result.ts';
+import { defaultTolerance, type CheckResult, type Measurement } from '~/lib/templates/check/compare.ts';
+import type { MeasureLine } from '~/lib/templates/check/measure-lines.ts';
+import { checkReference, referenceAlong } from '~/lib/templates/check/reference.ts';
+import { runCheck } from '~/lib/templates/check/run-check.ts';
+import { readSavedResult } from '~/lib/templates/check/saved-result.ts';
 import { validDesign } from '../../support/design-builders.ts';
 import { expectNear } from '../../support/expect-near.ts';
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { MEASUREMENTS_CSV_MAX_BYTES, parseMeasurementsCsv } from '~/lib/template-check/measurements-csv.ts';
+import { MEASUREMENTS_CSV_MAX_BYTES, parseMeasurementsCsv } from '~/lib/templates/check/measurements-csv.ts';
 
 const limits = { frets: 20, strings: 7 };
 

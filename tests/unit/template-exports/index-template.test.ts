@@ -1,9 +1,9 @@
 import DxfParser from 'dxf-parser';
 import { describe, expect, it } from 'vitest';
-import { indexTemplateStrip } from '~/lib/export/index-template.ts';
-import { INDEX_TEMPLATE_LAYERS, indexTemplateDxf } from '~/lib/export/index-template-dxf.server.ts';
+import { indexTemplateStrip } from '~/lib/templates/index-template.ts';
+import { INDEX_TEMPLATE_LAYERS, indexTemplateDxf } from '~/lib/templates/index-template-dxf.server.ts';
 import { dxfComments } from '../../support/dxf-comments.ts';
-import { indexTemplatePdf } from '~/lib/export/index-template-pdf.server.ts';
+import { indexTemplatePdf } from '~/lib/templates/index-template-pdf.server.ts';
 import { computeLayout } from '~/lib/geometry/layout.ts';
 import { designOf } from '../../support/design-builders.ts';
 import { expectNear } from '../../support/expect-near.ts';

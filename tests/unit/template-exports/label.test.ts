@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { LABEL_SIZES, labelSize, scaleInBothUnits, templateLabelPdf, type LabelContent } from '~/lib/export/index-template-label.server.ts';
+import { LABEL_SIZES, labelSize, scaleInBothUnits, templateLabelPdf, type LabelContent } from '~/lib/templates/index-template-label.server.ts';
 import { expectNear } from '../../support/expect-near.ts';
 import { decodeQr, readPdf } from '../../support/pdf-readback.ts';
 

@@ -7,11 +7,11 @@
 import { and, desc, eq } from 'drizzle-orm';
 import type { SeedContext } from './demo-shop.server.ts';
 import { designs, templateChecks, templates } from '~/lib/db/schema.ts';
-import { createTemplate, getTemplate, saveCheck } from '~/lib/db/templates.server.ts';
+import { createTemplate, getTemplate, saveCheck } from '~/lib/templates/shelf.server.ts';
 import { equalRemainingFraction } from '~/lib/geometry/temperament.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import { standInDesign } from '~/lib/template-check/template-design.ts';
-import { runCheck } from '~/lib/template-check/run-check.ts';
+import { standInDesign } from '~/lib/templates/template-design.ts';
+import { runCheck } from '~/lib/templates/check/run-check.ts';
 import type { TemplateCreate } from '~/lib/schemas/template.ts';
 
 interface DemoTemplate {

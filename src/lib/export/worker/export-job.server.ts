@@ -6,9 +6,9 @@
 import type { Design } from '~/lib/schemas/design.ts';
 import type { ExportOptions } from '~/lib/schemas/export-options.ts';
 import { exportDesign, type ExportContext, type ExportFile } from '../export-design.server.ts';
-import type { IndexTemplateStrip } from '../index-template.ts';
-import { templateLabelPdf, type LabelContent, type LabelSize } from '../index-template-label.server.ts';
-import { indexTemplatePdf } from '../index-template-pdf.server.ts';
+import type { IndexTemplateStrip } from '~/lib/templates/index-template.ts';
+import { templateLabelPdf, type LabelContent, type LabelSize } from '~/lib/templates/index-template-label.server.ts';
+import { indexTemplatePdf } from '~/lib/templates/index-template-pdf.server.ts';
 
 export type ExportJob =
   | { kind: 'design'; design: Design; options: ExportOptions; context: ExportContext }

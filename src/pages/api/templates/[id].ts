@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { readRoute, retireRoute, updateRoute } from '~/lib/templates-api/shelf-endpoints.server.ts';
+import { readRoute, retireRoute, updateRoute } from '~/lib/templates/shelf-endpoints.server.ts';
 
 export const prerender = false;
 

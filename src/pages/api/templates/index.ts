@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { createRoute, listRoute } from '~/lib/templates-api/shelf-endpoints.server.ts';
+import { createRoute, listRoute } from '~/lib/templates/shelf-endpoints.server.ts';
 
 export const prerender = false;
 

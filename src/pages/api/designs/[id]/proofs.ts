@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { CAN, requireRole } from '~/lib/auth/index.server.ts';
-import { createProof, listDesignProofs } from '~/lib/db/proofs.server.ts';
+import { createProof, listDesignProofs } from '~/lib/proofs/proofs.server.ts';
 import { inMinutes } from '~/lib/accounts/limits.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { json, problem } from '~/lib/http/problem.ts';

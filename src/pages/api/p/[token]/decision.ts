@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
 import { isWellFormedToken, sha256Hex } from '~/lib/auth/index.server.ts';
 import { clientIp } from '~/lib/http/client-ip.ts';
-import { handleDecision } from '~/lib/proof-api/decision-endpoint.server.ts';
+import { handleDecision } from '~/lib/proofs/decision-endpoint.server.ts';
 
 export const prerender = false;
 

@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { CAN, requireRole } from '~/lib/auth/index.server.ts';
-import { revokeProof } from '~/lib/db/proofs.server.ts';
+import { revokeProof } from '~/lib/proofs/proofs.server.ts';
 import { json, problem } from '~/lib/http/problem.ts';
 import { parseRecordId } from '~/lib/http/record-id.ts';
 

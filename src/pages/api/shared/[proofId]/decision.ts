@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { CAN, requireRole } from '~/lib/auth/index.server.ts';
-import { handleDecision } from '~/lib/proof-api/decision-endpoint.server.ts';
+import { handleDecision } from '~/lib/proofs/decision-endpoint.server.ts';
 import { parseRecordId } from '~/lib/http/record-id.ts';
 
 export const prerender = false;

@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { listChecksRoute, postCheckRoute } from '~/lib/templates-api/check-endpoints.server.ts';
+import { listChecksRoute, postCheckRoute } from '~/lib/templates/check-endpoints.server.ts';
 
 export const prerender = false;
 

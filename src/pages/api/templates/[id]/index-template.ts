@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { indexTemplateRoute } from '~/lib/templates-api/export-endpoints.server.ts';
+import { indexTemplateRoute } from '~/lib/templates/export-endpoints.server.ts';
 
 export const prerender = false;
 

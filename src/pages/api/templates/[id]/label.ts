@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { labelRoute } from '~/lib/templates-api/export-endpoints.server.ts';
+import { labelRoute } from '~/lib/templates/export-endpoints.server.ts';
 
 export const prerender = false;
 

@@ -2,7 +2,7 @@
 import { parseRecordId } from '~/lib/http/record-id.ts';
 import { CAN, requireRole, type SessionUser } from '~/lib/auth/index.server.ts';
 import { db } from '~/lib/db/client.server.ts';
-import { getTemplate } from '~/lib/db/templates.server.ts';
+import { getTemplate } from '~/lib/templates/shelf.server.ts';
 import { problem } from '~/lib/http/problem.ts';
 import type { TemplateView } from '~/lib/schemas/template.ts';
 

@@ -7,7 +7,7 @@
 import { config } from '~/lib/config/env.server.ts';
 import { dayInZone, momentInZone } from '~/lib/format/dates.ts';
 import type { ProofDecision } from '~/lib/schemas/proof.ts';
-import { sendMail } from './send.server.ts';
+import { sendMail } from '~/lib/mail/send.server.ts';
 
 export interface ClientProofMail {
   to: string;

@@ -5,13 +5,13 @@
  */
 import type { SessionUser } from '~/lib/auth/index.server.ts';
 import { db } from '~/lib/db/client.server.ts';
-import { listChecks, saveCheck, templateDesign } from '~/lib/db/templates.server.ts';
+import { listChecks, saveCheck, templateDesign } from '~/lib/templates/shelf.server.ts';
 import { readText } from '~/lib/http/body.server.ts';
 import { invalid, json, problem, zodIssues } from '~/lib/http/problem.ts';
 import { checkGridSchema, checkSettingsSchema } from '~/lib/schemas/template.ts';
-import { MEASUREMENTS_CSV_MAX_BYTES } from '~/lib/template-check/measurements-csv.ts';
-import { runCheck, runCsvCheck, type CheckOutcome } from '~/lib/template-check/run-check.ts';
-import { shelfTemplate } from './route-context.server.ts';
+import { MEASUREMENTS_CSV_MAX_BYTES } from '~/lib/templates/check/measurements-csv.ts';
+import { runCheck, runCsvCheck, type CheckOutcome } from '~/lib/templates/check/run-check.ts';
+import { shelfTemplate } from '~/lib/templates/route-context.server.ts';
 
 export async function listChecksRoute(user: SessionUser | null, id: string | undefined): Promise<Response> {
   const found = await shelfTemplate(user, id);

@@ -3,8 +3,8 @@
  * the caution and notes, at least wide enough for the calibration bars. Pure, so the export's
  * cost is known before the PDF is built.
  */
-import { PT_PER_MM, ptPerUnit } from './paper-sizes.ts';
-import type { IndexTemplateStrip } from './index-template.ts';
+import { PT_PER_MM, ptPerUnit } from '~/lib/export/paper-sizes.ts';
+import type { IndexTemplateStrip } from '~/lib/templates/index-template.ts';
 import { boundsOf } from '~/lib/picture/board-picture.ts';
 
 export const STRIP_PAGE_PT = {

@@ -8,7 +8,7 @@ import { computeLayout, type Layout, type Point, type Segment } from '~/lib/geom
 import { intersectLines } from '~/lib/geometry/plane.ts';
 import type { LengthUnit } from '~/lib/format/units.ts';
 import type { Design } from '~/lib/schemas/design.ts';
-import { measureLines, type MeasureLine } from './measure-lines.ts';
+import { measureLines, type MeasureLine } from '~/lib/templates/check/measure-lines.ts';
 
 /** One expected slot position along one line, in the design's units. */
 export interface ReferenceSlot {

@@ -17,10 +17,10 @@ import type {
   ProofSummary,
   SharedProof,
 } from '~/lib/schemas/proof.ts';
-import { db } from './client.server.ts';
-import { findRevisionDesign, findShopDesign, setDesignStatus, storedJson } from './designs.server.ts';
-import { designRevisions, designs, proofs, shops, users } from './schema.ts';
-import { mailBuilderDecision, mailClientProof } from '~/lib/mail/proof-mails.server.ts';
+import { db } from '~/lib/db/client.server.ts';
+import { findRevisionDesign, findShopDesign, setDesignStatus, storedJson } from '~/lib/db/designs.server.ts';
+import { designRevisions, designs, proofs, shops, users } from '~/lib/db/schema.ts';
+import { mailBuilderDecision, mailClientProof } from '~/lib/proofs/proof-mails.server.ts';
 
 const DAY_MS = 86_400_000;
 

@@ -5,9 +5,9 @@
  * comments (group 999), never as geometry.
  */
 import { fromMm } from '~/lib/format/units.ts';
-import { dxfDocument } from './dxf.server.ts';
-import type { IndexTemplateStrip } from './index-template.ts';
-import { machineCaution } from './safety-note.ts';
+import { dxfDocument } from '~/lib/export/dxf.server.ts';
+import type { IndexTemplateStrip } from '~/lib/templates/index-template.ts';
+import { machineCaution } from '~/lib/export/safety-note.ts';
 
 export const INDEX_TEMPLATE_LAYERS = {
   outline: 'outline',

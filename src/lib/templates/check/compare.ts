@@ -3,8 +3,8 @@
  * length is in the reference's units (convert measurements and tolerance before calling).
  */
 import { formatLength, fromMm, type LengthUnit } from '~/lib/format/units.ts';
-import { measureLinePhrase, type MeasureLine } from './measure-lines.ts';
-import { referenceAlong, type CheckReference } from './reference.ts';
+import { measureLinePhrase, type MeasureLine } from '~/lib/templates/check/measure-lines.ts';
+import { referenceAlong, type CheckReference } from '~/lib/templates/check/reference.ts';
 
 /** Default tolerances in mm, common practice: hand-sawn work +/-0.1 mm, CNC +/-0.05 mm. */
 export const DEFAULT_TOLERANCE_MM = { hand: 0.1, cnc: 0.05 } as const;

@@ -5,10 +5,10 @@
  */
 import { PDFDocument, degrees, rgb, type PDFPage } from 'pdf-lib';
 import type { Point } from '~/lib/geometry/plane.ts';
-import { CALIBRATION_BARS_TOP_PT, drawCalibrationBars, embedMonoFont, FAINT, INK } from './pdf-kit.server.ts';
-import { PRINT_CAUTION } from './safety-note.ts';
-import type { IndexTemplateStrip } from './index-template.ts';
-import { indexTemplatePage, STRIP_PAGE_PT, type StripPlacement } from './index-template-page.ts';
+import { CALIBRATION_BARS_TOP_PT, drawCalibrationBars, embedMonoFont, FAINT, INK } from '~/lib/export/pdf-kit.server.ts';
+import { PRINT_CAUTION } from '~/lib/export/safety-note.ts';
+import type { IndexTemplateStrip } from '~/lib/templates/index-template.ts';
+import { indexTemplatePage, STRIP_PAGE_PT, type StripPlacement } from '~/lib/templates/index-template-page.ts';
 
 export async function indexTemplatePdf(strip: IndexTemplateStrip): Promise<{ bytes: Uint8Array; placement: StripPlacement; pageSize: [number, number] }> {
   const { pageSize, placement } = indexTemplatePage(strip);

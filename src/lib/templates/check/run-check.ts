@@ -5,10 +5,10 @@
  */
 import { convertLength, type LengthUnit } from '~/lib/format/units.ts';
 import type { Design } from '~/lib/schemas/design.ts';
-import { compareTemplate, type CheckError, type CheckResult, type Measurement } from './compare.ts';
-import type { MeasureLine } from './measure-lines.ts';
-import { parseMeasurementsCsv, type CsvLineError } from './measurements-csv.ts';
-import { checkReference } from './reference.ts';
+import { compareTemplate, type CheckError, type CheckResult, type Measurement } from '~/lib/templates/check/compare.ts';
+import type { MeasureLine } from '~/lib/templates/check/measure-lines.ts';
+import { parseMeasurementsCsv, type CsvLineError } from '~/lib/templates/check/measurements-csv.ts';
+import { checkReference } from '~/lib/templates/check/reference.ts';
 
 export interface CheckInput {
   units: LengthUnit;

@@ -3,8 +3,8 @@
  * before measurements named their line say `string: N` on each slot, fit and diagnosis: they were
  * compared along string N, so they are read as `along: 'string-N'` and keep their meaning.
  */
-import type { CheckResult } from './compare.ts';
-import type { MeasureLine } from './measure-lines.ts';
+import type { CheckResult } from '~/lib/templates/check/compare.ts';
+import type { MeasureLine } from '~/lib/templates/check/measure-lines.ts';
 
 type Older = { string?: unknown; along?: unknown };
 

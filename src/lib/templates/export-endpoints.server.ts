@@ -7,22 +7,22 @@
 import type { SessionUser } from '~/lib/auth/index.server.ts';
 import { config } from '~/lib/config/env.server.ts';
 import { db } from '~/lib/db/client.server.ts';
-import { templateDesign } from '~/lib/db/templates.server.ts';
+import { templateDesign } from '~/lib/templates/shelf.server.ts';
 import { tooLarge } from '~/lib/export/design-export.server.ts';
 import { indexTemplateCost, labelCost, refuseOverCap } from '~/lib/export/export-cost.ts';
 import { attachmentHeader, exportFileName } from '~/lib/export/file-name.ts';
-import { indexTemplateStrip } from '~/lib/export/index-template.ts';
-import { indexTemplateDxf } from '~/lib/export/index-template-dxf.server.ts';
-import { LABEL_SIZES, labelSize } from '~/lib/export/index-template-label.server.ts';
-import { indexTemplatePage } from '~/lib/export/index-template-page.ts';
+import { indexTemplateStrip } from '~/lib/templates/index-template.ts';
+import { indexTemplateDxf } from '~/lib/templates/index-template-dxf.server.ts';
+import { LABEL_SIZES, labelSize } from '~/lib/templates/index-template-label.server.ts';
+import { indexTemplatePage } from '~/lib/templates/index-template-page.ts';
 import { pdfResponse } from '~/lib/export/pdf-kit.server.ts';
 import { runExport } from '~/lib/export/worker/run-export.server.ts';
 import { invalid, problem, zodIssues } from '~/lib/http/problem.ts';
 import { answerOrServerError } from '~/lib/http/server-error.server.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import { FAN_GEOMETRY_LABELS, fanGeometrySchema, type TemplateView } from '~/lib/schemas/template.ts';
-import { fannedStandInDesign } from '~/lib/template-check/template-design.ts';
-import { shelfTemplate, type Allowed } from './route-context.server.ts';
+import { fannedStandInDesign } from '~/lib/templates/template-design.ts';
+import { shelfTemplate, type Allowed } from '~/lib/templates/route-context.server.ts';
 
 export function labelRoute(user: SessionUser | null, id: string | undefined, url: URL, signal?: AbortSignal): Promise<Response> {
   return answerOrServerError('The label', () => label(user, id, url, signal));

@@ -14,7 +14,7 @@ import { fromMm, formatLength, type LengthUnit } from '~/lib/format/units.ts';
 import { computeLayout } from '~/lib/geometry/layout.ts';
 import { distance, intersectLines, type Point, type Segment } from '~/lib/geometry/plane.ts';
 import type { Design } from '~/lib/schemas/design.ts';
-import { MACHINE_SAFETY_NOTES } from './safety-note.ts';
+import { MACHINE_SAFETY_NOTES } from '~/lib/export/safety-note.ts';
 
 /** Strip proportions in mm (our own plain choices), converted for designs in inches. */
 export const STRIP_MM = {

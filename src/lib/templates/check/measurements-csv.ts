@@ -11,8 +11,8 @@
 // csv-parse's browser build of its sync API: this file also runs in the check panel, and the Node
 // build reads the global Buffer, which browsers lack.
 import { CsvError, parse } from 'csv-parse/browser/esm/sync';
-import type { Measurement } from './compare.ts';
-import { measureLines, parseMeasureLine, type MeasureLine } from './measure-lines.ts';
+import type { Measurement } from '~/lib/templates/check/compare.ts';
+import { measureLines, parseMeasureLine, type MeasureLine } from '~/lib/templates/check/measure-lines.ts';
 
 /** Largest CSV accepted: 64 KiB. */
 export const MEASUREMENTS_CSV_MAX_BYTES = 64 * 1024;

@@ -6,10 +6,10 @@ import { and, asc, count, desc, eq, isNull, like, or, sql, type SQL } from 'driz
 import type { Db } from '~/lib/db/client.server.ts';
 import { MM_PER_INCH } from '~/lib/format/units.ts';
 import { designRevisions, designs, templateChecks, templates } from '~/lib/db/schema.ts';
-import type { CheckResult } from '~/lib/template-check/compare.ts';
-import { runCheck } from '~/lib/template-check/run-check.ts';
-import { readSavedResult } from '~/lib/template-check/saved-result.ts';
-import { standInDesign } from '~/lib/template-check/template-design.ts';
+import type { CheckResult } from '~/lib/templates/check/compare.ts';
+import { runCheck } from '~/lib/templates/check/run-check.ts';
+import { readSavedResult } from '~/lib/templates/check/saved-result.ts';
+import { standInDesign } from '~/lib/templates/template-design.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 import type { CheckGrid, TemplateCreate, TemplateListQuery, TemplatePage, TemplateUpdate, TemplateView } from '~/lib/schemas/template.ts';
 

@@ -7,8 +7,8 @@ import { PDFDocument, type PDFFont, type PDFPage } from 'pdf-lib';
 import QRCode from 'qrcode';
 import { convertLength, formatLength } from '~/lib/format/units.ts';
 import type { TemplateSpec } from '~/lib/schemas/template.ts';
-import { PT_PER_IN, PT_PER_MM } from './paper-sizes.ts';
-import { embedMonoFont, INK } from './pdf-kit.server.ts';
+import { PT_PER_IN, PT_PER_MM } from '~/lib/export/paper-sizes.ts';
+import { embedMonoFont, INK } from '~/lib/export/pdf-kit.server.ts';
 
 interface SheetLayout {
   page: [number, number];

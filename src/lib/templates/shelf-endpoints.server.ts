@@ -4,12 +4,12 @@
  * together, or neither.
  */
 import { db } from '~/lib/db/client.server.ts';
-import { createTemplate, createTemplateWithCheck, listTemplates, retireTemplate, updateTemplate } from '~/lib/db/templates.server.ts';
+import { createTemplate, createTemplateWithCheck, listTemplates, retireTemplate, updateTemplate } from '~/lib/templates/shelf.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { invalid, json, problem, zodIssues } from '~/lib/http/problem.ts';
 import type { SessionUser } from '~/lib/auth/index.server.ts';
 import { templateCreateSchema, templateListQuerySchema, templateUpdateSchema } from '~/lib/schemas/template.ts';
-import { shelfTemplate, shelfUser } from './route-context.server.ts';
+import { shelfTemplate, shelfUser } from '~/lib/templates/route-context.server.ts';
 
 const BODY_MAX_BYTES = 16 * 1024;
 

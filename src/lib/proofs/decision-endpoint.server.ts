@@ -1,4 +1,4 @@
-import { decideProof, type ProofLocator } from '~/lib/db/proofs.server.ts';
+import { decideProof, type ProofLocator } from '~/lib/proofs/proofs.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { json, problem } from '~/lib/http/problem.ts';
 import { PROOF_DECISION_BUDGET } from '~/lib/http/rate-budgets.ts';
