@@ -6,6 +6,7 @@
  */
 import { useId, useState, type ChangeEvent, type ReactNode } from 'react';
 import type { DesignIssue } from '~/lib/schemas/design.ts';
+import { formatLength } from '~/lib/format/units.ts';
 import { DESIGN_FIELDS, type DesignFieldRow, type FieldGroup } from '~/lib/schemas/design-fields.ts';
 import { BUTTON, FIELD_ERROR, INPUT } from './control-styles.ts';
 import {
@@ -47,7 +48,7 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
   const [stringsBefore, setStringsBefore] = useState<number | null>(null);
   const [spacingNote, setSpacingNote] = useState('');
   const offer = stringsBefore === null ? null : spacingOffer(draft, stringsBefore);
-  const show = (value: number) => `${value.toFixed(units === 'mm' ? 2 : 3)} ${units}`;
+  const show = (value: number) => formatLength(value, units, true);
 
   const count = (field: NumberField, label: string, inputMode: 'numeric' | 'decimal' = 'numeric', help?: string) => (
     <TextField

@@ -87,9 +87,13 @@ function mirroredFields(design: Design) {
   };
 }
 
-/** `%` and `_` in a search are literal characters, not wildcards. */
+/** `text` for a LIKE pattern: `%`, `_` and a backslash in it are literal characters, not wildcards. */
+function likeLiteral(text: string): string {
+  return text.replace(/[\\%_]/g, (c) => `\\${c}`);
+}
+
 function containsPattern(text: string): string {
-  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+  return `%${likeLiteral(text)}%`;
 }
 
 function listConditions(shopId: number, query: BoardListQuery): SQL | undefined {
@@ -305,11 +309,10 @@ export function setArchived(writer: Writer, id: number, archived: boolean, versi
  * ones included, so bringing one back never makes two of a name). Cut to the longest name allowed.
  */
 export async function freeBoardName(shopId: number, name: string): Promise<string> {
-  const escaped = name.replace(/[\\%_]/g, (c) => `\\${c}`);
   const rows = await db()
     .select({ name: designs.name })
     .from(designs)
-    .where(and(eq(designs.shopId, shopId), or(eq(designs.name, name), like(designs.name, `${escaped} (%)`))));
+    .where(and(eq(designs.shopId, shopId), or(eq(designs.name, name), like(designs.name, `${likeLiteral(name)} (%)`))));
   const taken = new Set(rows.map((r) => r.name));
   if (!taken.has(name)) return name;
   for (let n = 2; ; n++) {

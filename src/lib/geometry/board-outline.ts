@@ -1,4 +1,4 @@
-import { distance, intersectLines, lerpPoint, moveToward, type Point, type Segment } from './plane.ts';
+import { distance, intersectLines, lerpPoint, moveToward, sineBetween, type Point, type Segment } from './plane.ts';
 
 export interface BoardOutlineInput {
   /** Drawn nut line ends on string 1 (treble) and string N (bass); the board starts here. */
@@ -128,15 +128,6 @@ export function acrossBoard(
     start: intersectLines(edges.treble.start, edges.treble.end, treble, bass),
     end: intersectLines(edges.bass.start, edges.bass.end, treble, bass),
   };
-}
-
-/** sin of the angle between two segments' directions (1 when square, near 0 when nearly parallel). */
-function sineBetween(a: Segment, b: Segment): number {
-  const ax = a.end.x - a.start.x;
-  const ay = a.end.y - a.start.y;
-  const bx = b.end.x - b.start.x;
-  const by = b.end.y - b.start.y;
-  return Math.abs(ax * by - ay * bx) / Math.sqrt((ax * ax + ay * ay) * (bx * bx + by * by));
 }
 
 /**

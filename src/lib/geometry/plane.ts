@@ -56,3 +56,16 @@ export function extendBothEnds(segment: Segment, length: number): Segment {
   if (length === 0) return segment;
   return { start: moveToward(segment.start, segment.end, segment.start, length), end: moveToward(segment.end, segment.start, segment.end, length) };
 }
+
+/** sin of the angle between two segments' directions: 1 when square, near 0 when nearly parallel. */
+export function sineBetween(a: Segment, b: Segment): number {
+  const [ax, ay, bx, by] = [a.end.x - a.start.x, a.end.y - a.start.y, b.end.x - b.start.x, b.end.y - b.start.y];
+  return Math.abs(ax * by - ay * bx) / Math.sqrt((ax * ax + ay * ay) * (bx * bx + by * by));
+}
+
+/** The angle between two lines, 0° to 90°. */
+export function angleBetweenDeg(a: Segment, b: Segment): number {
+  const [ax, ay, bx, by] = [a.end.x - a.start.x, a.end.y - a.start.y, b.end.x - b.start.x, b.end.y - b.start.y];
+  const cosine = Math.abs(ax * bx + ay * by) / Math.sqrt((ax * ax + ay * ay) * (bx * bx + by * by));
+  return (Math.acos(Math.min(1, cosine)) * 180) / Math.PI;
+}

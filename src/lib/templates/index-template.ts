@@ -12,7 +12,7 @@
 import { scaleConventionWords } from '~/lib/format/design-specs.ts';
 import { fromMm, formatLength, type LengthUnit } from '~/lib/format/units.ts';
 import { computeLayout } from '~/lib/geometry/layout.ts';
-import { distance, intersectLines, type Point, type Segment } from '~/lib/geometry/plane.ts';
+import { angleBetweenDeg, distance, intersectLines, type Point, type Segment } from '~/lib/geometry/plane.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import { MACHINE_SAFETY_NOTES } from '~/lib/export/safety-note.ts';
 
@@ -176,14 +176,4 @@ export function indexTemplateStrip(design: Design, keyWidth: number, source: Str
     registration,
     notes,
   };
-}
-
-/** The angle between two lines, 0° to 90°. */
-function angleBetweenDeg(a: Segment, b: Segment): number {
-  const ax = a.end.x - a.start.x;
-  const ay = a.end.y - a.start.y;
-  const bx = b.end.x - b.start.x;
-  const by = b.end.y - b.start.y;
-  const cosine = Math.abs(ax * bx + ay * by) / (Math.hypot(ax, ay) * Math.hypot(bx, by));
-  return (Math.acos(Math.min(1, cosine)) * 180) / Math.PI;
 }
