@@ -105,7 +105,7 @@ describe('POST /api/export on the built server', () => {
     const response = await post('?format=dxf&slots=outlines', sevenStringFan);
     expect(response.status).toBe(200);
     expect(response.headers.get('content-disposition')).toBe(
-      'attachment; filename="Demo-seven-string-multi-scale-guitar-slot-paths.dxf"',
+      'attachment; filename="demo-seven-string-multi-scale-guitar-slot-paths.dxf"',
     );
     expect(await response.text()).toMatch(/\$INSUNITS\n70\n4\n/);
     const bad = await post('?format=pdf&paper=quarto', sevenStringFan);

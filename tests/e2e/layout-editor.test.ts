@@ -234,7 +234,7 @@ describe('the editor trusts the shared geometry module in the browser', () => {
     const download = page.waitForEvent('download');
     await page.getByRole('button', { name: 'Download CSV' }).click();
     const file = await download;
-    expect(file.suggestedFilename()).toBe('Wrenfield-seven-string-fan-fret-table.csv');
+    expect(file.suggestedFilename()).toBe('wrenfield-seven-string-fan-fret-table.csv');
     const csv = readFileSync((await file.path()) ?? '', 'utf8');
     expect(csv.split('\n')[0]).toBe('fret,string,scale_length,from_nut,from_previous,x,y');
     expect(csv.trim().split('\n').length).toBe(1 + 7 * 24);

@@ -6,12 +6,12 @@ import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { designRevisions, designs } from '~/lib/db/schema.ts';
+import { createDesign } from '~/lib/db/designs.server.ts';
 import { newToken } from '~/lib/auth/index.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
 import { signInAs, type TestUser } from '../support/sessions.ts';
-import { closeDb, db } from '../support/test-db.ts';
+import { closeDb } from '../support/test-db.ts';
 
 let browser: Browser;
 let builder: TestUser;
@@ -20,15 +20,10 @@ let designName: string;
 beforeAll(async () => {
   browser = await launchBrowser();
   builder = await signInAs('builder@wrenfield.example');
-  // A saved design on the builder's shop (what the Boards area stores: head row + revision 1).
+  // A saved board on the builder's shop, saved through the designs module.
   const preset = DEMO_DESIGNS.find((d) => d.id === 'classical-650')!.design;
   designName = `Classical for the shelf test ${newToken().slice(0, 6)}`;
-  const design = { ...preset, name: designName };
-  const [head] = await db()
-    .insert(designs)
-    .values({ shopId: builder.shopId, name: designName, units: 'mm', trebleScaleMm: 650, bassScaleMm: 650, createdBy: builder.id, updatedBy: builder.id })
-    .$returningId();
-  await db().insert(designRevisions).values({ designId: head!.id, revision: 1, data: design, authorId: builder.id });
+  await createDesign({ id: builder.id, shopId: builder.shopId }, { design: { ...preset, name: designName }, instrumentType: 'classical', clientName: '', note: '' });
 });
 
 afterAll(async () => {

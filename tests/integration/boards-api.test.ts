@@ -105,16 +105,26 @@ describe('POST /api/designs and GET /api/designs/{id}', () => {
 });
 
 describe('PATCH /api/designs/{id}', () => {
-  it('makes a new revision for a changed design and keeps the old one unchanged', async () => {
+  it('autosave changes the working copy only; saveRevision keeps it as a new revision and the old one unchanged', async () => {
     const board = await create(builder, { design: fan() });
     const changed = { ...fan(), perpendicularFret: 7 };
-    const response = await patch(owner, board.id, { version: 1, design: changed, note: 'perpendicular at 7' });
-    expect(response.status).toBe(200);
-    expect(await response.json()).toMatchObject({ currentRevision: 2, version: 2 });
+    const autosaved = await patch(owner, board.id, { version: 1, design: changed });
+    expect(autosaved.status).toBe(200);
+    expect(await autosaved.json()).toMatchObject({ currentRevision: 1, workingRevision: null, revision: null, version: 2, design: changed });
+    expect(await revisions(builder, board.id)).toHaveLength(1);
+    const kept = await patch(owner, board.id, { version: 2, design: changed, note: 'perpendicular at 7', saveRevision: true });
+    expect(await kept.json()).toMatchObject({ currentRevision: 2, workingRevision: 2, revision: 2, version: 2 });
     const history = await revisions(builder, board.id);
-    expect(history.map((r) => [r.revision, r.note])).toEqual([[2, 'perpendicular at 7'], [1, '']]);
+    expect(history.map((r) => [r.revision, r.note, r.reason])).toEqual([[2, 'perpendicular at 7', 'saved'], [1, '', 'created']]);
     expect(history[1]!.design).toEqual(fan());
     expect(history[0]!.design).toEqual(changed);
+  });
+
+  it('editing back to the newest revision makes the working copy that revision again', async () => {
+    const board = await create(builder, { design: fan() });
+    await patch(builder, board.id, { version: 1, design: { ...fan(), frets: 22, markers: [] } });
+    const back = await patch(builder, board.id, { version: 2, design: fan() });
+    expect(await back.json()).toMatchObject({ workingRevision: 1, revision: 1, version: 3 });
   });
 
   it('changes client and instrument without a new revision, and writes nothing for an unchanged save', async () => {
@@ -136,9 +146,9 @@ describe('PATCH /api/designs/{id}', () => {
     expect(body.currentVersion).toBe(2);
     expect(body.current.design).toEqual(first);
     // The second editor saw the first edit in the 409 and saves theirs on top of it.
-    expect((await patch(owner, board.id, { version: body.currentVersion, design: second })).status).toBe(200);
+    expect((await patch(owner, board.id, { version: body.currentVersion, design: second, saveRevision: true })).status).toBe(200);
     const history = await revisions(builder, board.id);
-    expect(history.map((r) => r.design)).toEqual([second, first, fan()]);
+    expect(history.map((r) => r.design)).toEqual([second, fan()]);
   });
 
   it('rejects an invalid design with 400 and leaves the board as it was', async () => {
@@ -170,19 +180,18 @@ describe('duplicate, restore, archive', () => {
     expect(copy.design).toEqual({ ...fan(), name: `Copy of ${fan().name}` });
   });
 
-  it('restores an old revision as a new revision, with a stale version refused', async () => {
+  it('restores an old revision as the working copy (no new revision), with a stale version refused', async () => {
     const board = await create(builder, { design: fan() });
-    await patch(builder, board.id, { version: 1, design: { ...fan(), perpendicularFret: 5 } });
+    await patch(builder, board.id, { version: 1, design: { ...fan(), perpendicularFret: 5 }, saveRevision: true });
     const call = (body: unknown) =>
       callRoute(restoreRoute.POST, { method: 'POST', path: `/api/designs/${board.id}/restore`, user: builder, params: { id: String(board.id) }, body });
     expect((await call({ revision: 1, version: 1 })).status).toBe(409);
     expect((await call({ revision: 7, version: 2 })).status).toBe(404);
     const restored = await call({ revision: 1, version: 2 });
     expect(restored.status).toBe(200);
-    expect(await restored.json()).toMatchObject({ currentRevision: 3, version: 3, design: fan() });
+    expect(await restored.json()).toMatchObject({ currentRevision: 2, workingRevision: 1, revision: 1, version: 3, design: fan() });
     const history = await revisions(builder, board.id);
-    expect(history.map((r) => r.revision)).toEqual([3, 2, 1]);
-    expect(history[0]!.note).toBe('Restored revision 1');
+    expect(history.map((r) => r.revision)).toEqual([2, 1]);
   });
 
   it('archives and unarchives; the list shows it only under "archived" while archived', async () => {
@@ -273,7 +282,7 @@ describe('import and export', () => {
     const board = await create(builder, { design: fan(), clientName: 'Ines Calloway', instrumentType: 'guitar' });
     const exported = await callRoute(exportRoute.GET, { path: `/api/designs/${board.id}/export?format=json`, user: builder, params: { id: String(board.id) } });
     expect(exported.status).toBe(200);
-    expect(exported.headers.get('content-disposition')).toMatch(/attachment; filename=".+-r1\.json"/);
+    expect(exported.headers.get('content-disposition')).toMatch(/attachment; filename=".+-r1-board\.json"/);
     const text = await exported.text();
     const imported = await callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: builder, body: text, headers: { 'content-type': 'application/json' } });
     expect(imported.status).toBe(201);

@@ -23,7 +23,7 @@ describe('a save that fails half-way (MariaDB stops mid-transaction)', () => {
       // Another transaction holds revision 2, so the save locks the head row, then waits inside
       // its own transaction on the revision insert: that is where the database goes away.
       await holdNextRevision(blocker, board.id, 2, user.id);
-      const save = updateDesign(writer, board.id, { version: 1, design: { ...design, perpendicularFret: 3 }, note: '' }).catch((e: unknown) => e);
+      const save = updateDesign(writer, board.id, { version: 1, design: { ...design, perpendicularFret: 3 }, note: '', saveRevision: true }).catch((e: unknown) => e);
       await waitForLockWait();
       stopDatabase();
       failure = await save;

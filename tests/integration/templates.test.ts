@@ -2,7 +2,8 @@ import { and, count, eq } from 'drizzle-orm';
 import DxfParser from 'dxf-parser';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { SessionUser } from '~/lib/auth/index.server.ts';
-import { designRevisions, designs, templateChecks, templates, users } from '~/lib/db/schema.ts';
+import { createDesign } from '~/lib/db/designs.server.ts';
+import { templateChecks, templates, users } from '~/lib/db/schema.ts';
 import { seedDemoShop } from '~/lib/db/seed/demo-shop.server.ts';
 import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
@@ -30,15 +31,10 @@ function csvRequest(path: string, csv: string): Request {
   return new Request(`${ORIGIN}${path}`, { method: 'POST', headers: { 'content-type': 'text/csv', origin: ORIGIN }, body: csv });
 }
 
-/** Saves a demo design as design + revision 1 in `shopId`, the way the Boards area stores them. */
+/** Saves a demo design as a new board in `shopId` (through the designs module). */
 async function saveDesign(shopId: number, authorId: string, presetId: string): Promise<number> {
   const design = DEMO_DESIGNS.find((d) => d.id === presetId)!.design;
-  const [head] = await db()
-    .insert(designs)
-    .values({ shopId, name: design.name, units: design.units, trebleScaleMm: design.scale.treble, bassScaleMm: design.scale.bass, createdBy: authorId, updatedBy: authorId })
-    .$returningId();
-  await db().insert(designRevisions).values({ designId: head!.id, revision: 1, data: design, authorId });
-  return head!.id;
+  return (await createDesign({ id: authorId, shopId }, { design, instrumentType: 'guitar', clientName: '', note: '' })).id;
 }
 
 const closedForm = (scale: number, fret: number) => scale * (1 - 2 ** (-fret / 12));

@@ -1,12 +1,12 @@
 /**
- * Saved designs for tests, inserted as rows (head + revision) the way the designs module stores
- * them, from the demo fixtures in src/lib/boards/demo.
+ * Saved designs for tests, saved through the designs module (head row, working copy, revision)
+ * from the demo fixtures in src/lib/boards/demo.
  */
 import { readFileSync } from 'node:fs';
 import { and, asc, eq, like } from 'drizzle-orm';
-import { toMm } from '~/lib/format/units.ts';
 import { db } from '~/lib/db/client.server.ts';
-import { designRevisions, designs } from '~/lib/db/schema.ts';
+import { createDesign, updateDesign } from '~/lib/db/designs.server.ts';
+import { designs } from '~/lib/db/schema.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 
 export type FixtureName = 'seven-string-fan' | 'short-scale-bass' | 'classical-650' | 'mandolin' | 'tenor-ukulele';
@@ -22,33 +22,24 @@ function validated(data: unknown): Design {
   return result.design;
 }
 
-/** Inserts a design with revision 1 and returns its id. */
+/** Saves a design as a new board with revision 1 (through the designs module) and returns its id. */
 export async function insertDesign(shopId: number, userId: string, data: Record<string, unknown>): Promise<number> {
-  const design = validated(data);
-  const [head] = await db()
-    .insert(designs)
-    .values({
-      shopId,
-      name: design.name,
-      units: design.units,
-      trebleScaleMm: toMm(design.scale.treble, design.units),
-      bassScaleMm: toMm(design.scale.bass, design.units),
-      createdBy: userId,
-      updatedBy: userId,
-    })
-    .$returningId();
-  await db().insert(designRevisions).values({ designId: head!.id, revision: 1, data, authorId: userId });
-  return head!.id;
+  const board = await createDesign({ id: userId, shopId }, { design: validated(data), instrumentType: 'guitar', clientName: '', note: '' });
+  return board.id;
 }
 
-/** Adds the next revision with `data` and makes it current. */
+/** Saves `data` as the board's working copy and keeps it as the next revision; returns its number. */
 export async function addRevision(designId: number, userId: string, data: Record<string, unknown>): Promise<number> {
-  validated(data);
-  const [head] = await db().select({ currentRevision: designs.currentRevision }).from(designs).where(eq(designs.id, designId));
-  const revision = head!.currentRevision + 1;
-  await db().insert(designRevisions).values({ designId, revision, data, authorId: userId });
-  await db().update(designs).set({ currentRevision: revision }).where(eq(designs.id, designId));
-  return revision;
+  const [head] = await db().select({ shopId: designs.shopId, version: designs.version }).from(designs).where(eq(designs.id, designId));
+  const saved = await updateDesign({ id: userId, shopId: head!.shopId }, designId, {
+    version: head!.version,
+    design: validated(data),
+    note: '',
+    saveRevision: true,
+    confirmApprovalChange: true,
+  });
+  if (!saved.ok || saved.value.revision === null) throw new Error(`could not add a revision: ${saved.ok ? 'none made' : saved.reason}`);
+  return saved.value.revision;
 }
 
 /** The shop's design whose name contains `text`, inserting it from `fixture` when missing. */

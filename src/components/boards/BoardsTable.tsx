@@ -17,6 +17,7 @@ const STATUS_TONES: Readonly<Record<BoardSummary['status'], string>> = {
   shared: 'border-paper-line bg-paper-shade text-ink',
   approved: 'border-spruce bg-spruce-light text-spruce-dark',
   changes_requested: 'border-caution bg-caution-light text-caution',
+  changed_since_approval: 'border-caution bg-caution-light text-caution',
   archived: 'border-paper-line bg-paper-shade text-ink-soft',
 };
 const button = 'rounded border border-paper-line bg-white px-2 py-0.5 text-sm hover:bg-paper-shade disabled:opacity-50';

@@ -9,6 +9,7 @@ export const STATUS_LABELS: Readonly<Record<BoardStatusFilter, string>> = {
   shared: 'Shared',
   approved: 'Approved',
   changes_requested: 'Changes requested',
+  changed_since_approval: 'Changed since approval',
   archived: 'Archived',
 };
 

@@ -6,7 +6,8 @@ import type { FieldIssue } from '~/lib/http/problem.ts';
 import { zodIssues } from '~/lib/http/problem.ts';
 import { BOARD_FILE_KIND, boardFileSchema, type BoardDetail, type BoardFile } from '~/lib/schemas/board.ts';
 
-export function boardFile(board: BoardDetail): BoardFile & { revision: number; exportedAt: string } {
+/** The file of one revision of a board (exports always name one: exportRevision). */
+export function boardFile(board: BoardDetail & { revision: number }): BoardFile & { revision: number; exportedAt: string } {
   return {
     kind: BOARD_FILE_KIND,
     instrumentType: board.instrumentType as BoardFile['instrumentType'],

@@ -82,6 +82,18 @@ export function conflict(current: BoardDetail): Response {
   });
 }
 
+/**
+ * 409 with `code: "approval_change"`: the change would move the board off the layout the client
+ * approved. The same request with `confirmApprovalChange: true` goes ahead.
+ */
+export function approvalChange(approval: { revision: number; fingerprint: string }): Response {
+  return problem(409, `The client approved revision ${approval.revision}; this change will need a new proof`, {
+    code: 'approval_change',
+    field: 'confirmApprovalChange',
+    approval,
+  });
+}
+
 export function writeResponse(result: WriteResult<BoardDetail>, status = 200): Response {
   if (result.ok) return json(result.value, status);
   switch (result.reason) {
@@ -91,5 +103,7 @@ export function writeResponse(result: WriteResult<BoardDetail>, status = 200): R
       return conflict(result.current);
     case 'no_such_revision':
       return problem(404, 'This board has no such revision', { field: 'revision' });
+    case 'approval':
+      return approvalChange(result.approval);
   }
 }

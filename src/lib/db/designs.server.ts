@@ -3,6 +3,12 @@
  * the editor's page and proofs all come here). Every query is scoped by shop: a design of another
  * shop is simply not found. Every write runs in one transaction, so a failure half-way leaves the
  * previous revision and the head row as they were. Revision rows are only ever inserted.
+ *
+ * The head row holds the working copy, which autosave overwrites (guarded by `version`, so a
+ * stale save is a 409). Revisions are checkpoints: made when a person saves one, when a proof is
+ * sent and when an export is made from changes not yet in a revision, so every print and every
+ * proof names one. After each change the status is worked out again from the board's proofs
+ * (boardApproval), so an approval holds only for the exact layout the client saw.
  */
 import { and, asc, desc, eq, isNotNull, isNull, like, or, sql, type SQL } from 'drizzle-orm';
 import { toMm } from '~/lib/format/units.ts';
@@ -17,8 +23,11 @@ import {
   type InstrumentType,
 } from '~/lib/schemas/board.ts';
 import { DESIGN_LIMITS, validateDesign, type Design } from '~/lib/schemas/design.ts';
+import { canonicalJson, designFingerprint } from '~/lib/boards/fingerprint.server.ts';
+import { boardApproval, type Approval } from '~/lib/proofs/board-approval.ts';
+import type { RevisionReason } from '~/lib/schemas/board.ts';
 import { db, type Db } from './client.server.ts';
-import { designRevisions, designs, users, type DesignStatus } from './schema.ts';
+import { designRevisions, designs, proofs, users } from './schema.ts';
 
 /** Who writes: the signed-in user's id and shop. */
 export interface Writer {
@@ -30,7 +39,8 @@ export type WriteResult<T> =
   | { ok: true; value: T }
   | { ok: false; reason: 'not_found' }
   | { ok: false; reason: 'conflict'; current: BoardDetail }
-  | { ok: false; reason: 'no_such_revision' };
+  | { ok: false; reason: 'no_such_revision' }
+  | { ok: false; reason: 'approval'; approval: Approval };
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 /** The pool, or an open transaction of another module (proofs write their own rows beside these). */
@@ -48,6 +58,10 @@ const summaryColumns = {
   trebleScaleMm: designs.trebleScaleMm,
   bassScaleMm: designs.bassScaleMm,
   currentRevision: designs.currentRevision,
+  workingRevision: designs.workingRevision,
+  workingFingerprint: designs.workingFingerprint,
+  approvedRevision: designs.approvedRevision,
+  approvedFingerprint: designs.approvedFingerprint,
   version: designs.version,
   updatedAt: designs.updatedAt,
   createdAt: designs.createdAt,
@@ -66,6 +80,12 @@ function toSummary(row: SummaryRow): BoardSummary {
     trebleScaleMm: row.trebleScaleMm,
     bassScaleMm: row.bassScaleMm,
     currentRevision: row.currentRevision,
+    workingRevision: row.workingRevision,
+    fingerprint: row.workingFingerprint ?? '',
+    approval:
+      row.approvedRevision !== null && row.approvedFingerprint !== null
+        ? { revision: row.approvedRevision, fingerprint: row.approvedFingerprint }
+        : null,
     version: row.version,
     updatedAt: row.updatedAt.toISOString(),
     createdAt: row.createdAt.toISOString(),
@@ -77,14 +97,21 @@ export function storedJson(value: unknown): unknown {
   return typeof value === 'string' ? (JSON.parse(value) as unknown) : value;
 }
 
-/** The head-row columns that mirror the design, so lists can search and sort without the JSON. */
-function mirroredFields(design: Design) {
+/** The head-row columns of a working copy: the design, its fingerprint, and what lists search and sort by. */
+function workingFields(design: Design, workingRevision: number | null) {
   return {
+    workingData: design,
+    workingRevision,
+    workingFingerprint: designFingerprint(design),
     name: design.name,
     units: design.units,
     trebleScaleMm: toMm(design.scale.treble, design.units),
     bassScaleMm: toMm(design.scale.bass, design.units),
   };
+}
+
+function sameDesign(a: unknown, b: unknown): boolean {
+  return canonicalJson(a) === canonicalJson(b);
 }
 
 /** `text` for a LIKE pattern: `%`, `_` and a backslash in it are literal characters, not wildcards. */
@@ -139,23 +166,29 @@ export async function listDesigns(shopId: number, query: BoardListQuery): Promis
 }
 
 async function readDetail(handle: Db | Tx, shopId: number, id: number, revision?: number): Promise<BoardDetail | null> {
+  if (revision === undefined) {
+    const [row] = await handle
+      .select({ ...summaryColumns, data: designs.workingData })
+      .from(designs)
+      .where(and(eq(designs.id, id), eq(designs.shopId, shopId)))
+      .limit(1);
+    if (!row) return null;
+    return { ...toSummary(row), revision: row.workingRevision, design: storedJson(row.data) };
+  }
   const [row] = await handle
-    .select({ ...summaryColumns, revision: designRevisions.revision, data: designRevisions.data })
+    .select({ ...summaryColumns, revision: designRevisions.revision, data: designRevisions.data, fingerprint: designRevisions.fingerprint })
     .from(designs)
     .innerJoin(designRevisions, eq(designRevisions.designId, designs.id))
-    .where(
-      and(
-        eq(designs.id, id),
-        eq(designs.shopId, shopId),
-        revision === undefined ? eq(designRevisions.revision, designs.currentRevision) : eq(designRevisions.revision, revision),
-      ),
-    )
+    .where(and(eq(designs.id, id), eq(designs.shopId, shopId), eq(designRevisions.revision, revision)))
     .limit(1);
   if (!row) return null;
-  return { ...toSummary(row), revision: row.revision, design: storedJson(row.data) };
+  return { ...toSummary(row), revision: row.revision, fingerprint: row.fingerprint ?? '', design: storedJson(row.data) };
 }
 
-/** A board with its current design, or the given revision's; null when the shop has no such board or revision. */
+/**
+ * A board with its working copy (`revision` is the revision it equals, null when it has changes
+ * not yet in one), or the given revision's design; null when the shop has no such board or revision.
+ */
 export function getDesign(shopId: number, id: number, revision?: number): Promise<BoardDetail | null> {
   return readDetail(db(), shopId, id, revision);
 }
@@ -173,12 +206,13 @@ export interface NewBoard {
   note: string;
 }
 
-async function insertBoard(tx: Tx, writer: Writer, board: NewBoard): Promise<number> {
+async function insertBoard(tx: Tx, writer: Writer, board: NewBoard, reason: RevisionReason): Promise<number> {
+  const working = workingFields(board.design, 1);
   const [head] = await tx
     .insert(designs)
     .values({
       shopId: writer.shopId,
-      ...mirroredFields(board.design),
+      ...working,
       instrumentType: board.instrumentType,
       clientName: board.clientName,
       createdBy: writer.id,
@@ -186,43 +220,132 @@ async function insertBoard(tx: Tx, writer: Writer, board: NewBoard): Promise<num
     })
     .$returningId();
   const id = head!.id;
-  await tx.insert(designRevisions).values({ designId: id, revision: 1, data: board.design, note: board.note, authorId: writer.id });
+  await tx.insert(designRevisions).values({
+    designId: id,
+    revision: 1,
+    data: board.design,
+    note: board.note,
+    reason,
+    fingerprint: working.workingFingerprint,
+    authorId: writer.id,
+  });
   return id;
 }
 
-/** Saves a new board with its first revision. */
-export async function createDesign(writer: Writer, board: NewBoard): Promise<BoardDetail> {
+/** Saves a new board with its first revision (`reason` says whether it was made here or imported). */
+export async function createDesign(writer: Writer, board: NewBoard, reason: RevisionReason = 'created'): Promise<BoardDetail> {
   return db().transaction(async (tx) => {
-    const id = await insertBoard(tx, writer, board);
+    const id = await insertBoard(tx, writer, board, reason);
     return (await readDetail(tx, writer.shopId, id))!;
   });
 }
 
-/** The locked head row with its current revision's design. */
+/** The locked head row with its working copy. */
 interface Locked {
   head: Head;
   design: unknown;
 }
 
-/** Locks the shop's head row for the rest of the transaction and reads its current design. */
+/** Locks the shop's head row for the rest of the transaction and reads its working copy. */
 async function lockHead(tx: Tx, shopId: number, id: number): Promise<Locked | undefined> {
-  const [row] = await tx
-    .select({ head: designs, data: designRevisions.data })
+  const [head] = await tx
+    .select()
     .from(designs)
-    .innerJoin(designRevisions, and(eq(designRevisions.designId, designs.id), eq(designRevisions.revision, designs.currentRevision)))
     .where(and(eq(designs.id, id), eq(designs.shopId, shopId)))
     .for('update');
-  return row ? { head: row.head, design: storedJson(row.data) } : undefined;
+  return head ? { head, design: storedJson(head.workingData) } : undefined;
 }
 
-function detailOf(head: Head, design: unknown): BoardDetail {
-  return { ...toSummary(head), revision: head.currentRevision, design };
+function detailOf(head: Head): BoardDetail {
+  return { ...toSummary(head), revision: head.workingRevision, design: storedJson(head.workingData) };
 }
 
-async function appendRevision(tx: Tx, writer: Writer, head: Head, design: Design, note: string): Promise<number> {
+/** Inserts the next revision holding `design`; returns its number. */
+async function appendRevision(tx: Tx, writer: Writer, head: Head, design: unknown, note: string, reason: RevisionReason): Promise<number> {
   const revision = head.currentRevision + 1;
-  await tx.insert(designRevisions).values({ designId: head.id, revision, data: design, note, authorId: writer.id });
+  await tx.insert(designRevisions).values({
+    designId: head.id,
+    revision,
+    data: design,
+    note,
+    reason,
+    fingerprint: designFingerprint(design),
+    authorId: writer.id,
+  });
   return revision;
+}
+
+async function revisionData(tx: Tx, designId: number, revision: number): Promise<unknown> {
+  const [row] = await tx
+    .select({ data: designRevisions.data })
+    .from(designRevisions)
+    .where(and(eq(designRevisions.designId, designId), eq(designRevisions.revision, revision)))
+    .limit(1);
+  return row ? storedJson(row.data) : undefined;
+}
+
+/**
+ * The locked board's working copy as a revision: the revision it already equals, or a new one
+ * made for `reason`. The working copy is unchanged, so the version stays (the editor's next
+ * autosave is not a conflict). Returns the revision's number and fingerprint.
+ */
+export async function checkpointLocked(
+  tx: Tx,
+  writer: Writer,
+  head: Head,
+  reason: RevisionReason,
+  note: string,
+): Promise<{ revision: number; fingerprint: string; head: Head }> {
+  const fingerprint = head.workingFingerprint ?? designFingerprint(storedJson(head.workingData));
+  if (head.workingRevision !== null) return { revision: head.workingRevision, fingerprint, head };
+  const revision = await appendRevision(tx, writer, head, storedJson(head.workingData), note, reason);
+  await tx.update(designs).set({ currentRevision: revision, workingRevision: revision }).where(eq(designs.id, head.id));
+  return { revision, fingerprint, head: { ...head, currentRevision: revision, workingRevision: revision } };
+}
+
+/** Locks a board of the shop for another module's transaction (proofs pin a revision this way). */
+export function lockBoard(tx: Tx, shopId: number, id: number): Promise<Head | undefined> {
+  return lockHead(tx, shopId, id).then((locked) => locked?.head);
+}
+
+/**
+ * Works out the board's status and standing approval again from its proofs and working copy,
+ * and stores them (the version is left alone: a client's answer is not an edit). Run after every
+ * change to either.
+ */
+export async function refreshApproval(tx: DesignReader, shopId: number, designId: number): Promise<void> {
+  const [head] = await tx
+    .select({ workingFingerprint: designs.workingFingerprint })
+    .from(designs)
+    .where(and(eq(designs.id, designId), eq(designs.shopId, shopId)));
+  if (!head?.workingFingerprint) return;
+  const rows = await tx
+    .select({
+      revision: proofs.revision,
+      fingerprint: proofs.fingerprint,
+      decision: proofs.decision,
+      decidedAt: proofs.decidedAt,
+      createdAt: proofs.createdAt,
+      revokedAt: proofs.revokedAt,
+    })
+    .from(proofs)
+    .where(and(eq(proofs.shopId, shopId), eq(proofs.designId, designId)));
+  const facts = rows.map((r) => ({ ...r, fingerprint: r.fingerprint ?? '', revoked: r.revokedAt !== null }));
+  const { status, approval } = boardApproval(facts, head.workingFingerprint);
+  await tx
+    .update(designs)
+    .set({ status, approvedRevision: approval?.revision ?? null, approvedFingerprint: approval?.fingerprint ?? null })
+    .where(eq(designs.id, designId));
+}
+
+/**
+ * A change of layout on a board the client approved as it stands needs the writer to say so
+ * (`confirmApprovalChange`): the editor shows the warning first. Null when the change may go ahead.
+ */
+function approvalGuard(head: Head, nextFingerprint: string, confirmed: boolean | undefined): WriteResult<never> | null {
+  if (confirmed || head.approvedRevision === null || head.approvedFingerprint === null) return null;
+  if (head.workingFingerprint !== head.approvedFingerprint || nextFingerprint === head.approvedFingerprint) return null;
+  return { ok: false, reason: 'approval', approval: { revision: head.approvedRevision, fingerprint: head.approvedFingerprint } };
 }
 
 /**
@@ -239,7 +362,7 @@ async function writeLocked<T>(
     const locked = await lockHead(tx, writer.shopId, id);
     if (!locked) return { ok: false, reason: 'not_found' };
     if (expectedVersion !== undefined && expectedVersion !== locked.head.version) {
-      return { ok: false, reason: 'conflict', current: detailOf(locked.head, locked.design) };
+      return { ok: false, reason: 'conflict', current: detailOf(locked.head) };
     }
     return change(tx, locked);
   });
@@ -261,46 +384,86 @@ export interface BoardChange {
   instrumentType?: InstrumentType | undefined;
   clientName?: string | undefined;
   note: string;
+  /** Also keep the result as a revision (with `note`). */
+  saveRevision?: boolean | undefined;
+  /** The writer has seen that this change moves the board off the layout the client approved. */
+  confirmApprovalChange?: boolean | undefined;
 }
 
 /**
- * Updates a board the writer last saw at `change.version`. A design that differs from the current
- * revision becomes a new revision; an update that changes nothing writes nothing.
+ * Updates a board the writer last saw at `change.version`: the working copy takes the design
+ * (no revision is made unless `saveRevision` asks for one); an update that changes nothing
+ * writes nothing. Moving an approved board off its approved layout needs `confirmApprovalChange`.
  */
 export function updateDesign(writer: Writer, id: number, change: BoardChange): Promise<WriteResult<BoardDetail>> {
   return writeLocked(writer, id, change.version, async (tx, { head, design: current }) => {
-    const designChanged = change.design !== undefined && JSON.stringify(change.design) !== JSON.stringify(current);
+    const designChanged = change.design !== undefined && !sameDesign(change.design, current);
     const fields: Partial<Head> = {};
     if (change.instrumentType !== undefined && change.instrumentType !== head.instrumentType) fields.instrumentType = change.instrumentType;
     if (change.clientName !== undefined && change.clientName !== head.clientName) fields.clientName = change.clientName;
     if (designChanged && change.design) {
-      fields.currentRevision = await appendRevision(tx, writer, head, change.design, change.note);
-      Object.assign(fields, mirroredFields(change.design));
+      const latest = await revisionData(tx, head.id, head.currentRevision);
+      Object.assign(fields, workingFields(change.design, sameDesign(change.design, latest) ? head.currentRevision : null));
+      const refused = approvalGuard(head, fields.workingFingerprint!, change.confirmApprovalChange);
+      if (refused) return refused;
     }
-    if (Object.keys(fields).length === 0) return { ok: true, value: detailOf(head, current) };
-    const next = await touchHead(tx, writer, head, fields);
-    return { ok: true, value: detailOf(next, designChanged ? change.design : current) };
+    let next = Object.keys(fields).length === 0 ? head : await touchHead(tx, writer, head, fields);
+    if (change.saveRevision) next = (await checkpointLocked(tx, writer, next, 'saved', change.note)).head;
+    if (designChanged) await refreshApproval(tx, writer.shopId, id);
+    return { ok: true, value: (await readDetail(tx, writer.shopId, id))! };
   });
 }
 
-/** Makes revision `revision` current again by copying it into a new revision. */
-export function restoreRevision(writer: Writer, id: number, revision: number, version: number): Promise<WriteResult<BoardDetail>> {
+/** Keeps the working copy as a revision with a note (nothing new when it already is one). */
+export function saveRevision(writer: Writer, id: number, version: number | undefined, note: string): Promise<WriteResult<BoardDetail>> {
+  return writeLocked(writer, id, version, async (tx, { head }) => {
+    await checkpointLocked(tx, writer, head, 'saved', note);
+    return { ok: true, value: (await readDetail(tx, writer.shopId, id))! };
+  });
+}
+
+/**
+ * The working copy as a revision for an export of the board (made when it has changes not yet in
+ * one), so every print names a revision. Null when the shop has no such board.
+ */
+export async function exportRevision(writer: Writer, id: number): Promise<BoardDetail | null> {
+  return db().transaction(async (tx) => {
+    const locked = await lockHead(tx, writer.shopId, id);
+    if (!locked) return null;
+    const { revision } = await checkpointLocked(tx, writer, locked.head, 'export', 'Made for an export');
+    return readDetail(tx, writer.shopId, id, revision);
+  });
+}
+
+/**
+ * Makes revision `revision` the working copy again. No revision is made: the working copy equals
+ * that one exactly, so exports name it; restoring the approved revision makes the board approved again.
+ */
+export function restoreRevision(
+  writer: Writer,
+  id: number,
+  revision: number,
+  version: number,
+  confirmApprovalChange?: boolean,
+): Promise<WriteResult<BoardDetail>> {
   return writeLocked(writer, id, version, async (tx, { head }) => {
     const old = await readDetail(tx, writer.shopId, id, revision);
     if (!old) return { ok: false, reason: 'no_such_revision' };
-    const design = old.design as Design;
-    const currentRevision = await appendRevision(tx, writer, head, design, `Restored revision ${revision}`);
-    const next = await touchHead(tx, writer, head, { currentRevision, ...mirroredFields(design) });
-    return { ok: true, value: detailOf(next, design) };
+    const fields = workingFields(old.design as Design, revision);
+    const refused = approvalGuard(head, fields.workingFingerprint, confirmApprovalChange);
+    if (refused) return refused;
+    await touchHead(tx, writer, head, fields);
+    await refreshApproval(tx, writer.shopId, id);
+    return { ok: true, value: (await readDetail(tx, writer.shopId, id))! };
   });
 }
 
 /** Archives or unarchives a board (it keeps its status and revisions). */
 export function setArchived(writer: Writer, id: number, archived: boolean, version?: number): Promise<WriteResult<BoardDetail>> {
-  return writeLocked(writer, id, version, async (tx, { head, design }) => {
-    if (archived === (head.archivedAt !== null)) return { ok: true, value: detailOf(head, design) };
+  return writeLocked(writer, id, version, async (tx, { head }) => {
+    if (archived === (head.archivedAt !== null)) return { ok: true, value: detailOf(head) };
     const next = await touchHead(tx, writer, head, { archivedAt: archived ? new Date() : null });
-    return { ok: true, value: detailOf(next, design) };
+    return { ok: true, value: detailOf(next) };
   });
 }
 
@@ -333,12 +496,13 @@ export async function duplicateDesign(writer: Writer, id: number): Promise<Board
     const source = await readDetail(tx, writer.shopId, id);
     if (!source) return null;
     const design = { ...(source.design as Design), name: copyName(source.name) };
-    const copyId = await insertBoard(tx, writer, {
-      design,
-      instrumentType: source.instrumentType as InstrumentType,
-      clientName: source.clientName,
-      note: `Copied from "${source.name}" revision ${source.revision}`,
-    });
+    const from = source.revision === null ? 'its working copy' : `revision ${source.revision}`;
+    const copyId = await insertBoard(
+      tx,
+      writer,
+      { design, instrumentType: source.instrumentType as InstrumentType, clientName: source.clientName, note: `Copied from "${source.name}", ${from}` },
+      'created',
+    );
     return readDetail(tx, writer.shopId, copyId);
   });
 }
@@ -350,6 +514,8 @@ export async function listRevisions(shopId: number, id: number): Promise<BoardRe
     .select({
       revision: designRevisions.revision,
       note: designRevisions.note,
+      reason: designRevisions.reason,
+      fingerprint: designRevisions.fingerprint,
       authorName: users.displayName,
       createdAt: designRevisions.createdAt,
       data: designRevisions.data,
@@ -361,6 +527,8 @@ export async function listRevisions(shopId: number, id: number): Promise<BoardRe
   return rows.map((row) => ({
     revision: row.revision,
     note: row.note,
+    reason: row.reason,
+    fingerprint: row.fingerprint ?? '',
     authorName: row.authorName ?? '',
     createdAt: row.createdAt.toISOString(),
     design: storedJson(row.data),
@@ -398,13 +566,4 @@ export async function findRevisionDesign(reader: DesignReader, designId: number,
   if (!row) return null;
   const validation = validateDesign(storedJson(row.data));
   return validation.ok ? validation.design : null;
-}
-
-/**
- * Sets the design's status (a proof was sent, approved or answered with changes). The
- * optimistic-concurrency version is left alone on purpose: a client's answer is not an edit, and
- * must not turn the builder's next save into a conflict.
- */
-export async function setDesignStatus(writer: DesignReader, shopId: number, designId: number, status: DesignStatus): Promise<void> {
-  await writer.update(designs).set({ status }).where(and(eq(designs.id, designId), eq(designs.shopId, shopId)));
 }

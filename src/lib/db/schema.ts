@@ -7,7 +7,7 @@
  */
 import { sql } from 'drizzle-orm';
 import { ROLES } from '~/lib/schemas/account.ts';
-import { DESIGN_STATUSES } from '~/lib/schemas/board.ts';
+import { DESIGN_STATUSES, REVISION_REASONS } from '~/lib/schemas/board.ts';
 import { templateConditionSchema } from '~/lib/schemas/template.ts';
 import {
   bigint,
@@ -104,10 +104,13 @@ export const oneTimeTokens = mysqlTable(
   (t) => [uniqueIndex('tokens_hash_uq').on(t.tokenHash), index('tokens_shop_idx').on(t.shopId, t.kind)],
 );
 
-export { DESIGN_STATUSES } from '~/lib/schemas/board.ts';
-export type DesignStatus = (typeof DESIGN_STATUSES)[number];
+export { DESIGN_STATUSES, type DesignStatus } from '~/lib/schemas/board.ts';
 
-/** A saved design's head row; its geometry lives in design_revisions. */
+/**
+ * A board's head row. The working copy (what the editor autosaves) lives here; revisions are the
+ * checkpoints in design_revisions. `workingRevision` names the revision the working copy equals
+ * exactly (null: it has changes not yet in a revision). Fingerprints are designFingerprint()'s.
+ */
 export const designs = mysqlTable(
   'designs',
   {
@@ -122,7 +125,15 @@ export const designs = mysqlTable(
     bassScaleMm: double('bass_scale_mm').notNull(),
     status: mysqlEnum('status', DESIGN_STATUSES).notNull().default('draft'),
     archivedAt: datetime('archived_at', { mode: 'date', fsp: 3 }),
+    /** The newest revision's number (the working copy may be ahead of it). */
     currentRevision: int('current_revision').notNull().default(1),
+    /** The working copy's design JSON; null only on rows the start-up backfill has not reached. */
+    workingData: json('working_data'),
+    workingRevision: int('working_revision'),
+    workingFingerprint: char('working_fingerprint', { length: 14 }),
+    /** The client's standing approval (boardApproval() in lib/proofs): which revision, which layout. */
+    approvedRevision: int('approved_revision'),
+    approvedFingerprint: char('approved_fingerprint', { length: 14 }),
     /** Optimistic concurrency: every write bumps it; a write naming an older one gets 409. */
     version: int('version').notNull().default(1),
     createdBy: userRef('created_by').notNull(),
@@ -138,7 +149,9 @@ export const designs = mysqlTable(
   ],
 );
 
-/** Every geometry change is a new row; rows are never updated. */
+export { REVISION_REASONS } from '~/lib/schemas/board.ts';
+
+/** A checkpoint of a board's design; rows are never updated (the start-up backfill sets a missing fingerprint once). */
 export const designRevisions = mysqlTable(
   'design_revisions',
   {
@@ -149,6 +162,9 @@ export const designRevisions = mysqlTable(
     revision: int('revision').notNull(),
     data: json('data').notNull(),
     note: varchar('note', { length: 500 }).notNull().default(''),
+    /** Why the revision was made: saved by a person, or made for a proof, an export, a restore… */
+    reason: mysqlEnum('reason', REVISION_REASONS).notNull().default('saved'),
+    fingerprint: char('fingerprint', { length: 14 }),
     authorId: userRef('author_id').notNull(),
     createdAt: now(),
   },
@@ -165,6 +181,8 @@ export const proofs = mysqlTable(
       .notNull()
       .references(() => designs.id, { onDelete: 'cascade' }),
     revision: int('revision').notNull(),
+    /** The pinned revision's fingerprint, so an approval can be compared with the board as it is now. */
+    fingerprint: char('fingerprint', { length: 14 }),
     tokenHash: char('token_hash', { length: 64 }).notNull(),
     clientName: varchar('client_name', { length: 120 }).notNull(),
     clientEmail: varchar('client_email', { length: 254 }).notNull(),

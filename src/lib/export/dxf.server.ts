@@ -94,12 +94,16 @@ export function dxfDocument(doc: DxfDocument): string {
   return `${doc.comments.map((comment) => `999\n${oneLine(comment)}\n`).join('')}${dxf}\n`;
 }
 
-/** Slot paths: one DXF layer per slot-path layer; the scale convention and the caution as comments. */
-export function slotPathsDxf(paths: SlotPaths): string {
+/** Slot paths: one DXF layer per slot-path layer; where it comes from, the scale convention and the caution as comments. */
+export function slotPathsDxf(paths: SlotPaths, provenance?: string): string {
   return dxfDocument({
     units: paths.units,
     layers: SLOT_PATH_LAYERS.map((name) => ({ name, ...paths.layers[name] })),
-    comments: [`${capitalised(scaleConventionWords(paths.scaleAlong))}.`, machineCaution(paths.units, 'slot paths')],
+    comments: [
+      ...(provenance ? [provenance] : []),
+      `${capitalised(scaleConventionWords(paths.scaleAlong))}.`,
+      machineCaution(paths.units, 'slot paths'),
+    ],
   });
 }
 

@@ -11,7 +11,7 @@ import { LAYOUT_FORMATS } from './layout-formats.ts';
 import { paperTemplatePdf } from './pdf.server.ts';
 import { slotPaths } from './slot-paths.ts';
 import { slotPathsSvg } from './svg.ts';
-import type { ExportContext } from './title-block.ts';
+import { provenanceLine, type ExportContext } from './title-block.ts';
 
 export type { ExportContext } from './title-block.ts';
 
@@ -45,14 +45,16 @@ export async function exportDesign(
       bytes = (await paperTemplatePdf(design, layout, options, context)).bytes;
       break;
     case 'dxf':
-      bytes = text.encode(slotPathsDxf(slotPaths(layout, options)));
+      bytes = text.encode(slotPathsDxf(slotPaths(layout, options), provenanceLine(design, context)));
       break;
     case 'svg':
-      bytes = text.encode(slotPathsSvg(slotPaths(layout, options)));
+      bytes = text.encode(slotPathsSvg(slotPaths(layout, options), provenanceLine(design, context)));
       break;
-    case 'csv':
-      bytes = text.encode(LAYOUT_FORMATS.csv.render(layout));
+    case 'csv': {
+      const comment = options.sourceComment ? `# ${provenanceLine(design, context)}\n` : '';
+      bytes = text.encode(`${comment}${LAYOUT_FORMATS.csv.render(layout)}`);
       break;
+    }
     case 'json':
       bytes = text.encode(`${LAYOUT_FORMATS.json.render(layout)}\n`);
       break;
@@ -60,6 +62,6 @@ export async function exportDesign(
   return {
     bytes,
     contentType: EXPORT_CONTENT_TYPES[options.format],
-    filename: exportFileName(design.name, options.format),
+    filename: exportFileName(design.name, options.format, context.revision),
   };
 }

@@ -24,16 +24,21 @@ export type DownloadFile =
 
 const MAX_BASE_CHARS = 80;
 
-export function exportFileName(name: string, file: DownloadFile): string {
-  const base = safeName(name) || 'design';
-  if (typeof file === 'string') return `${base}-${SUFFIX[file]}`;
+/**
+ * `<slug>-r<revision>-<kind>.<ext>` for a saved board's revision (`<slug>-<kind>.<ext>` for an
+ * unsaved design); templates add their shelf number after the slug.
+ */
+export function exportFileName(name: string, file: DownloadFile, revision?: number | null): string {
+  const base = safeName(name).toLowerCase() || 'design';
+  const slug = revision == null ? base : `${base}-r${revision}`;
+  if (typeof file === 'string') return `${slug}-${SUFFIX[file]}`;
   switch (file.kind) {
     case 'board-file':
-      return `${base}-r${file.revision}.json`;
+      return `${base}-r${file.revision}-board.json`;
     case 'index-template':
-      return `${base}-${file.templateId}-index-template.${file.format}`;
+      return `${base}-${file.templateId}${revision == null ? '' : `-r${revision}`}-index-template.${file.format}`;
     case 'label':
-      return `${base}-${file.templateId}-label-${safeName(file.size)}.pdf`;
+      return `${base}-${file.templateId}${revision == null ? '' : `-r${revision}`}-label-${safeName(file.size).toLowerCase()}.pdf`;
   }
 }
 

@@ -39,7 +39,7 @@ import { drawCalibrationBars, embedMonoFont } from './pdf-kit.server.ts';
 import { PRINT_CAUTION } from './safety-note.ts';
 import { sheetDrawing, type LineStyle, type SheetItem } from './sheet-drawing.ts';
 import { planTiles, type Tile, type TilePlan } from './tile-pages.ts';
-import { titleBlockLines, type ExportContext } from './title-block.ts';
+import { provenanceLine, revisionWords, titleBlockLines, type ExportContext } from './title-block.ts';
 
 type Rgb = [number, number, number];
 export interface Pen {
@@ -97,7 +97,8 @@ export async function paperTemplatePdf(
   const document = await PDFDocument.create();
   const font = await embedMonoFont(document);
   document.setTitle(`${design.name} (paper template)`);
-  document.setSubject(PRINT_CAUTION);
+  document.setSubject(`${PRINT_CAUTION} ${provenanceLine(design, context)}`);
+  document.setKeywords([revisionWords(context)]);
   document.setCreator('Kerfline');
   const titleLines = titleBlockLines(design, options, context);
   const outline = drawing.items.find((item) => item.kind === 'polygon' && item.style === 'outline');

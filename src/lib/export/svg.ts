@@ -13,7 +13,8 @@ import { SLOT_PATH_LAYERS, slotPathBounds, type SlotPaths } from './slot-paths.t
 /** Hairline width: 0.1 mm. */
 const STROKE_MM = 0.1;
 
-export function slotPathsSvg(paths: SlotPaths): string {
+/** `provenance` (provenanceLine) goes into the file's <metadata>. */
+export function slotPathsSvg(paths: SlotPaths, provenance?: string): string {
   const box = slotPathBounds(paths);
   const width = box.maxX - box.minX;
   const height = box.maxY - box.minY;
@@ -37,6 +38,7 @@ export function slotPathsSvg(paths: SlotPaths): string {
       `viewBox="${num(box.minX)} ${num(-box.maxY)} ${num(width)} ${num(height)}" ` +
       `fill="none" stroke="#000" stroke-width="${num(fromMm(STROKE_MM, paths.units))}" stroke-linecap="round">`,
     `<title>${escapeText(paths.name)}</title>`,
+    ...(provenance ? [`<metadata>${escapeText(provenance)}</metadata>`] : []),
     ...groups,
     '</svg>',
     '',

@@ -18,7 +18,7 @@ import type {
   SharedProof,
 } from '~/lib/schemas/proof.ts';
 import { db } from '~/lib/db/client.server.ts';
-import { findRevisionDesign, findShopDesign, setDesignStatus, storedJson } from '~/lib/db/designs.server.ts';
+import { checkpointLocked, findRevisionDesign, findShopDesign, lockBoard, refreshApproval, storedJson } from '~/lib/db/designs.server.ts';
 import { designRevisions, designs, proofs, shops, users } from '~/lib/db/schema.ts';
 import { mailBuilderDecision, mailClientProof } from '~/lib/proofs/proof-mails.server.ts';
 
@@ -38,6 +38,9 @@ export interface ProofPage {
   shopName: string;
   designName: string;
   revision: number;
+  /** The pinned revision's fingerprint, as printed on the shop's exports of it. */
+  fingerprint: string;
+  /** The board has changed since this proof was made (the page still shows what was sent). */
   newerRevisionExists: boolean;
   clientName: string;
   message: string;
@@ -71,6 +74,7 @@ function toSummary(row: ProofRow, now: Date): ProofSummary {
   return {
     id: row.id,
     revision: row.revision,
+    fingerprint: row.fingerprint ?? '',
     clientName: row.clientName,
     clientEmail: row.clientEmail,
     message: row.message,
@@ -95,20 +99,24 @@ function locate(locator: ProofLocator): SQL | undefined {
 }
 
 /**
- * Creates a proof of the design's current revision, marks the design as shared and e-mails the
- * client the link. Null when the design is not in the writer's shop.
+ * Creates a proof of the board's working copy, pinned to a revision (one is made when the
+ * working copy has changes not yet in a revision), works out the board's status again and
+ * e-mails the client the link. Null when the design is not in the writer's shop.
  */
 export async function createProof(writer: ProofWriter, designId: number, input: CreateProofInput, now: Date): Promise<CreatedProof | null> {
   const token = newToken();
   const created = await db().transaction(async (tx) => {
-    const head = await findShopDesign(tx, writer.shopId, designId);
-    if (!head) return null;
+    const locked = await lockBoard(tx, writer.shopId, designId);
+    if (!locked) return null;
+    const pinned = await checkpointLocked(tx, writer, locked, 'proof', `Sent to ${input.clientName} in a proof`);
+    const head = { name: locked.name };
     const [inserted] = await tx
       .insert(proofs)
       .values({
         shopId: writer.shopId,
         designId,
-        revision: head.currentRevision,
+        revision: pinned.revision,
+        fingerprint: pinned.fingerprint,
         tokenHash: sha256Hex(token),
         clientName: input.clientName,
         clientEmail: input.clientEmail,
@@ -118,7 +126,7 @@ export async function createProof(writer: ProofWriter, designId: number, input: 
         createdAt: now,
       })
       .$returningId();
-    await setDesignStatus(tx, writer.shopId, designId, 'shared');
+    await refreshApproval(tx, writer.shopId, designId);
     const [row] = await tx.select().from(proofs).where(eq(proofs.id, inserted!.id));
     return { head, row: row! };
   });
@@ -142,7 +150,7 @@ export async function createProof(writer: ProofWriter, designId: number, input: 
 /** The proof page's content, or null for unknown, revoked and expired proofs alike. */
 export async function openProof(locator: ProofLocator, now: Date): Promise<ProofPage | null> {
   const [found] = await db()
-    .select({ proof: proofs, shopName: shops.name, currentRevision: designs.currentRevision })
+    .select({ proof: proofs, shopName: shops.name, workingFingerprint: designs.workingFingerprint })
     .from(proofs)
     .innerJoin(designs, eq(designs.id, proofs.designId))
     .innerJoin(shops, eq(shops.id, proofs.shopId))
@@ -155,7 +163,8 @@ export async function openProof(locator: ProofLocator, now: Date): Promise<Proof
     shopName: found.shopName,
     designName: design.name,
     revision: found.proof.revision,
-    newerRevisionExists: found.currentRevision > found.proof.revision,
+    fingerprint: found.proof.fingerprint ?? '',
+    newerRevisionExists: found.workingFingerprint !== found.proof.fingerprint,
     clientName: found.proof.clientName,
     message: found.proof.message,
     expiresAt: found.proof.expiresAt.toISOString(),
@@ -166,9 +175,9 @@ export async function openProof(locator: ProofLocator, now: Date): Promise<Proof
 
 /**
  * Records the client's answer once. The update itself re-checks "not decided, not revoked, not
- * expired", so two answers racing each other cannot both be recorded. The design's status follows
- * the answer when the proof shows its current revision (an answer to an older proof is kept in
- * the history but does not speak for the newer geometry). The builder who sent it gets an e-mail.
+ * expired", so two answers racing each other cannot both be recorded. The board's status is then
+ * worked out again (boardApproval): the answer speaks for the pinned layout only, so it shows
+ * on the board while the board still has that layout. The builder who sent it gets an e-mail.
  */
 export async function decideProof(locator: ProofLocator, input: DecisionInput, now: Date): Promise<DecideResult> {
   const [row] = await db().select().from(proofs).where(locate(locator)).limit(1);
@@ -182,9 +191,8 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
       .set({ decision: input.decision, decidedAt: now, decidedName: input.name, decisionComment: comment })
       .where(and(eq(proofs.id, row.id), isNull(proofs.decision), isNull(proofs.revokedAt), gt(proofs.expiresAt, now)));
     if (result.affectedRows !== 1) return null;
-    const head = await findShopDesign(tx, row.shopId, row.designId);
-    if (head && head.currentRevision === row.revision) await setDesignStatus(tx, row.shopId, row.designId, input.decision);
-    return head;
+    await refreshApproval(tx, row.shopId, row.designId);
+    return findShopDesign(tx, row.shopId, row.designId);
   });
   if (!recorded) return { ok: false, reason: 'already_decided' };
   const decision: ProofDecision = { kind: input.decision, at: now.toISOString(), name: input.name, comment };
@@ -218,6 +226,7 @@ export async function revokeProof(shopId: number, proofId: number, now: Date): P
     .where(and(eq(proofs.id, proofId), eq(proofs.shopId, shopId), isNull(proofs.revokedAt), isNull(proofs.decision)));
   const [row] = await db().select().from(proofs).where(and(eq(proofs.id, proofId), eq(proofs.shopId, shopId)));
   if (!row) return { ok: false, reason: 'not_found' };
+  if (row.revokedAt) await refreshApproval(db(), shopId, row.designId);
   if (row.decision && !row.revokedAt) return { ok: false, reason: 'answered' };
   return { ok: true, proof: toSummary(row, now) };
 }

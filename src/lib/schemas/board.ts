@@ -7,8 +7,17 @@ import { z } from 'zod';
 export const INSTRUMENT_TYPES = ['guitar', 'classical', 'bass', 'mandolin', 'ukulele', 'banjo', 'other'] as const;
 export type InstrumentType = (typeof INSTRUMENT_TYPES)[number];
 
-/** A board's stored status; the database's enum is made from this list. */
-export const DESIGN_STATUSES = ['draft', 'shared', 'approved', 'changes_requested'] as const;
+/**
+ * A board's stored status, worked out from its proofs and its working copy (boardApproval() in
+ * lib/proofs); the database's enum is made from this list. "changed_since_approval": the client
+ * approved a revision and the board no longer matches it.
+ */
+export const DESIGN_STATUSES = ['draft', 'shared', 'approved', 'changes_requested', 'changed_since_approval'] as const;
+export type DesignStatus = (typeof DESIGN_STATUSES)[number];
+
+/** Why a revision was made: a person saved one, or it was made for a proof, an export, a restore, an import, or it predates checkpoints. */
+export const REVISION_REASONS = ['saved', 'created', 'proof', 'export', 'imported', 'restored', 'autosave'] as const;
+export type RevisionReason = (typeof REVISION_REASONS)[number];
 
 /** What the API shows as a board's status: the stored status, or "archived" once archived. */
 export const BOARD_STATUSES = [...DESIGN_STATUSES, 'archived'] as const;
@@ -52,13 +61,24 @@ export const boardUpdateSchema = z
     instrumentType: z.enum(INSTRUMENT_TYPES).optional(),
     clientName: clientName.optional(),
     note: note.default(''),
+    /** Keep the result as a revision too (a checkpoint with `note`); autosave leaves it out. */
+    saveRevision: z.boolean().optional(),
+    /** Sent after the builder has seen that this change moves the board off the approved layout. */
+    confirmApprovalChange: z.boolean().optional(),
   })
   .strict();
 export type BoardUpdate = z.infer<typeof boardUpdateSchema>;
 
 export const boardRestoreSchema = z
-  .object({ revision: z.number().int({ message: 'must be a whole number' }).positive(), version })
+  .object({
+    revision: z.number().int({ message: 'must be a whole number' }).positive(),
+    version,
+    confirmApprovalChange: z.boolean().optional(),
+  })
   .strict();
+
+/** POST /api/designs/{id}/revisions: keep the working copy as a revision, with an optional note. */
+export const boardSaveRevisionSchema = z.object({ version: version.optional(), note: note.default('') }).strict();
 
 export const boardArchiveSchema = z.object({ archived: z.boolean(), version: version.optional() }).strict();
 
@@ -97,7 +117,14 @@ export interface BoardSummary {
   status: BoardStatus;
   trebleScaleMm: number;
   bassScaleMm: number;
+  /** The newest revision's number. */
   currentRevision: number;
+  /** The revision the working copy equals; null while it has changes not yet in a revision. */
+  workingRevision: number | null;
+  /** The working copy's fingerprint (designFingerprint). */
+  fingerprint: string;
+  /** The client's standing approval, if any: which revision, which layout. */
+  approval: { revision: number; fingerprint: string } | null;
   version: number;
   updatedAt: string;
   createdAt: string;
@@ -110,15 +137,20 @@ export interface BoardList {
   pageSize: number;
 }
 
-/** A board with the design of one revision (the current one unless asked otherwise). */
+/**
+ * A board with its working copy (`revision` = the revision it equals, null while it has changes
+ * not yet in one), or with one revision's design when asked (`fingerprint` is then that revision's).
+ */
 export interface BoardDetail extends BoardSummary {
-  revision: number;
+  revision: number | null;
   design: unknown;
 }
 
 export interface BoardRevision {
   revision: number;
   note: string;
+  reason: RevisionReason;
+  fingerprint: string;
   authorName: string;
   createdAt: string;
   design: unknown;

@@ -68,6 +68,8 @@ export const exportOptionsSchema = z
     toSaddle: flag.default(false),
     /** Add a last page with each fret's distance from the nut along the treble edge, the bass edge and the centre line. */
     distances: flag.default(false),
+    /** Fret table: start the CSV with a `#` comment line naming the board, revision and fingerprint (off: plain CSV for scripts). */
+    sourceComment: flag.default(false),
     /** Slot paths: single lines, or closed outlines of the slot width. */
     slots: choice(SLOT_STYLES).default('lines'),
     /** Slot paths origin: the nut centre (board coordinates) or the board's lower-left corner. */

@@ -84,6 +84,8 @@ export type ProofState = 'open' | DecisionKind | 'revoked' | 'expired';
 export interface ProofSummary {
   id: number;
   revision: number;
+  /** The pinned revision's fingerprint. */
+  fingerprint: string;
   clientName: string;
   clientEmail: string;
   message: string;

@@ -4,9 +4,9 @@ import { exportFileName } from '~/lib/export/file-name.ts';
 import { scaleText } from '~/components/boards/board-labels.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 
-const detail: BoardDetail = {
+const detail: BoardDetail & { revision: number } = {
   id: 7, name: 'Demo: seven-string', instrumentType: 'guitar', clientName: 'Ines Calloway', units: 'mm', status: 'draft',
-  trebleScaleMm: 648, bassScaleMm: 686, currentRevision: 2, version: 3, updatedAt: '', createdAt: '', revision: 2, design: { name: 'x' },
+  trebleScaleMm: 648, bassScaleMm: 686, currentRevision: 2, workingRevision: 2, fingerprint: '0000-0000-0000', approval: null, version: 3, updatedAt: '', createdAt: '', revision: 2, design: { name: 'x' },
 };
 
 describe('board JSON file', () => {
@@ -25,8 +25,8 @@ describe('board JSON file', () => {
   });
 
   it('makes file names of letters, digits and dashes', () => {
-    expect(exportFileName('Demo: seven-string, 648/686 mm', { kind: 'board-file', revision: 3 })).toBe('Demo-seven-string-648-686-mm-r3.json');
-    expect(exportFileName('***', { kind: 'board-file', revision: 1 })).toBe('design-r1.json');
+    expect(exportFileName('Demo: seven-string, 648/686 mm', { kind: 'board-file', revision: 3 })).toBe('demo-seven-string-648-686-mm-r3-board.json');
+    expect(exportFileName('***', { kind: 'board-file', revision: 1 })).toBe('design-r1-board.json');
   });
 
   it('shows one scale or a treble–bass range in the design units (0.01 mm, 0.001 in)', () => {

@@ -253,8 +253,8 @@ describe('one download name for the same file', () => {
     if (!options.ok) throw new Error('options');
     // The editor's fret-table tab names its download with exportFileName(design.name, 'csv').
     expect((await exportDesign(design, options.options)).filename).toBe(exportFileName(design.name, 'csv'));
-    expect(exportFileName(design.name, 'csv')).toBe('Senor-Ukulele-fret-table.csv');
-    expect(exportFileName(design.name, { kind: 'board-file', revision: 2 })).toBe('Senor-Ukulele-r2.json');
-    expect(exportFileName(design.name, { kind: 'index-template', templateId: 7, format: 'dxf' })).toBe('Senor-Ukulele-7-index-template.dxf');
+    expect(exportFileName(design.name, 'csv')).toBe('senor-ukulele-fret-table.csv');
+    expect(exportFileName(design.name, { kind: 'board-file', revision: 2 })).toBe('senor-ukulele-r2-board.json');
+    expect(exportFileName(design.name, { kind: 'index-template', templateId: 7, format: 'dxf' })).toBe('senor-ukulele-7-index-template.dxf');
   });
 });

@@ -28,7 +28,7 @@ describe('POST /api/export', () => {
     expect(response.status).toBe(200);
     expect(response.headers.get('content-type')).toBe(type);
     expect(response.headers.get('content-disposition')).toBe(
-      `attachment; filename="Demo-seven-string-multi-scale-guitar-${suffix}"`,
+      `attachment; filename="demo-seven-string-multi-scale-guitar-${suffix}"`,
     );
     const bytes = new Uint8Array(await response.arrayBuffer());
     expect(new TextDecoder().decode(bytes.subarray(0, start.length))).toBe(start);
@@ -63,7 +63,7 @@ describe('POST /api/export', () => {
 
 describe('export file names', () => {
   it('keep only safe ASCII characters from the design name', () => {
-    expect(exportFileName('Café "bass"; rm -rf /', 'dxf')).toBe('Cafe-bass-rm-rf-slot-paths.dxf');
+    expect(exportFileName('Café "bass"; rm -rf /', 'dxf')).toBe('cafe-bass-rm-rf-slot-paths.dxf');
     expect(exportFileName('../../etc/passwd', 'pdf')).toBe('etc-passwd-paper-template.pdf');
     expect(exportFileName('日本', 'csv')).toBe('design-fret-table.csv');
     expect(exportFileName('x'.repeat(300), 'svg').length).toBeLessThanOrEqual(80 + '-slot-paths.svg'.length);

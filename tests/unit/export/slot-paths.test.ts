@@ -144,9 +144,11 @@ describe('slot paths DXF read back with dxf-parser', () => {
     });
   });
 
-  it('states the scale convention, the units and a caution in DXF comments (group 999)', async () => {
+  it('states where it comes from, the scale convention, the units and a caution in DXF comments (group 999)', async () => {
     const { text } = await dxf(demo('tenor-ukulele'), {});
-    const [code, convention, code2, comment] = text.split('\n');
+    const [code0, provenance, code, convention, code2, comment] = text.split('\n');
+    expect(code0).toBe('999');
+    expect(provenance).toMatch(/^Kerfline: Demo: tenor ukulele.* - unsaved \(not a saved board revision\) - exported \d{4}-\d\d-\d\d - units in - /);
     expect(code).toBe('999');
     expect(convention).toBe('Scale lengths measured along the centre line (square to the nut).');
     expect(code2).toBe('999');

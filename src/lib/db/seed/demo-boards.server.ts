@@ -2,28 +2,33 @@
  * Demo seed step: the invented shop's five instruments as saved boards, each with three
  * revisions, so Boards, the revision history and proofs have something to show. Idempotent:
  * a board whose name already exists in the demo shop is left alone.
- * Clients, statuses and revision notes are demo data, invented for the shop in PRODUCT.md.
+ * Clients, their answers and revision notes are demo data, invented for the shop in PRODUCT.md.
  */
 import { and, eq } from 'drizzle-orm';
-import { createDesign, updateDesign } from '~/lib/db/designs.server.ts';
-import { designs } from '~/lib/db/schema.ts';
+import { newToken, sha256Hex } from '~/lib/auth/tokens.server.ts';
+import type { Db } from '~/lib/db/client.server.ts';
+import { checkpointLocked, createDesign, lockBoard, refreshApproval, updateDesign } from '~/lib/db/designs.server.ts';
+import { designs, proofs } from '~/lib/db/schema.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { InstrumentType } from '~/lib/schemas/board.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 import type { SeedStep } from './demo-shop.server.ts';
 
+type DemoAnswer = 'approved' | 'changes_requested';
+
 interface DemoBoard {
   instrumentType: InstrumentType;
   clientName: string;
-  status: 'draft' | 'shared' | 'approved' | 'changes_requested';
+  /** The client's answer to a proof of the newest revision (the seven-string's proof waits: demo-proof step). */
+  answer?: DemoAnswer;
 }
 
 const BOARDS: Record<string, DemoBoard> = {
-  'seven-string-fan': { instrumentType: 'guitar', clientName: 'Ines Calloway', status: 'shared' },
-  'short-scale-bass': { instrumentType: 'bass', clientName: 'Rafe Dunmore', status: 'approved' },
-  'classical-650': { instrumentType: 'classical', clientName: '', status: 'draft' },
-  mandolin: { instrumentType: 'mandolin', clientName: 'Ines Calloway', status: 'changes_requested' },
-  'tenor-ukulele': { instrumentType: 'ukulele', clientName: 'Rafe Dunmore', status: 'draft' },
+  'seven-string-fan': { instrumentType: 'guitar', clientName: 'Ines Calloway' },
+  'short-scale-bass': { instrumentType: 'bass', clientName: 'Rafe Dunmore', answer: 'approved' },
+  'classical-650': { instrumentType: 'classical', clientName: '' },
+  mandolin: { instrumentType: 'mandolin', clientName: 'Ines Calloway', answer: 'changes_requested' },
+  'tenor-ukulele': { instrumentType: 'ukulele', clientName: 'Rafe Dunmore' },
 };
 
 /** Three plausible steps toward the final design: fewer frets, then a wider slot, then the final. */
@@ -59,10 +64,37 @@ export const seedDemoBoards: SeedStep = async ({ db, shopId, people }) => {
     const [first, ...later] = history(design);
     let saved = await createDesign(owner, { design: first!.design, instrumentType: board.instrumentType, clientName: board.clientName, note: first!.note });
     for (const step of later) {
-      const result = await updateDesign(builder, saved.id, { version: saved.version, design: step.design, note: step.note });
+      const result = await updateDesign(builder, saved.id, { version: saved.version, design: step.design, note: step.note, saveRevision: true });
       if (!result.ok) throw new Error(`could not seed a revision of ${design.name}: ${result.reason}`);
       saved = result.value;
     }
-    await db.update(designs).set({ status: board.status }).where(eq(designs.id, saved.id));
+    if (board.answer) await seedAnsweredProof(db, shopId, saved.id, builder.id, board.clientName, board.answer);
   }
 };
+
+/** A proof of the board's newest revision, already answered by the client (demo data). */
+async function seedAnsweredProof(db: Db, shopId: number, designId: number, builderId: string, clientName: string, answer: DemoAnswer): Promise<void> {
+  await db.transaction(async (tx) => {
+    const head = await lockBoard(tx, shopId, designId);
+    if (!head) return;
+    const pinned = await checkpointLocked(tx, { id: builderId, shopId }, head, 'proof', `Sent to ${clientName} in a proof`);
+    const decidedAt = new Date();
+    await tx.insert(proofs).values({
+      shopId,
+      designId,
+      revision: pinned.revision,
+      fingerprint: pinned.fingerprint,
+      tokenHash: sha256Hex(newToken()),
+      clientName,
+      clientEmail: `${clientName.toLowerCase().replace(/[^a-z]+/g, '.')}@clients.example`,
+      message: 'The layout for your build, for your approval.',
+      expiresAt: new Date(decidedAt.getTime() + 30 * 86_400_000),
+      createdBy: builderId,
+      decision: answer,
+      decidedAt,
+      decidedName: clientName,
+      decisionComment: answer === 'changes_requested' ? 'Could the side dots be a little smaller?' : '',
+    });
+    await refreshApproval(tx, shopId, designId);
+  });
+}

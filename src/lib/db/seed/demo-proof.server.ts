@@ -6,6 +6,7 @@
  */
 import { and, eq, like } from 'drizzle-orm';
 import { newToken, sha256Hex } from '~/lib/auth/tokens.server.ts';
+import { refreshApproval } from '~/lib/db/designs.server.ts';
 import { designs, proofs } from '~/lib/db/schema.ts';
 import type { SeedStep } from './demo-shop.server.ts';
 
@@ -15,7 +16,7 @@ const DEMO_PROOF_DAYS = 365;
 
 export const seedDemoProof: SeedStep = async ({ db, shopId, people }) => {
   const [design] = await db
-    .select({ id: designs.id, currentRevision: designs.currentRevision })
+    .select({ id: designs.id, currentRevision: designs.currentRevision, fingerprint: designs.workingFingerprint })
     .from(designs)
     .where(and(eq(designs.shopId, shopId), like(designs.name, '%Seven-string%')))
     .limit(1);
@@ -32,6 +33,7 @@ export const seedDemoProof: SeedStep = async ({ db, shopId, people }) => {
       shopId,
       designId: design.id,
       revision: design.currentRevision,
+      fingerprint: design.fingerprint,
       tokenHash: sha256Hex(newToken()),
       clientName: DEMO_CLIENT.name,
       clientEmail: DEMO_CLIENT.email,
@@ -39,6 +41,6 @@ export const seedDemoProof: SeedStep = async ({ db, shopId, people }) => {
       expiresAt: new Date(Date.now() + DEMO_PROOF_DAYS * 86_400_000),
       createdBy: builderId,
     });
-    await tx.update(designs).set({ status: 'shared' }).where(eq(designs.id, design.id));
+    await refreshApproval(tx, shopId, design.id);
   });
 };

@@ -39,7 +39,7 @@ export const POST: APIRoute = async ({ locals, request }) => {
     instrumentType: file.file.instrumentType,
     clientName: file.file.clientName,
     note: name === design.design.name ? 'Imported from a file' : `Imported from a file; renamed from “${design.design.name}”, a name the shop already had`,
-  });
+  }, 'imported');
   return json(created, 201, { location: `/api/designs/${created.id}` });
 };
 
