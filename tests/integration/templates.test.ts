@@ -1,8 +1,10 @@
 import { and, count, eq } from 'drizzle-orm';
 import DxfParser from 'dxf-parser';
+import { dxfComments } from '../support/dxf-comments.ts';
+import { pageText } from '../support/pdf-readback.ts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { SessionUser } from '~/lib/auth/index.server.ts';
-import { createDesign } from '~/lib/db/designs.server.ts';
+import { createDesign, getDesign } from '~/lib/db/designs.server.ts';
 import { templateChecks, templates, users } from '~/lib/db/schema.ts';
 import { seedDemoShop } from '~/lib/db/seed/demo-shop.server.ts';
 import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server.ts';
@@ -253,6 +255,20 @@ describe('label and index template downloads', () => {
     expect(new TextDecoder().decode((await label.arrayBuffer()).slice(0, 5))).toBe('%PDF-');
     const bad = await labelRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/label?size=huge`));
     expect(await bad.json()).toMatchObject({ field: 'size' });
+  });
+
+  it("a template made from a saved board names the board revision and its fingerprint on the label, the index template and their file names", async () => {
+    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const board = await getDesign(builder.shopId, designId);
+    const t = await createdTemplate(builder, { source: 'design', designId, keyWidth: 0.5, name: 'Classical strip' });
+    const label = await labelRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/label?size=100x50`));
+    expect(label.headers.get('content-disposition')).toBe(`inline; filename="classical-strip-${t.id}-r1-label-100x50.pdf"`);
+    expect(pageText(new Uint8Array(await label.arrayBuffer()), 1)).toContain(`Board rev 1 · ${board!.fingerprint}`);
+    const pdf = await indexTemplateRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/index-template?format=pdf`));
+    expect(pdf.headers.get('content-disposition')).toBe(`inline; filename="classical-strip-${t.id}-r1-index-template.pdf"`);
+    expect(pageText(new Uint8Array(await pdf.arrayBuffer()), 1)).toContain(`Made from revision 1 of the board (fingerprint ${board!.fingerprint}).`);
+    const dxf = await (await indexTemplateRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/index-template?format=dxf`))).text();
+    expect(dxfComments(dxf)).toContain(`Made from revision 1 of the board (fingerprint ${board!.fingerprint}).`);
   });
 
   it('index template DXF from a typed single-scale template', async () => {

@@ -202,7 +202,9 @@ export function BoardsTable({ query, onChange }: Props) {
             <button type="button" className={button} onClick={() => setHistoryId(null)}>Close history</button>
           </div>
           <RevisionHistory boardId={historyBoard.id} version={historyBoard.version} currentRevision={historyBoard.currentRevision}
-            onRestored={() => client.invalidateQueries({ queryKey: ['boards'] })} />
+            workingRevision={historyBoard.workingRevision} unsavedEdits={false}
+            onRestored={() => client.invalidateQueries({ queryKey: ['boards'] })}
+            onRevisionSaved={() => client.invalidateQueries({ queryKey: ['boards'] })} />
         </div>
       )}
       <nav aria-label="Pages" className="flex items-center gap-3 text-sm">

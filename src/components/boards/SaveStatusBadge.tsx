@@ -5,6 +5,7 @@ const TONES: Readonly<Record<AutosaveState['status'], string>> = {
   unsaved: 'border-paper-line bg-paper-shade text-ink',
   saving: 'border-paper-line bg-white text-ink-soft',
   conflict: 'border-caution bg-caution-light text-caution',
+  approval: 'border-caution bg-caution-light text-caution',
   error: 'border-rosewood bg-rosewood-light text-rosewood',
 };
 

@@ -35,12 +35,14 @@ export const fetchBoard = (id: number) => send<BoardDetail>(`/api/designs/${id}`
 export const fetchRevisions = (id: number) => send<{ items: BoardRevision[] }>(`/api/designs/${id}/revisions`).then((r) => r.items);
 export const createBoard = (design: unknown, extra: { clientName?: string; instrumentType?: string } = {}) =>
   post<BoardDetail>('/api/designs', { design, ...extra });
-export const saveBoard = (id: number, version: number, design: unknown, note = '') =>
-  post<BoardDetail>(`/api/designs/${id}`, { version, design, note }, 'PATCH');
+export const saveBoard = (id: number, version: number, design: unknown, options: { confirmApprovalChange?: boolean } = {}) =>
+  post<BoardDetail>(`/api/designs/${id}`, { version, design, ...(options.confirmApprovalChange ? { confirmApprovalChange: true } : {}) }, 'PATCH');
+/** Keeps the board's working copy as a revision, with a note (a checkpoint a person chose). */
+export const saveBoardRevision = (id: number, version: number, note: string) => post<BoardDetail>(`/api/designs/${id}/revisions`, { version, note });
 export const duplicateBoard = (id: number) => send<BoardDetail>(`/api/designs/${id}/duplicate`, { method: 'POST' });
 export const archiveBoard = (id: number, archived: boolean) => post<BoardDetail>(`/api/designs/${id}/archive`, { archived });
-export const restoreBoardRevision = (id: number, revision: number, version: number) =>
-  post<BoardDetail>(`/api/designs/${id}/restore`, { revision, version });
+export const restoreBoardRevision = (id: number, revision: number, version: number, confirmApprovalChange = false) =>
+  post<BoardDetail>(`/api/designs/${id}/restore`, { revision, version, ...(confirmApprovalChange ? { confirmApprovalChange: true } : {}) });
 
 /** Uploads a chosen JSON file as a new board. */
 export function importBoardFile(file: File): Promise<BoardDetail> {

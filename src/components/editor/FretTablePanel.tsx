@@ -24,8 +24,15 @@ import { BUTTON } from './control-styles.ts';
 
 const column = createColumnHelper<FretTableRow>();
 
+interface Props {
+  layout: Layout;
+  design: Design;
+  /** A saved board's download comes from the server, named after its revision (exports make one for unsaved changes). */
+  boardId?: number | null;
+}
+
 /** Memoised: the table is large and only changes with the (deferred) layout. */
-export const FretTablePanel = memo(function FretTablePanel({ layout, design }: { layout: Layout; design: Design }) {
+export const FretTablePanel = memo(function FretTablePanel({ layout, design, boardId = null }: Props) {
   const units = layout.units;
   const [sorting, setSorting] = useState<SortingState>([]);
   const [notice, setNotice] = useState('');
@@ -73,7 +80,11 @@ export const FretTablePanel = memo(function FretTablePanel({ layout, design }: {
     <div className="space-y-2">
       <div className="flex flex-wrap items-center gap-2">
         <button type="button" className={BUTTON} onClick={() => void copy()}>Copy CSV</button>
-        <button type="button" className={BUTTON} onClick={download}>Download CSV</button>
+        {boardId === null ? (
+          <button type="button" className={BUTTON} onClick={download}>Download CSV</button>
+        ) : (
+          <a className={`${BUTTON} no-underline`} href={`/api/designs/${boardId}/export?format=csv`} download>Download CSV</a>
+        )}
         <span className="text-xs text-ink-soft" role="status">{notice}</span>
       </div>
       <p className="text-xs text-ink-soft">

@@ -12,6 +12,8 @@
  */
 import { Suspense, lazy, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { STATUS_LABELS } from '~/components/boards/board-labels.ts';
+import { ApprovalNotice } from '~/components/boards/ApprovalNotice.tsx';
+import { fetchBoard } from '~/components/boards/board-requests.ts';
 import { ConflictNotice } from '~/components/boards/ConflictNotice.tsx';
 import { RevisionHistory } from '~/components/boards/RevisionHistory.tsx';
 import { SaveStatusBadge } from '~/components/boards/SaveStatusBadge.tsx';
@@ -51,10 +53,11 @@ export interface LayoutEditorProps {
 }
 
 /** What the editor shows of an open board beside its design. */
-export type OpenBoard = Pick<BoardSummary, 'id' | 'name' | 'status' | 'version' | 'currentRevision'>;
+export type OpenBoard = Pick<BoardSummary, 'id' | 'name' | 'status' | 'version' | 'currentRevision' | 'workingRevision' | 'fingerprint' | 'approval'>;
 
 function openBoard(board: BoardSummary): OpenBoard {
-  return { id: board.id, name: board.name, status: board.status, version: board.version, currentRevision: board.currentRevision };
+  const { id, name, status, version, currentRevision, workingRevision, fingerprint, approval } = board;
+  return { id, name, status, version, currentRevision, workingRevision, fingerprint, approval };
 }
 
 // Loaded when their tab first opens, so the drawing's own script stays small.
@@ -185,7 +188,12 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
             {board ? (
               <>
                 <span>
-                  Revision <span className="font-mono">{board.currentRevision}</span> · Status:{' '}
+                  {board.workingRevision === null ? (
+                    <>Changes not yet in a revision (newest: <span className="font-mono">{board.currentRevision}</span>)</>
+                  ) : (
+                    <>Revision <span className="font-mono">{board.workingRevision}</span></>
+                  )}{' '}
+                  · <span className="font-mono" title="Fingerprint of this layout, as printed on its exports">{board.fingerprint}</span> · Status:{' '}
                   <strong data-board-status={board.status}>{STATUS_LABELS[board.status]}</strong>
                 </span>
               </>
@@ -217,6 +225,15 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
             saveScreenPxPerMm(globalThis.localStorage, pxPerMm);
             setScreen({ pxPerMm, calibrated: true });
           }}
+        />
+      )}
+
+      {board && (
+        <ApprovalNotice
+          board={board}
+          state={autosave.state}
+          onKeep={autosave.confirmApprovalChange}
+          onUndo={() => void fetchBoard(board.id).then(showBoard)}
         />
       )}
 
@@ -259,9 +276,17 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
             </div>
             <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`}>
               {tab === 'table' || !editing ? (
-                <FretTablePanel layout={settledLayout} design={settledDesign} />
+                <FretTablePanel layout={settledLayout} design={settledDesign} boardId={editing && board && autosave.state.status === 'saved' ? board.id : null} />
               ) : tab === 'history' && board ? (
-                <RevisionHistory boardId={board.id} version={autosave.state.version} currentRevision={board.currentRevision} onRestored={showBoard} />
+                <RevisionHistory
+                  boardId={board.id}
+                  version={autosave.state.version}
+                  currentRevision={board.currentRevision}
+                  workingRevision={board.workingRevision}
+                  unsavedEdits={autosave.state.status !== 'saved'}
+                  onRestored={showBoard}
+                  onRevisionSaved={(saved) => setBoard(openBoard(saved))}
+                />
               ) : tab === 'proofs' && board ? (
                 <Suspense fallback={<p className="text-sm" role="status">Loading the proofs…</p>}>
                   <ProofPanel designId={board.id} />
@@ -274,7 +299,7 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
                     </p>
                   )}
                   <Suspense fallback={<p className="text-sm" role="status">Loading the exports…</p>}>
-                    <ExportPanel design={design} />
+                    <ExportPanel design={design} board={board ? { ...board, ready: autosave.state.status === 'saved' } : null} />
                   </Suspense>
                 </div>
               )}

@@ -19,6 +19,8 @@ export type SaveStatus =
   | { state: 'saved'; at: Date; board?: BoardDetail }
   /** The board was saved elsewhere since `version`: the server's board, to compare and reload. */
   | { state: 'conflict'; current: BoardDetail }
+  /** The client approved the board as it stands: saving this change needs `confirmApprovalChange`. */
+  | { state: 'approval'; approval: { revision: number; fingerprint: string } }
   | { state: 'error'; message: string };
 
 export interface DesignStore {
@@ -30,7 +32,12 @@ export interface DesignStore {
    * Keeps a valid design; never throws, failures come back as an error status. `version` is the
    * board version last seen (boards need it; the scratch copy ignores it).
    */
-  save(design: Design, version?: number): Promise<SaveStatus>;
+  save(design: Design, version?: number, options?: SaveOptions): Promise<SaveStatus>;
+}
+
+export interface SaveOptions {
+  /** The builder has seen that this change moves an approved board off its approved layout. */
+  confirmApprovalChange?: boolean;
 }
 
 export const SCRATCH_STORAGE_KEY = 'kerfline.scratchDesign';
@@ -73,7 +80,7 @@ export function scratchStore(storage: Pick<Storage, 'getItem' | 'setItem'> | und
 /** The Boards API calls a board store makes (the real ones by default; tests pass fakes). */
 export interface BoardRequests {
   fetchBoard: (id: number) => Promise<BoardDetail>;
-  saveBoard: (id: number, version: number, design: unknown) => Promise<BoardDetail>;
+  saveBoard: (id: number, version: number, design: unknown, options?: SaveOptions) => Promise<BoardDetail>;
 }
 
 /** A board saved in the shop's Boards: its current revision, saved over the version last seen. */
@@ -88,11 +95,14 @@ export function boardStore(boardId: number, requests: BoardRequests = { fetchBoa
         return null;
       }
     },
-    async save(design, version) {
+    async save(design, version, options = {}) {
       if (version === undefined) return { state: 'error', message: 'the board version is not known; reload the page' };
       try {
-        return { state: 'saved', at: new Date(), board: await requests.saveBoard(boardId, version, design) };
+        return { state: 'saved', at: new Date(), board: await requests.saveBoard(boardId, version, design, options) };
       } catch (error) {
+        if (error instanceof BoardRequestError && error.status === 409 && error.body.code === 'approval_change') {
+          return { state: 'approval', approval: error.body.approval as { revision: number; fingerprint: string } };
+        }
         if (error instanceof BoardRequestError && error.status === 409) return { state: 'conflict', current: error.body.current as BoardDetail };
         if (error instanceof BoardRequestError) return { state: 'error', message: error.message };
         return { state: 'error', message: 'the server could not be reached; your edit is kept here' };

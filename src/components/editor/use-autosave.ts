@@ -37,6 +37,8 @@ export interface Autosave {
   adopt: (board: BoardDetail, shown: Design) => void;
   /** After a conflict: keep the user's design as a new board; the editor then opens that one. */
   saveAsCopy: () => Promise<BoardDetail>;
+  /** The builder has read the approval warning and keeps the change: it is saved now. */
+  confirmApprovalChange: () => void;
 }
 
 export function useAutosave({ store, boardId, version, design, onSaved, debounceMs = 800 }: AutosaveOptions): Autosave {
@@ -60,12 +62,14 @@ export function useAutosave({ store, boardId, version, design, onSaved, debounce
 
   const save = useCallback(async () => {
     const current = stateRef.current;
-    if (!store || current.status === 'saving' || current.status === 'conflict') return;
+    if (!store || current.status === 'saving' || current.status === 'conflict' || current.status === 'approval') return;
     dispatch({ type: 'start' });
-    const result = await store.save(latest.current, current.version);
+    const result = await store.save(latest.current, current.version, { confirmApprovalChange: current.approvalConfirmed });
     if (result.state === 'saved') {
       dispatch({ type: 'succeeded', version: result.board?.version ?? current.version });
       if (result.board) savedRef.current?.(result.board);
+    } else if (result.state === 'approval') {
+      dispatch({ type: 'approvalNeeded', approval: result.approval });
     } else if (result.state === 'conflict') {
       dispatch({ type: 'conflict', currentVersion: result.current.version, current: result.current });
     } else {
@@ -102,5 +106,7 @@ export function useAutosave({ store, boardId, version, design, onSaved, debounce
     return copy;
   }, []);
 
-  return { state, saveNow: () => void save(), adopt, saveAsCopy };
+  const confirmApprovalChange = useCallback(() => dispatch({ type: 'approvalConfirmed' }), []);
+
+  return { state, saveNow: () => void save(), adopt, saveAsCopy, confirmApprovalChange };
 }

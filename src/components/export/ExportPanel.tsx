@@ -1,6 +1,8 @@
 /**
  * The Export panel: options for the paper template and the slot paths, a preview of the page
- * tiling (the same tile-pages module the PDF uses), and downloads built by POST /api/export.
+ * tiling (the same tile-pages module the PDF uses), and downloads: a saved board's from
+ * GET /api/designs/{id}/export (so every file names its revision and fingerprint; unsaved
+ * changes become a revision first), an unsaved design's from POST /api/export.
  */
 import { useMemo, useState } from 'react';
 import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note.ts';
@@ -24,6 +26,8 @@ import { TilingPreview } from './TilingPreview.tsx';
 
 interface Props {
   design: Design;
+  /** The open saved board, if any; `ready` is false while the editor still has edits to autosave. */
+  board?: { id: number; fingerprint: string; approval: { revision: number; fingerprint: string } | null; ready: boolean } | null;
 }
 
 interface FormState {
@@ -62,7 +66,7 @@ const ORIGIN_LABELS: Record<(typeof ORIGINS)[number], string> = {
 
 type Status = { state: 'idle' } | { state: 'busy'; format: ExportFormat } | { state: 'done'; message: string } | { state: 'error'; message: string };
 
-export default function ExportPanel({ design }: Props) {
+export default function ExportPanel({ design, board = null }: Props) {
   const defaults = DEFAULT_EXPORT_OPTIONS;
   const [form, setForm] = useState<FormState>({
     paper: defaults.paper,
@@ -99,11 +103,13 @@ export default function ExportPanel({ design }: Props) {
     setStatus({ state: 'busy', format });
     const query = new URLSearchParams({ ...form, format, strings: String(form.strings), kerf: String(form.kerf), mirror: String(form.mirror), toSaddle: String(form.toSaddle), distances: String(form.distances) });
     try {
-      const response = await fetch(`/api/export?${query}`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify(design),
-      });
+      const response = board
+        ? await fetch(`/api/designs/${board.id}/export?${query}`, { credentials: 'same-origin' })
+        : await fetch(`/api/export?${query}`, {
+            method: 'POST',
+            headers: { 'content-type': 'application/json' },
+            body: JSON.stringify(design),
+          });
       if (!response.ok) {
         const problem = (await response.json().catch(() => ({}))) as ExportProblem;
         setStatus({ state: 'error', message: exportFailureMessage(response.status, problem, response.headers.get('retry-after')) });
@@ -254,13 +260,20 @@ export default function ExportPanel({ design }: Props) {
       <div className="grid gap-4 md:grid-cols-2">
         <div className="space-y-2">
           <h3 className="text-sm font-medium">Downloads</h3>
+          {board?.approval && board.approval.fingerprint !== board.fingerprint && (
+            <p role="note" className="rounded border border-caution bg-caution-light p-2 text-sm">
+              Not the approved layout: the client approved revision {board.approval.revision} ({board.approval.fingerprint}). Every file
+              says so; send a new proof before cutting from it.
+            </p>
+          )}
+          {board && !board.ready && <p className="text-sm text-ink-soft">Waiting for the autosave, so the files match what you see…</p>}
           <div className="flex flex-wrap gap-2">
             {DOWNLOADS.map(({ format, label }) => (
               <button
                 key={format}
                 type="button"
                 className="rounded bg-spruce px-3 py-1.5 text-sm text-white hover:bg-spruce-dark disabled:opacity-50"
-                disabled={!validation.ok || status.state === 'busy'}
+                disabled={!validation.ok || status.state === 'busy' || (board !== null && !board.ready)}
                 onClick={() => void download(format)}
               >
                 Download {label}

@@ -57,7 +57,7 @@ function ProofRow({ proof, onRevoke }: { proof: ProofSummary; onRevoke: (id: num
   return (
     <tr className="border-t border-paper-line align-top" data-proof-id={proof.id}>
       <td className="px-2 py-1">{proof.clientName}<br /><span className="text-xs text-ink-soft">{proof.clientEmail}</span></td>
-      <td className="px-2 py-1 font-mono">{proof.revision}</td>
+      <td className="px-2 py-1 font-mono">{proof.revision}<br /><span className="text-xs text-ink-soft">{proof.fingerprint}</span></td>
       <td className="whitespace-nowrap px-2 py-1 font-mono">{day(proof.createdAt)}</td>
       <td className="whitespace-nowrap px-2 py-1 font-mono">{day(proof.expiresAt)}</td>
       <td className="px-2 py-1" data-label="state">{PROOF_STATE_LABELS[proof.state]}</td>

@@ -567,3 +567,14 @@ export async function findRevisionDesign(reader: DesignReader, designId: number,
   const validation = validateDesign(storedJson(row.data));
   return validation.ok ? validation.design : null;
 }
+
+/** One revision's fingerprint, scoped to the shop; null when there is no such revision. */
+export async function revisionFingerprint(shopId: number, designId: number, revision: number): Promise<string | null> {
+  const [row] = await db()
+    .select({ fingerprint: designRevisions.fingerprint })
+    .from(designRevisions)
+    .innerJoin(designs, eq(designs.id, designRevisions.designId))
+    .where(and(eq(designs.shopId, shopId), eq(designRevisions.designId, designId), eq(designRevisions.revision, revision)))
+    .limit(1);
+  return row?.fingerprint ?? null;
+}

@@ -7,6 +7,7 @@
 import type { SessionUser } from '~/lib/auth/index.server.ts';
 import { config } from '~/lib/config/env.server.ts';
 import { db } from '~/lib/db/client.server.ts';
+import { revisionFingerprint } from '~/lib/db/designs.server.ts';
 import { templateDesign } from '~/lib/templates/shelf.server.ts';
 import { tooLarge } from '~/lib/export/design-export.server.ts';
 import { indexTemplateCost, labelCost, refuseOverCap } from '~/lib/export/export-cost.ts';
@@ -37,8 +38,10 @@ async function label(user: SessionUser | null, id: string | undefined, url: URL,
   const refusal = refuseOverCap(labelCost(size), 'this label', 'size', 'choose a smaller size');
   if (refusal) return tooLarge(refusal);
   const { template } = found.value;
-  const content = { ...template, url: `${config().appOrigin}/templates/${template.id}` };
-  const run = await runExport({ kind: 'label', content, size, filename: exportFileName(template.name, { kind: 'label', templateId: template.id, size: size.id }) }, signal);
+  const fingerprint = await templateFingerprint(found.value.user.shopId, template);
+  const content = { ...template, fingerprint, url: `${config().appOrigin}/templates/${template.id}` };
+  const filename = exportFileName(template.name, { kind: 'label', templateId: template.id, size: size.id }, template.revision);
+  const run = await runExport({ kind: 'label', content, size, filename }, signal);
   return run.ok ? pdfResponse(run.file.bytes, run.file.filename) : run.response;
 }
 
@@ -54,8 +57,9 @@ async function indexTemplate(user: SessionUser | null, id: string | undefined, u
   const { template } = found.value;
   const design = await stripDesign(found.value.user.shopId, template, url);
   if (!design.ok) return design.response;
-  const strip = indexTemplateStrip(design.value.design, template.keyWidth, { revision: design.value.revision });
-  const fileName = (format: 'pdf' | 'dxf') => exportFileName(template.name, { kind: 'index-template', templateId: template.id, format });
+  const fingerprint = design.value.revision === null ? null : await templateFingerprint(found.value.user.shopId, template);
+  const strip = indexTemplateStrip(design.value.design, template.keyWidth, { revision: design.value.revision, fingerprint });
+  const fileName = (format: 'pdf' | 'dxf') => exportFileName(template.name, { kind: 'index-template', templateId: template.id, format }, design.value.revision);
   const cost = indexTemplateCost(strip, format === 'pdf' ? indexTemplatePage(strip).pageSize : null);
   const refusal = refuseOverCap(cost, 'this index template', 'format', 'use format=dxf, which has no page size');
   if (refusal) return tooLarge(refusal);
@@ -71,6 +75,12 @@ async function indexTemplate(user: SessionUser | null, id: string | undefined, u
   }
   const run = await runExport({ kind: 'index-template', strip, filename: fileName('pdf') }, signal);
   return run.ok ? pdfResponse(run.file.bytes, run.file.filename) : run.response;
+}
+
+/** The fingerprint of the board revision the template was made from; null for typed scale lengths. */
+function templateFingerprint(shopId: number, template: TemplateView): Promise<string | null> {
+  if (template.designId === null || template.revision === null) return Promise.resolve(null);
+  return revisionFingerprint(shopId, template.designId, template.revision);
 }
 
 const FAN_FIELDS = Object.keys(FAN_GEOMETRY_LABELS) as (keyof typeof FAN_GEOMETRY_LABELS)[];

@@ -62,6 +62,9 @@ export interface LabelContent extends TemplateSpec {
   madeOn: string | null;
   /** The template's page, opened by the QR code. */
   url: string;
+  /** The board revision the template was made from, and its fingerprint (null: typed scale lengths). */
+  revision?: number | null;
+  fingerprint?: string | null;
 }
 
 /** Scale length(s) in both units, e.g. "650.00 mm / 25.591 in". */
@@ -79,6 +82,7 @@ export function labelLines(content: LabelContent): string[] {
     `Scale ${scaleInBothUnits(content)}`,
     `${content.frets} frets · slot ${formatLength(content.slotWidth, content.units, true)}`,
     `Made ${content.madeOn ?? 'date not recorded'}`,
+    ...(content.revision != null && content.fingerprint ? [`Board rev ${content.revision} · ${content.fingerprint}`] : []),
   ];
 }
 

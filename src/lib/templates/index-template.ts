@@ -75,6 +75,8 @@ export interface IndexTemplateStrip {
 /** Where the strip's design came from: a saved board revision, or typed scale lengths only. */
 export interface StripSource {
   revision: number | null;
+  /** That revision's fingerprint (designFingerprint), as its other exports print it. */
+  fingerprint?: string | null;
 }
 
 /**
@@ -150,7 +152,7 @@ export function indexTemplateStrip(design: Design, keyWidth: number, source: Str
   };
   const notes = [
     `Index template for ${design.name}: ${design.frets} frets, scale ${scales} (${scaleConventionWords(design.scaleAlong)}).`,
-    source.revision === null ? 'Made from typed scale lengths, not from a saved board revision.' : `Made from revision ${source.revision} of the board.`,
+    source.revision === null ? 'Made from typed scale lengths, not from a saved board revision.' : `Made from revision ${source.revision} of the board${source.fingerprint ? ` (fingerprint ${source.fingerprint})` : ''}.`,
     `Units: ${design.units === 'mm' ? 'millimetres' : 'inches'}. Slot width = jig key width ${formatLength(keyWidth, design.units, true)} (not the saw kerf).`,
     `Registration: the treble edge is the reference edge; the NUT slot's centre line crosses it ${formatLength(registration.fromEndAlongEdge, design.units, true)} from the strip's nut end, measured along that edge.`,
     ...(fanned ? [`The NUT slot meets the treble edge at ${registration.nutAngleToEdgeDeg.toFixed(2)}° (90° would be square to it).`] : []),
