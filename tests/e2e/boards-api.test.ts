@@ -69,7 +69,7 @@ describe('Boards API through the built server', () => {
     let status = 0;
     try {
       await holdNextRevision(blocker, created.id, 2, builder.id);
-      const save = api(builder, `/api/designs/${created.id}`, { method: 'PATCH', body: { version: 1, design: { ...design, perpendicularFret: 2 } } });
+      const save = api(builder, `/api/designs/${created.id}`, { method: 'PATCH', body: { version: 1, design: { ...design, perpendicularFret: 2 }, saveRevision: true } });
       await waitForLockWait();
       stopDatabase();
       status = (await save).status;

@@ -1,6 +1,6 @@
 /**
  * The Layout editor and Boards together, in Chromium on the built server: a builder saves a
- * scratch design to Boards, finds it, edits it (autosave, a new revision), restores the first
+ * scratch design to Boards, finds it, edits it (autosave, then "Save revision"), restores the first
  * revision from the editor's history and archives it; a save that lost a race keeps the edit.
  */
 import type { Browser, BrowserContext, Page } from 'playwright-core';
@@ -82,11 +82,16 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     await dialog.dismiss();
     expect(page.isClosed()).toBe(false);
 
-    // Autosave makes revision 2; the history lists both and compares them field by field.
-    await keptGroup(page).filter({ hasText: 'Revision 2' }).waitFor();
+    // Autosave keeps the edit in the working copy, not as a revision; "Save revision" makes
+    // revision 2, and the history lists both and compares them field by field.
+    await keptGroup(page).filter({ hasText: 'Changes not yet in a revision' }).waitFor();
     await savedBadge(page).waitFor();
     await page.getByRole('tab', { name: 'History' }).click();
     const history = page.getByRole('region', { name: 'Revision history' });
+    await history.getByLabel('Revision note (optional)').fill('Perpendicular at 7');
+    await history.getByRole('button', { name: 'Save revision' }).click();
+    await keptGroup(page).filter({ hasText: 'Revision 2' }).waitFor();
+    await history.getByText('“Perpendicular at 7”').waitFor();
     await history.getByRole('button', { name: 'Restore revision 1' }).waitFor();
     expect(await history.getByRole('listitem').count()).toBe(2);
     // The compare table names fields as the form does, not by their keys.
@@ -94,13 +99,12 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     expect(await history.getByRole('rowheader').allInnerTexts()).toEqual(['Perpendicular fret (0 = nut)']);
     await saveScreenshot(page, 'boards-editor-history');
 
-    // Restoring revision 1 makes it current again as revision 3, and the form shows it.
+    // Restoring revision 1 makes it the working copy again (no new revision), and the form shows it.
     await history.getByRole('button', { name: 'Restore revision 1' }).click();
-    await keptGroup(page).filter({ hasText: 'Revision 3' }).waitFor();
+    await keptGroup(page).filter({ hasText: 'Revision 1' }).waitFor();
     await expect(page.getByLabel(/^Perpendicular fret/).inputValue()).resolves.toBe('8');
-    await history.getByText('“Restored revision 1”').waitFor();
     const restored = await api<BoardDetail>(`/api/designs/${id}`);
-    expect(restored.currentRevision).toBe(3);
+    expect(restored).toMatchObject({ currentRevision: 2, workingRevision: 1 });
     expect(restored.design).toEqual(first.design);
     await savedBadge(page).waitFor();
 
@@ -109,7 +113,7 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     await row.getByRole('button', { name: `Archive ${name}` }).click();
     await page.getByText('No boards match these filters.').waitFor();
     expect((await api<BoardDetail>(`/api/designs/${id}`)).status).toBe('archived');
-    expect((await api<{ items: unknown[] }>(`/api/designs/${id}/revisions`)).items.length).toBe(3);
+    expect((await api<{ items: unknown[] }>(`/api/designs/${id}/revisions`)).items.length).toBe(2);
     await context.close();
   });
 

@@ -43,7 +43,7 @@ describe('Boards page in Chromium (built server)', () => {
     await page.waitForFunction((img) => (img as HTMLImageElement).complete && (img as HTMLImageElement).naturalWidth > 0, await drawing.elementHandle());
 
     // A second revision saved elsewhere (as the editor will), then the page is reloaded from its URL.
-    await api(`/api/designs/${board.id}`, 'PATCH', { version: board.version, design: { ...design, perpendicularFret: 7 }, note: 'Perpendicular at 7' });
+    await api(`/api/designs/${board.id}`, 'PATCH', { version: board.version, design: { ...design, perpendicularFret: 7 }, note: 'Perpendicular at 7', saveRevision: true });
     await page.reload();
     await row.waitFor();
     await row.getByRole('button', { name: `History of ${design.name}` }).click();
@@ -51,9 +51,10 @@ describe('Boards page in Chromium (built server)', () => {
     await history.getByText('“Perpendicular at 7”').waitFor();
     await history.getByRole('rowheader', { name: 'Perpendicular fret (0 = nut)' }).waitFor();
     await history.getByRole('button', { name: 'Restore revision 1' }).click();
-    await history.getByText('Restored revision 1').waitFor();
+    // Restore makes revision 1 the working copy again; no new revision is made.
+    await history.getByRole('listitem').filter({ hasText: '#1' }).getByText('working copy').waitFor();
     const restored = await api<BoardDetail>(`/api/designs/${board.id}`);
-    expect(restored).toMatchObject({ currentRevision: 3, design });
+    expect(restored).toMatchObject({ currentRevision: 2, workingRevision: 1, design });
     await saveScreenshot(page, 'boards-history');
 
     await page.getByRole('button', { name: 'Close history' }).click();

@@ -21,9 +21,9 @@ export function markedDesign(marker: string): Record<string, unknown> {
   return { ...fixtureDesign('seven-string-fan'), name: marker };
 }
 
-/** The PATCH body of a save over `version`. */
+/** The PATCH body of a save over `version`, kept as a revision (so the ledger can check each one). */
 export function saveBody(version: number, marker: string): string {
-  return JSON.stringify({ version, design: markedDesign(marker) });
+  return JSON.stringify({ version, design: markedDesign(marker), saveRevision: true });
 }
 
 interface SavedBoard {

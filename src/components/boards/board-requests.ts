@@ -37,6 +37,9 @@ export const createBoard = (design: unknown, extra: { clientName?: string; instr
   post<BoardDetail>('/api/designs', { design, ...extra });
 export const saveBoard = (id: number, version: number, design: unknown, options: { confirmApprovalChange?: boolean } = {}) =>
   post<BoardDetail>(`/api/designs/${id}`, { version, design, ...(options.confirmApprovalChange ? { confirmApprovalChange: true } : {}) }, 'PATCH');
+/** Saves who the board is for and what instrument it is (no revision: not part of the layout). */
+export const saveBoardDetails = (id: number, version: number, details: { clientName: string; instrumentType: string }) =>
+  post<BoardDetail>(`/api/designs/${id}`, { version, ...details }, 'PATCH');
 /** Keeps the board's working copy as a revision, with a note (a checkpoint a person chose). */
 export const saveBoardRevision = (id: number, version: number, note: string) => post<BoardDetail>(`/api/designs/${id}/revisions`, { version, note });
 export const duplicateBoard = (id: number) => send<BoardDetail>(`/api/designs/${id}/duplicate`, { method: 'POST' });

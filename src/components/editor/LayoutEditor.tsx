@@ -13,6 +13,7 @@
 import { Suspense, lazy, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { STATUS_LABELS } from '~/components/boards/board-labels.ts';
 import { ApprovalNotice } from '~/components/boards/ApprovalNotice.tsx';
+import { BoardDetailsForm } from '~/components/boards/BoardDetailsForm.tsx';
 import { fetchBoard } from '~/components/boards/board-requests.ts';
 import { ConflictNotice } from '~/components/boards/ConflictNotice.tsx';
 import { RevisionHistory } from '~/components/boards/RevisionHistory.tsx';
@@ -24,6 +25,7 @@ import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail, BoardSummary } from '~/lib/schemas/board.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 import { BoardDrawing } from './BoardDrawing.tsx';
+import { openBoard, type OpenBoard } from './open-board.ts';
 import { describeBoard } from './board-summary.ts';
 import { CalibrationPanel } from './CalibrationPanel.tsx';
 import { BUTTON } from './control-styles.ts';
@@ -50,14 +52,6 @@ export interface LayoutEditorProps {
   canSaveToBoards?: boolean;
   /** Inside a page with its own title (e.g. a Proof): the toolbar leaves the design name out. */
   embedded?: boolean;
-}
-
-/** What the editor shows of an open board beside its design. */
-export type OpenBoard = Pick<BoardSummary, 'id' | 'name' | 'status' | 'version' | 'currentRevision' | 'workingRevision' | 'fingerprint' | 'approval'>;
-
-function openBoard(board: BoardSummary): OpenBoard {
-  const { id, name, status, version, currentRevision, workingRevision, fingerprint, approval } = board;
-  return { id, name, status, version, currentRevision, workingRevision, fingerprint, approval };
 }
 
 // Loaded when their tab first opens, so the drawing's own script stays small.
@@ -224,6 +218,17 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
           onSave={(pxPerMm) => {
             saveScreenPxPerMm(globalThis.localStorage, pxPerMm);
             setScreen({ pxPerMm, calibrated: true });
+          }}
+        />
+      )}
+
+      {board && (
+        <BoardDetailsForm
+          board={board}
+          version={autosave.state.status === 'saved' ? autosave.state.version : null}
+          onSaved={(saved) => {
+            autosave.adopt(saved, design);
+            setBoard(openBoard(saved));
           }}
         />
       )}
