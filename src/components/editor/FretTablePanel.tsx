@@ -25,7 +25,7 @@ import { BUTTON } from './control-styles.ts';
 const column = createColumnHelper<FretTableRow>();
 
 /** Memoised: the table is large and only changes with the (deferred) layout. */
-export const FretTablePanel = memo(function FretTablePanel({ layout, design }: { layout: Layout; design: Design }) {
+export const FretTablePanel = memo(function FretTablePanel({ layout, design, downloads = true }: { layout: Layout; design: Design; downloads?: boolean }) {
   const units = layout.units;
   const [sorting, setSorting] = useState<SortingState>([]);
   const [notice, setNotice] = useState('');
@@ -71,15 +71,17 @@ export const FretTablePanel = memo(function FretTablePanel({ layout, design }: {
 
   return (
     <div className="space-y-2">
-      <div className="flex flex-wrap items-center gap-2">
-        <button type="button" className={BUTTON} onClick={() => void copy()}>Copy CSV</button>
-        <button type="button" className={BUTTON} onClick={download}>Download CSV</button>
-        <span className="text-xs text-ink-soft" role="status">{notice}</span>
-      </div>
+      {downloads && (
+        <div className="flex flex-wrap items-center gap-2">
+          <button type="button" className={BUTTON} onClick={() => void copy()}>Copy CSV</button>
+          <button type="button" className={BUTTON} onClick={download}>Download CSV</button>
+          <span className="text-xs text-ink-soft" role="status">{notice}</span>
+        </div>
+      )}
       <p className="text-xs text-ink-soft">
         Distances along each string from its nut end (uncompensated); x and y in board coordinates from where
         the nut line crosses the centre line. The design gives its {scaleConventionWords(layout.scaleAlong)}.
-        Shown rounded; the CSV carries the unrounded numbers.
+        {downloads && ' Shown rounded; the CSV carries the unrounded numbers.'}
       </p>
       <div className="max-h-80 overflow-auto rounded border border-paper-line bg-white">
         <table className="w-full font-mono text-xs" aria-label="Fret table">

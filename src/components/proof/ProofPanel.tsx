@@ -68,7 +68,7 @@ function ProofRow({ proof, onRevoke }: { proof: ProofSummary; onRevoke: (id: num
             {proof.decision.comment && <p className="whitespace-pre-line text-sm text-ink-soft">{proof.decision.comment}</p>}
           </>
         ) : (
-          <span className="text-ink-faint">none yet</span>
+          <span className="text-ink-soft">none yet</span>
         )}
         {proof.revokedAt && <p className="text-sm text-ink-soft">Link revoked on {day(proof.revokedAt)}</p>}
       </td>

@@ -1,0 +1,268 @@
+/**
+ * Accessible by test: the axe sweep (axe-core through @axe-core/playwright) on every page as each
+ * visitor sees it (signed out, owner, builder, client, the proof page, the editor with each of its
+ * panels open), zero serious or critical violations; the footer's contrast (WCAG 2.2 SC 1.4.3,
+ * 4.5:1 for normal text); names that contain their visible labels (SC 2.5.3); tabs that follow
+ * the WAI-ARIA Authoring Practices tabs pattern; and the drawing's keyboard fret readout.
+ * The counts by impact are written to test-results/axe-summary.json.
+ */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
+import { axeSummary, type AxeSummary } from '../support/axe.ts';
+import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
+import { ensureDesign } from '../support/designs.ts';
+import { readScene, waitForDrawing } from '../support/konva-scene.ts';
+import { signInAs, type TestUser } from '../support/sessions.ts';
+import { shopRows, type ShopRows } from '../support/shop-rows.ts';
+import { closeDb } from '../support/test-db.ts';
+
+let browser: Browser;
+let owner: TestUser;
+let builder: TestUser;
+let client: TestUser;
+let rows: ShopRows;
+const summaries: Record<string, AxeSummary['byImpact']> = {};
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  owner = await signInAs('owner@wrenfield.example');
+  builder = await signInAs('builder@wrenfield.example');
+  client = await signInAs('client@wrenfield.example');
+  const designId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+  rows = await shopRows(builder.shopId, builder.id, client.email, 'Axe sweep board', designId);
+});
+afterAll(async () => {
+  mkdirSync(ARTIFACTS_DIR, { recursive: true });
+  writeFileSync(join(ARTIFACTS_DIR, 'axe-summary.json'), `${JSON.stringify(summaries, null, 2)}\n`);
+  await browser?.close();
+  await closeDb();
+});
+
+async function contextAs(user: TestUser | null, viewport = { width: 1280, height: 900 }): Promise<BrowserContext> {
+  const context = await browser.newContext({ viewport });
+  if (user) await context.addCookies([{ name: SESSION_COOKIE, value: user.token, url: BASE_URL }]);
+  return context;
+}
+
+/** Opens `path`, waits for its islands, and expects no serious or critical axe violation. */
+async function sweep(page: Page, label: string, path: string | null, ready?: (page: Page) => Promise<unknown>): Promise<void> {
+  if (path !== null) await page.goto(`${BASE_URL}${path}`, { waitUntil: 'networkidle' });
+  if (ready) await ready(page);
+  const summary = await axeSummary(page);
+  summaries[label] = summary.byImpact;
+  expect(summary.blocking, `${label} (${path ?? page.url()})`).toEqual([]);
+}
+
+describe('the axe sweep: zero serious or critical violations on every page', () => {
+  it('signed out: home, sign in, forgot password, create shop, layout, safety, measuring, an unknown link, 404', async () => {
+    const page = await (await contextAs(null)).newPage();
+    await sweep(page, 'signed out: home', '/');
+    await sweep(page, 'signed out: sign in', '/sign-in');
+    await sweep(page, 'signed out: forgot password', '/forgot-password');
+    await sweep(page, 'signed out: create shop', '/create-shop');
+    await sweep(page, 'signed out: layout (editor)', '/layout?preset=seven-string-fan', waitForDrawing);
+    await sweep(page, 'signed out: layout view mode', '/layout?preset=seven-string-fan&mode=view', waitForDrawing);
+    await sweep(page, 'signed out: safety', '/safety');
+    await sweep(page, 'signed out: measuring', '/measuring');
+    await sweep(page, 'signed out: invitation link no longer valid', '/invitations/AAAAAAAAAAAAAAAAAAAAAA');
+    await sweep(page, 'signed out: 404', '/no-such-page');
+    await page.context().close();
+  });
+
+  it('the proof page a client opens from the link (no account)', async () => {
+    const page = await (await contextAs(null)).newPage();
+    await sweep(page, 'proof page (link)', `/p/${rows.proofToken}`, waitForDrawing);
+    await page.setViewportSize({ width: 390, height: 844 });
+    await sweep(page, 'proof page (link) at 390×844', null);
+    await page.context().close();
+  });
+
+  it('owner: boards, templates, members, account, the editor', async () => {
+    const page = await (await contextAs(owner)).newPage();
+    await sweep(page, 'owner: boards', '/boards', (p) => p.getByRole('table').first().waitFor());
+    await sweep(page, 'owner: template shelf', '/templates');
+    await sweep(page, 'owner: a template', `/templates/${rows.templateId}`);
+    await sweep(page, 'owner: members', '/members');
+    await sweep(page, 'owner: account', '/account');
+    await sweep(page, 'owner: editor', `/layout?design=${rows.designId}`, waitForDrawing);
+    await page.context().close();
+  });
+
+  it('builder: boards, templates, account, proofs of a board, template check, and the editor with each panel open', async () => {
+    const page = await (await contextAs(builder)).newPage();
+    await sweep(page, 'builder: boards', '/boards', (p) => p.getByRole('table').first().waitFor());
+    await sweep(page, 'builder: template shelf', '/templates');
+    await sweep(page, 'builder: account', '/account');
+    await sweep(page, 'builder: proofs of a board', `/boards/${rows.designId}/proofs`);
+    await sweep(page, 'builder: template check', `/boards/${rows.designId}/check`);
+    await sweep(page, 'builder: editor (design)', `/layout?design=${rows.designId}`, waitForDrawing);
+    for (const [tab, ready] of [
+      ['Fret table', 'table'],
+      ['Exports', 'button'],
+      ['History', 'listitem'],
+      ['Proofs', 'button'],
+    ] as const) {
+      await page.getByRole('tab', { name: tab }).click();
+      await sweep(page, `builder: editor (${tab})`, null, (p) => p.getByRole('tabpanel', { name: tab }).getByRole(ready).first().waitFor());
+    }
+    await page.context().close();
+  });
+
+  it('client: shared with me, a shared proof, account', async () => {
+    const page = await (await contextAs(client)).newPage();
+    await sweep(page, 'client: shared with me', '/shared');
+    await sweep(page, 'client: a shared proof', `/shared/${rows.proofId}`, waitForDrawing);
+    await sweep(page, 'client: account', '/account');
+    await page.context().close();
+  });
+});
+
+/** WCAG 2.2 contrast ratio (its definitions of relative luminance and contrast ratio) of two CSS rgb() colours. */
+function contrastRatio(foreground: string, background: string): number {
+  const luminance = (css: string) => {
+    const [r, g, b] = (css.match(/[\d.]+/g) ?? []).slice(0, 3).map((v) => {
+      const c = Number(v) / 255;
+      return c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;
+    });
+    return 0.2126 * (r ?? 0) + 0.7152 * (g ?? 0) + 0.0722 * (b ?? 0);
+  };
+  const [light, dark] = [luminance(foreground), luminance(background)].sort((a, b) => b - a);
+  return (light! + 0.05) / (dark! + 0.05);
+}
+
+describe('contrast and names', () => {
+  it('the footer text reaches 4.5:1 against the page (WCAG 2.2 SC 1.4.3, normal text)', async () => {
+    const page = await (await contextAs(null)).newPage();
+    await page.goto(`${BASE_URL}/`);
+    const colours = await page.getByRole('contentinfo').evaluate((footer) => ({
+      text: getComputedStyle(footer).color,
+      // The footer has no background of its own; the body's shows through.
+      page: getComputedStyle(footer).backgroundColor === 'rgba(0, 0, 0, 0)' ? getComputedStyle(document.body).backgroundColor : getComputedStyle(footer).backgroundColor,
+    }));
+    expect(contrastRatio(colours.text, colours.page)).toBeGreaterThanOrEqual(4.5);
+    await page.context().close();
+  });
+
+  it('every board\'s "Export JSON" link has a name that contains its visible label (WCAG 2.2 SC 2.5.3)', async () => {
+    const page = await (await contextAs(builder)).newPage();
+    await page.goto(`${BASE_URL}/boards`, { waitUntil: 'networkidle' });
+    const links = page.getByRole('link', { name: /JSON/ });
+    const count = await links.count();
+    expect(count).toBeGreaterThan(0);
+    for (let i = 0; i < count; i++) {
+      const link = links.nth(i);
+      const visible = (await link.innerText()).trim();
+      expect(visible).toBe('Export JSON');
+      expect(await link.getAttribute('aria-label')).toMatch(/^Export JSON of /);
+    }
+    // Found by its visible words, as a speech user would say them.
+    expect(await page.getByRole('link', { name: 'Export JSON' }).count()).toBe(count);
+    await page.context().close();
+  });
+});
+
+describe('keyboard', () => {
+  it('the editor\'s panel tabs follow the WAI-ARIA tabs pattern: roving tabindex, Left/Right/Home/End, aria-selected, aria-controls', async () => {
+    const page = await (await contextAs(builder)).newPage();
+    await page.goto(`${BASE_URL}/layout?design=${rows.designId}`, { waitUntil: 'networkidle' });
+    await waitForDrawing(page);
+    const list = page.getByRole('tablist', { name: 'Panels' });
+    const tabs = list.getByRole('tab');
+    const names = await tabs.allInnerTexts();
+    expect(names).toEqual(['Design', 'Fret table', 'Exports', 'History', 'Proofs']);
+
+    /** The selected tab's name, checking the pattern's attributes on every tab as it goes. */
+    const selected = async () => {
+      const state = await tabs.evaluateAll((elements) =>
+        elements.map((tab) => ({
+          name: tab.textContent,
+          selected: tab.getAttribute('aria-selected'),
+          tabIndex: tab.getAttribute('tabindex'),
+          controls: tab.getAttribute('aria-controls'),
+          panelThere: document.getElementById(tab.getAttribute('aria-controls') ?? '') !== null,
+          panelShown: !(document.getElementById(tab.getAttribute('aria-controls') ?? '')?.hidden ?? true),
+          focused: document.activeElement === tab,
+        })),
+      );
+      const on = state.filter((tab) => tab.selected === 'true');
+      expect(on).toHaveLength(1);
+      for (const tab of state) {
+        expect(tab.panelThere, `${tab.name}: aria-controls names a panel`).toBe(true);
+        expect(tab.tabIndex, `${tab.name}: roving tabindex`).toBe(tab.selected === 'true' ? '0' : '-1');
+        expect(tab.panelShown, `${tab.name}: only the selected tab's panel shows`).toBe(tab.selected === 'true');
+      }
+      expect(on[0]!.focused, 'focus follows the selection').toBe(true);
+      return on[0]!.name;
+    };
+
+    await list.getByRole('tab', { name: 'Design' }).focus();
+    await page.keyboard.press('ArrowRight');
+    expect(await selected()).toBe('Fret table');
+    await page.getByRole('tabpanel', { name: 'Fret table' }).getByRole('table', { name: 'Fret table' }).waitFor();
+    await page.keyboard.press('End');
+    expect(await selected()).toBe('Proofs');
+    await page.keyboard.press('ArrowRight');
+    expect(await selected()).toBe('Design');
+    await page.keyboard.press('ArrowLeft');
+    expect(await selected()).toBe('Proofs');
+    await page.keyboard.press('Home');
+    expect(await selected()).toBe('Design');
+    await page.keyboard.press('ArrowRight');
+    await page.keyboard.press('ArrowRight');
+    expect(await selected()).toBe('Exports');
+    // Tab leaves the tab list for the panel: one stop for the whole list.
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('role'))).toBe('tabpanel');
+    await page.context().close();
+  });
+
+  it('the drawing takes focus; arrow keys move between frets and strings and the readout is announced in the design\'s units', async () => {
+    const page = await (await contextAs(null)).newPage();
+    await page.goto(`${BASE_URL}/layout?preset=seven-string-fan&mode=view`, { waitUntil: 'networkidle' });
+    await waitForDrawing(page);
+    const drawing = page.getByRole('application', { name: /Drawing of the board/ });
+    // Reached with the Tab key, as a keyboard user would.
+    for (let i = 0; i < 30 && !(await drawing.evaluate((el) => el === document.activeElement)); i++) await page.keyboard.press('Tab');
+    expect(await drawing.evaluate((el) => el === document.activeElement)).toBe(true);
+
+    const readout = page.getByRole('status', { name: 'Keyboard readout' });
+    expect(await readout.getAttribute('aria-live')).toBe('polite');
+    await page.keyboard.press('ArrowRight');
+    // 12-tone equal temperament: fret 1 sits at 1 - 2^(-1/12) of the 648 mm treble string.
+    const fret1 = (648 * (1 - 2 ** (-1 / 12))).toFixed(2);
+    expect(await readout.innerText()).toBe(`Fret 1, string 1: ${fret1} mm from the nut, ${fret1} mm from the nut`);
+    for (let i = 0; i < 11; i++) await page.keyboard.press('ArrowRight');
+    // Fret 12 halves each string (an octave is a 2:1 ratio): 324 mm on the 648 mm string.
+    expect(await readout.innerText()).toMatch(/^Fret 12, string 1: 324\.00 mm from the nut, \d+\.\d\d mm from fret 11$/);
+    for (let i = 0; i < 6; i++) await page.keyboard.press('ArrowUp');
+    expect(await readout.innerText()).toMatch(/^Fret 12, string 7: 343\.00 mm from the nut, /);
+    await page.keyboard.press('ArrowUp');
+    expect(await readout.innerText(), 'stops at the bass string').toMatch(/^Fret 12, string 7: /);
+    await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('ArrowLeft');
+    // String 6's own scale length, as the drawing's string line carries it; 12-TET fret 11 at 1 - 2^(-11/12) of it.
+    const scale6 = await page.evaluate(() => {
+      type Node = { getAttr(name: string): unknown };
+      const stage = (window as unknown as { Konva: { stages: { find(s: string): Node[] }[] } }).Konva.stages[0];
+      return Number(stage?.find('.string-line').find((n) => n.getAttr('string') === 6)?.getAttr('scaleLength'));
+    });
+    expect(scale6).toBeGreaterThan(648);
+    expect(scale6).toBeLessThan(686);
+    const fret11 = (scale6 * (1 - 2 ** (-11 / 12))).toFixed(2);
+    expect(await readout.innerText()).toMatch(new RegExp(`^Fret 11, string 6: ${fret11.replace('.', '\\.')} mm from the nut, `));
+    // The readout table and the drawing's highlight follow the keyboard too.
+    await page.getByRole('region', { name: 'Fret 11 readout' }).waitFor();
+    const marker = await page.evaluate(() => {
+      type Node = { getAttr(name: string): unknown };
+      const stage = (window as unknown as { Konva: { stages: { find(s: string): Node[] }[] } }).Konva.stages[0];
+      const node = stage?.find('.fret-cursor')[0];
+      return node ? { fret: node.getAttr('fret'), string: node.getAttr('string') } : null;
+    });
+    expect(marker).toEqual({ fret: 11, string: 6 });
+    expect((await readScene(page)).frets.length).toBe(24);
+    await page.context().close();
+  });
+});
