@@ -137,11 +137,20 @@ describe('contrast and names', () => {
   it('the footer text reaches 4.5:1 against the page (WCAG 2.2 SC 1.4.3, normal text)', async () => {
     const page = await (await contextAs(null)).newPage();
     await page.goto(`${BASE_URL}/`);
-    const colours = await page.getByRole('contentinfo').evaluate((footer) => ({
-      text: getComputedStyle(footer).color,
-      // The footer has no background of its own; the body's shows through.
-      page: getComputedStyle(footer).backgroundColor === 'rgba(0, 0, 0, 0)' ? getComputedStyle(document.body).backgroundColor : getComputedStyle(footer).backgroundColor,
-    }));
+    const colours = await page.getByRole('contentinfo').evaluate((footer) => {
+      // The nearest background that is painted shows through the footer (the page's, by default white).
+      let background = 'rgb(255, 255, 255)';
+      for (let element: Element | null = footer; element; element = element.parentElement) {
+        const colour = getComputedStyle(element).backgroundColor;
+        if (colour !== 'rgba(0, 0, 0, 0)' && colour !== 'transparent') {
+          background = colour;
+          break;
+        }
+      }
+      return { text: getComputedStyle(footer).color, page: background };
+    });
+    // Worked check of the formula: black on white is 21:1 (WCAG 2.2, contrast ratio definition).
+    expect(contrastRatio('rgb(0, 0, 0)', 'rgb(255, 255, 255)')).toBeCloseTo(21, 6);
     expect(contrastRatio(colours.text, colours.page)).toBeGreaterThanOrEqual(4.5);
     await page.context().close();
   });

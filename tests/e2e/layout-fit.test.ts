@@ -10,6 +10,7 @@ import { BASE_URL, launchBrowser } from '../support/browser.ts';
 import { ensureDesign } from '../support/designs.ts';
 import { waitForDrawing } from '../support/konva-scene.ts';
 import { signInAs, type TestUser } from '../support/sessions.ts';
+import { shopRows } from '../support/shop-rows.ts';
 import { closeDb } from '../support/test-db.ts';
 
 let browser: Browser;
@@ -20,6 +21,8 @@ beforeAll(async () => {
   browser = await launchBrowser();
   builder = await signInAs('builder@wrenfield.example');
   designId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+  // A proof with a long address, so the Proofs panel has a row to fit.
+  await shopRows(builder.shopId, builder.id, 'a-client-with-a-rather-long-address@wrenfield.example', 'Laptop fit', designId);
 });
 afterAll(async () => {
   await browser?.close();
@@ -50,7 +53,12 @@ function sidewaysOverflow(page: Page) {
       if (!clipped && box.right > width + 0.5) out.push(`${element.tagName.toLowerCase()}${element.id ? `#${element.id}` : ''} ends at ${box.right} px`);
     }
     for (const column of document.querySelectorAll('main section[aria-label="Design and board panels"], main [role="tabpanel"]:not([hidden])')) {
-      if (column.scrollWidth > column.clientWidth + 1) out.push(`${column.getAttribute('aria-label') ?? column.id} is clipped: ${column.scrollWidth} > ${column.clientWidth}`);
+      if (column.scrollWidth <= column.clientWidth + 1) continue;
+      // Name the outermost element that sticks out, to say what to fix.
+      const edge = column.getBoundingClientRect().right;
+      const culprit = [...column.querySelectorAll('*')].find((el) => el.getBoundingClientRect().right > edge + 1);
+      const what = culprit ? `${culprit.tagName.toLowerCase()}.${[...culprit.classList].join('.')} ${culprit.getBoundingClientRect().width} px` : 'unknown';
+      out.push(`${column.getAttribute('aria-label') ?? column.id} is clipped: ${column.scrollWidth} > ${column.clientWidth} (by ${what})`);
     }
     return out;
   });
@@ -71,8 +79,9 @@ describe('the Layout editor fits a laptop', () => {
       await panels.getByRole('tab', { name }).click();
       const panel = page.getByRole('tabpanel', { name });
       await panel.waitFor();
-      // Each panel shows something of its own (its first heading, field or control).
+      // Each panel shows something of its own (its first heading, field or control); Proofs its list.
       await panel.locator('h2, h3, label, button, table').first().waitFor();
+      if (name === 'Proofs') await panel.getByRole('table', { name: 'Proofs of this design' }).waitFor();
       const panelBox = (await panel.boundingBox())!;
       const drawingBox = (await drawing.boundingBox())!;
       // The drawing stays wholly in view, and the panel starts in view beside it (to its left).

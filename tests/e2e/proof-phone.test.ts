@@ -39,8 +39,11 @@ async function expectClientsPage(page: Page): Promise<void> {
   // The key numbers in words.
   const specs = page.getByRole('region', { name: 'Key specifications' });
   expect(await specs.innerText()).toContain('648.00 mm on the treble side to 686.00 mm on the bass side');
-  // The drawing is the editor's picture: every fret of the 24.
-  expect((await readScene(page)).frets.map((f) => f.fret)).toEqual(Array.from({ length: 24 }, (_, i) => i + 1));
+  // The drawing is the editor's picture: every fret the key numbers name.
+  const frets = Number((await specs.getByRole('definition').nth(3).innerText()).trim());
+  expect(await specs.getByRole('term').nth(3).innerText()).toBe('Frets');
+  expect(frets).toBeGreaterThan(0);
+  expect((await readScene(page)).frets.map((f) => f.fret)).toEqual(Array.from({ length: frets }, (_, i) => i + 1));
   const stage = await page.getByRole('application', { name: /Drawing of the board/ }).boundingBox();
   expect(stage!.x + stage!.width).toBeLessThanOrEqual(PHONE.width);
   // Nothing from the builder's tools.

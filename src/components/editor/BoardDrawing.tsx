@@ -48,6 +48,13 @@ export interface BoardDrawingProps {
 }
 
 const STAGE_HEIGHT_PX = 400;
+/** On a narrow screen (a phone) a long, thin board needs less height: at least this much. */
+const MIN_STAGE_HEIGHT_PX = 220;
+
+/** The stage's height for its width: the full height from about 670 px wide, less below. */
+function stageHeight(width: number): number {
+  return Math.min(STAGE_HEIGHT_PX, Math.max(MIN_STAGE_HEIGHT_PX, Math.round(width * 0.6)));
+}
 const FIT_MARGIN_PX = 56;
 const ZOOM_STEP = 1.25;
 const WHEEL_ZOOM_PER_PX = 0.0015;
@@ -76,7 +83,7 @@ export function BoardDrawing(props: BoardDrawingProps) {
     const element = containerRef.current;
     if (!element) return;
     const observer = new ResizeObserver(([entry]) => {
-      if (entry) setSize({ width: Math.floor(entry.contentRect.width), height: STAGE_HEIGHT_PX });
+      if (entry) setSize({ width: Math.floor(entry.contentRect.width), height: stageHeight(Math.floor(entry.contentRect.width)) });
     });
     observer.observe(element);
     return () => observer.disconnect();

@@ -83,7 +83,7 @@ export const FretTablePanel = memo(function FretTablePanel({ layout, design, dow
         the nut line crosses the centre line. The design gives its {scaleConventionWords(layout.scaleAlong)}.
         {downloads && ' Shown rounded; the CSV carries the unrounded numbers.'}
       </p>
-      <div className="max-h-80 overflow-auto rounded border border-paper-line bg-white">
+      <div className="relative max-h-80 overflow-auto rounded border border-paper-line bg-white">
         <table className="w-full font-mono text-xs" aria-label="Fret table">
           <thead className="sticky top-0 bg-paper-shade">
             {table.getHeaderGroups().map((group) => (

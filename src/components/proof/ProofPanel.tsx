@@ -182,7 +182,7 @@ export default function ProofPanel({ designId }: Props) {
       ) : proofs.length === 0 ? (
         <p className="text-ink-soft">No proofs sent for this design yet.</p>
       ) : (
-        <div className="overflow-x-auto rounded border border-paper-line bg-white">
+        <div className="relative overflow-x-auto rounded border border-paper-line bg-white">
           <table className="w-full text-left text-sm" aria-label="Proofs of this design">
             <thead className="bg-paper-shade">
               <tr>

@@ -74,7 +74,7 @@ export function TabList<T extends string>({ label, idPrefix, tabs, selected, onS
             aria-controls={tabPanelElementId(idPrefix, tab.id)}
             tabIndex={isSelected ? 0 : -1}
             onClick={() => onSelect(tab.id)}
-            className={`-mb-px rounded-t border px-3 py-1 text-sm ${isSelected ? 'border-paper-line border-b-white bg-white font-semibold text-ink' : 'border-transparent text-ink-soft'}`}
+            className={`-mb-px rounded-t border px-2 py-1 text-sm ${isSelected ? 'border-paper-line border-b-white bg-white font-semibold text-ink' : 'border-transparent text-ink-soft'}`}
           >
             {tab.label}
           </button>
