@@ -56,68 +56,85 @@ async function sweep(page: Page, label: string, path: string | null, ready?: (pa
   expect(summary.blocking, `${label} (${path ?? page.url()})`).toEqual([]);
 }
 
+type Who = 'signed out' | 'owner' | 'builder' | 'client';
+interface SweptPage {
+  label: string;
+  path: () => string;
+  ready?: (page: Page) => Promise<unknown>;
+  /** Opened at this size (default 1280×900). */
+  viewport?: { width: number; height: number };
+  /** A panel of the editor to open (by its tab) before the sweep, and what it shows once loaded. */
+  tab?: { name: string; shows: 'table' | 'button' | 'listitem' };
+}
+
+const boardsReady = (page: Page) => page.getByRole('table').first().waitFor();
+const EDITOR_TABS = [
+  { name: 'Fret table', shows: 'table' },
+  { name: 'Exports', shows: 'button' },
+  { name: 'History', shows: 'listitem' },
+  { name: 'Proofs', shows: 'button' },
+] as const;
+
+const PAGES: Record<Who, SweptPage[]> = {
+  'signed out': [
+    { label: 'home', path: () => '/' },
+    { label: 'sign in', path: () => '/sign-in' },
+    { label: 'forgot password', path: () => '/forgot-password' },
+    { label: 'create shop', path: () => '/create-shop' },
+    { label: 'layout (editor)', path: () => '/layout?preset=seven-string-fan', ready: waitForDrawing },
+    { label: 'layout view mode', path: () => '/layout?preset=seven-string-fan&mode=view', ready: waitForDrawing },
+    { label: 'safety', path: () => '/safety' },
+    { label: 'measuring', path: () => '/measuring' },
+    { label: 'invitation link no longer valid', path: () => '/invitations/AAAAAAAAAAAAAAAAAAAAAA' },
+    { label: '404', path: () => '/no-such-page' },
+    { label: 'proof page (link)', path: () => `/p/${rows.proofToken}`, ready: waitForDrawing },
+    { label: 'proof page (link) at 390×844', path: () => `/p/${rows.proofToken}`, ready: waitForDrawing, viewport: { width: 390, height: 844 } },
+  ],
+  owner: [
+    { label: 'boards', path: () => '/boards', ready: boardsReady },
+    { label: 'template shelf', path: () => '/templates' },
+    { label: 'a template', path: () => `/templates/${rows.templateId}` },
+    { label: 'members', path: () => '/members' },
+    { label: 'account', path: () => '/account' },
+    { label: 'editor', path: () => `/layout?design=${rows.designId}`, ready: waitForDrawing },
+  ],
+  builder: [
+    { label: 'boards', path: () => '/boards', ready: boardsReady },
+    { label: 'template shelf', path: () => '/templates' },
+    { label: 'account', path: () => '/account' },
+    { label: 'proofs of a board', path: () => `/boards/${rows.designId}/proofs` },
+    { label: 'template check', path: () => `/boards/${rows.designId}/check` },
+    { label: 'editor', path: () => `/layout?design=${rows.designId}`, ready: waitForDrawing },
+    ...EDITOR_TABS.map((tab) => ({ label: `editor (${tab.name})`, path: () => `/layout?design=${rows.designId}`, ready: waitForDrawing, tab })),
+  ],
+  client: [
+    { label: 'shared with me', path: () => '/shared' },
+    { label: 'a shared proof', path: () => `/shared/${rows.proofId}`, ready: waitForDrawing },
+    { label: 'account', path: () => '/account' },
+  ],
+};
+
+const userFor = (who: Who): TestUser | null => ({ 'signed out': null, owner, builder, client })[who];
+
 describe('the axe sweep: zero serious or critical violations on every page', () => {
-  it('signed out: home, sign in, forgot password, create shop, layout, safety, measuring, an unknown link, 404', async () => {
-    const page = await (await contextAs(null)).newPage();
-    await sweep(page, 'signed out: home', '/');
-    await sweep(page, 'signed out: sign in', '/sign-in');
-    await sweep(page, 'signed out: forgot password', '/forgot-password');
-    await sweep(page, 'signed out: create shop', '/create-shop');
-    await sweep(page, 'signed out: layout (editor)', '/layout?preset=seven-string-fan', waitForDrawing);
-    await sweep(page, 'signed out: layout view mode', '/layout?preset=seven-string-fan&mode=view', waitForDrawing);
-    await sweep(page, 'signed out: safety', '/safety');
-    await sweep(page, 'signed out: measuring', '/measuring');
-    await sweep(page, 'signed out: invitation link no longer valid', '/invitations/AAAAAAAAAAAAAAAAAAAAAA');
-    await sweep(page, 'signed out: 404', '/no-such-page');
-    await page.context().close();
-  });
-
-  it('the proof page a client opens from the link (no account)', async () => {
-    const page = await (await contextAs(null)).newPage();
-    await sweep(page, 'proof page (link)', `/p/${rows.proofToken}`, waitForDrawing);
-    await page.setViewportSize({ width: 390, height: 844 });
-    await sweep(page, 'proof page (link) at 390×844', null);
-    await page.context().close();
-  });
-
-  it('owner: boards, templates, members, account, the editor', async () => {
-    const page = await (await contextAs(owner)).newPage();
-    await sweep(page, 'owner: boards', '/boards', (p) => p.getByRole('table').first().waitFor());
-    await sweep(page, 'owner: template shelf', '/templates');
-    await sweep(page, 'owner: a template', `/templates/${rows.templateId}`);
-    await sweep(page, 'owner: members', '/members');
-    await sweep(page, 'owner: account', '/account');
-    await sweep(page, 'owner: editor', `/layout?design=${rows.designId}`, waitForDrawing);
-    await page.context().close();
-  });
-
-  it('builder: boards, templates, account, proofs of a board, template check, and the editor with each panel open', async () => {
-    const page = await (await contextAs(builder)).newPage();
-    await sweep(page, 'builder: boards', '/boards', (p) => p.getByRole('table').first().waitFor());
-    await sweep(page, 'builder: template shelf', '/templates');
-    await sweep(page, 'builder: account', '/account');
-    await sweep(page, 'builder: proofs of a board', `/boards/${rows.designId}/proofs`);
-    await sweep(page, 'builder: template check', `/boards/${rows.designId}/check`);
-    await sweep(page, 'builder: editor (design)', `/layout?design=${rows.designId}`, waitForDrawing);
-    for (const [tab, ready] of [
-      ['Fret table', 'table'],
-      ['Exports', 'button'],
-      ['History', 'listitem'],
-      ['Proofs', 'button'],
-    ] as const) {
-      await page.getByRole('tab', { name: tab }).click();
-      await sweep(page, `builder: editor (${tab})`, null, (p) => p.getByRole('tabpanel', { name: tab }).getByRole(ready).first().waitFor());
-    }
-    await page.context().close();
-  });
-
-  it('client: shared with me, a shared proof, account', async () => {
-    const page = await (await contextAs(client)).newPage();
-    await sweep(page, 'client: shared with me', '/shared');
-    await sweep(page, 'client: a shared proof', `/shared/${rows.proofId}`, waitForDrawing);
-    await sweep(page, 'client: account', '/account');
-    await page.context().close();
-  });
+  for (const [who, pages] of Object.entries(PAGES) as [Who, SweptPage[]][]) {
+    describe(who, () => {
+      for (const swept of pages) {
+        it(swept.label, async () => {
+          const context = await contextAs(userFor(who), swept.viewport);
+          const page = await context.newPage();
+          const tab = swept.tab;
+          await sweep(page, `${who}: ${swept.label}`, swept.path(), async (p) => {
+            await swept.ready?.(p);
+            if (!tab) return;
+            await p.getByRole('tab', { name: tab.name }).click();
+            await p.getByRole('tabpanel', { name: tab.name }).getByRole(tab.shows).first().waitFor();
+          });
+          await context.close();
+        });
+      }
+    });
+  }
 });
 
 /** WCAG 2.2 contrast ratio (its definitions of relative luminance and contrast ratio) of two CSS rgb() colours. */
