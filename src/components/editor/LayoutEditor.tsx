@@ -1,7 +1,8 @@
 /**
- * The Layout screen's island: parameter form beside a live drawing, readouts and fret table. In
- * 'view' mode (e.g. a client's Proof) the form is left out: the drawing, navigation, readouts and
- * fret table stay, and nothing is kept or sent.
+ * The Layout screen's island: a live drawing (kept in view) with a side panel of tabs beside it:
+ * the parameter form, the fret table and the exports. In 'view' mode (e.g. a client's Proof) the
+ * form is left out: the drawing, navigation, readouts and fret table stay, and nothing is kept or
+ * sent; `embedded` (a client's page) also leaves out the builder's tools.
  *
  * A scratch design is kept in this browser; a signed-in builder or owner can save it to Boards.
  * Both autosave through useAutosave; a board (opened from Boards, or just saved) also gets the
@@ -16,6 +17,7 @@ import { ConflictNotice } from '~/components/boards/ConflictNotice.tsx';
 import { RevisionHistory } from '~/components/boards/RevisionHistory.tsx';
 import { SaveStatusBadge } from '~/components/boards/SaveStatusBadge.tsx';
 import { SaveToBoardsButton } from '~/components/boards/SaveToBoardsButton.tsx';
+import { TabList, tabPanelProps, type TabItem } from '~/components/ui/TabList.tsx';
 import { computeLayout } from '~/lib/geometry/layout.ts';
 import { blankDesign } from '~/lib/presets/blank-design.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
@@ -30,7 +32,6 @@ import { draftFromDesign, validateDraft, type DesignDraft } from './design-draft
 import { DesignForm, type PresetChoice } from './DesignForm.tsx';
 import { FretReadout } from './FretReadout.tsx';
 import { FretTablePanel } from './FretTablePanel.tsx';
-import { TabList, tabPanelProps, type TabItem } from '~/components/ui/TabList.tsx';
 import { redrawStarted } from './redraw-timing.ts';
 import { loadScreenPxPerMm, saveScreenPxPerMm } from './screen-calibration.ts';
 import { useAutosave } from './use-autosave.ts';
@@ -191,40 +192,40 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
     <div className="space-y-3">
       {/* Embedded in a client's page (a Proof), the builder's tools stay out. */}
       {!embedded && (
-      <div role="toolbar" aria-label="Layout tools" className="flex flex-wrap items-center gap-x-4 gap-y-2 rounded border border-paper-line bg-white px-3 py-2 text-sm">
-        <h1 className="mr-auto text-lg font-bold">{editing ? 'Layout' : design.name}</h1>
-        {editing && (
-          <div aria-label="Where this design is kept" role="group" className="flex flex-wrap items-center gap-2 text-xs">
-            <span>{store.place}</span>
-            <SaveStatusBadge state={autosave.state} />
-            {autosave.state.status === 'error' && (
-              <button type="button" className={BUTTON} onClick={autosave.saveNow}>Try saving again</button>
-            )}
-            {board ? (
-              <>
-                <span>
-                  Revision <span className="font-mono">{board.currentRevision}</span> · Status:{' '}
-                  <strong data-board-status={board.status}>{STATUS_LABELS[board.status]}</strong>
-                </span>
-              </>
-            ) : (
-              <>
-                {canSaveToBoards ? (
-                  <SaveToBoardsButton design={design} onSaved={switchToBoard} />
-                ) : (
-                  <span className="text-ink-soft">
-                    <a href={`/sign-in?next=${encodeURIComponent('/layout')}`}>Sign in</a> as a builder or owner to save it to Boards.
+        <div role="toolbar" aria-label="Layout tools" className="flex flex-wrap items-center gap-x-4 gap-y-2 rounded border border-paper-line bg-white px-3 py-2 text-sm">
+          <h1 className="mr-auto text-lg font-bold">{editing ? 'Layout' : design.name}</h1>
+          {editing && (
+            <div aria-label="Where this design is kept" role="group" className="flex flex-wrap items-center gap-2 text-xs">
+              <span>{store.place}</span>
+              <SaveStatusBadge state={autosave.state} />
+              {autosave.state.status === 'error' && (
+                <button type="button" className={BUTTON} onClick={autosave.saveNow}>Try saving again</button>
+              )}
+              {board ? (
+                <>
+                  <span>
+                    Revision <span className="font-mono">{board.currentRevision}</span> · Status:{' '}
+                    <strong data-board-status={board.status}>{STATUS_LABELS[board.status]}</strong>
                   </span>
-                )}
-              </>
-            )}
-          </div>
-        )}
-        <button type="button" className={BUTTON} aria-expanded={calibrating} onClick={() => setCalibrating(!calibrating)}>
-          Screen calibration
-        </button>
-        <a href="/safety" className="text-sm">Safety note: these layouts drive real saws and machines</a>
-      </div>
+                </>
+              ) : (
+                <>
+                  {canSaveToBoards ? (
+                    <SaveToBoardsButton design={design} onSaved={switchToBoard} />
+                  ) : (
+                    <span className="text-ink-soft">
+                      <a href={`/sign-in?next=${encodeURIComponent('/layout')}`}>Sign in</a> as a builder or owner to save it to Boards.
+                    </span>
+                  )}
+                </>
+              )}
+            </div>
+          )}
+          <button type="button" className={BUTTON} aria-expanded={calibrating} onClick={() => setCalibrating(!calibrating)}>
+            Screen calibration
+          </button>
+          <a href="/safety" className="text-sm">Safety note: these layouts drive real saws and machines</a>
+        </div>
       )}
 
       {calibrating && (
