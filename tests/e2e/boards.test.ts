@@ -37,7 +37,7 @@ describe('Boards page in Chromium (built server)', () => {
     await page.waitForFunction(() => document.querySelectorAll('tbody tr').length === 1 && !document.querySelector('table[aria-busy="true"]'));
     await row.waitFor();
     await expect(row.getByRole('link', { name: `Open ${design.name}` }).getAttribute('href')).resolves.toBe(`/layout?design=${board.id}`);
-    await expect(row.getByRole('link', { name: `Export ${design.name} as a JSON file` }).getAttribute('href')).resolves.toBe(`/api/designs/${board.id}/export?format=json`);
+    await expect(row.getByRole('link', { name: `Export JSON of ${design.name}` }).getAttribute('href')).resolves.toBe(`/api/designs/${board.id}/export?format=json`);
     const drawing = row.getByRole('img', { name: `Drawing of ${design.name}` });
     await drawing.waitFor();
     await page.waitForFunction((img) => (img as HTMLImageElement).complete && (img as HTMLImageElement).naturalWidth > 0, await drawing.elementHandle());

@@ -55,6 +55,7 @@ describe('Layout editor in Chromium (built server)', () => {
     expect(rows[7]?.split(/\s+/)).toEqual(['7', '343.00', formatMm(686 * (2 ** (-11 / 12) - 0.5))]);
 
     // An invalid value: the error sits by its field and the drawing keeps the last valid layout.
+    await page.getByRole('tab', { name: 'Design' }).click();
     await page.getByLabel('Frets', { exact: true }).fill('40');
     const fretsField = page.getByLabel('Frets', { exact: true });
     expect(await fretsField.getAttribute('aria-invalid')).toBe('true');
@@ -65,13 +66,18 @@ describe('Layout editor in Chromium (built server)', () => {
     await fretsField.fill('24');
     await page.getByText(/Out of date/).waitFor({ state: 'detached' });
 
-    // Inches and back: the same numbers.
+    // Inches and back: the same numbers (the form and the fret table are tabs of the side panel).
+    await page.getByRole('tab', { name: 'Fret table' }).click();
     const tableInMm = await fretTableText(page);
+    await page.getByRole('tab', { name: 'Design' }).click();
     await page.getByLabel('Inches (in)').check();
     expect(await page.getByLabel(/^Treble scale length/).inputValue()).toBe('25.5118');
+    await page.getByRole('tab', { name: 'Fret table' }).click();
     await page.getByRole('columnheader', { name: /From nut \(in\)/ }).waitFor();
+    await page.getByRole('tab', { name: 'Design' }).click();
     await page.getByLabel('Millimetres (mm)').check();
     expect(await page.getByLabel(/^Treble scale length/).inputValue()).toBe('648');
+    await page.getByRole('tab', { name: 'Fret table' }).click();
     await page.getByRole('columnheader', { name: /From nut \(mm\)/ }).waitFor();
     expect(await fretTableText(page)).toBe(tableInMm);
     const back = await readScene(page);
@@ -174,11 +180,11 @@ describe('Layout editor in Chromium (built server)', () => {
     const afterWheel = await boardUnderPointer();
     expectNear(afterWheel.x, beforeWheel.x, 1e-6);
     expectNear(afterWheel.y, beforeWheel.y, 1e-6);
-    // Arrow keys pan the view by a fixed screen step.
+    // Shift and the arrow keys pan the view by a fixed screen step (the arrows alone move the fret cursor).
     await page.getByRole('button', { name: 'Fit board' }).click();
     const fittedAt = await pagePointOf(page, 0, 0);
-    await page.getByRole('img', { name: /Drawing of the board/ }).focus();
-    await page.keyboard.press('ArrowLeft');
+    await page.getByRole('application', { name: /Drawing of the board/ }).focus();
+    await page.keyboard.press('Shift+ArrowLeft');
     expectNear((await pagePointOf(page, 0, 0)).x - fittedAt.x, 40, 1e-9);
     const five = before.frets.find((f) => f.fret === 5)?.points ?? [];
     const at = await pagePointOf(page, ((five[0] ?? 0) + (five[2] ?? 0)) / 2, ((five[1] ?? 0) + (five[3] ?? 0)) / 2);
@@ -232,6 +238,7 @@ describe('the editor trusts the shared geometry module in the browser', () => {
     await page.getByText('1200.000 cents').waitFor();
 
     const download = page.waitForEvent('download');
+    await page.getByRole('tab', { name: 'Fret table' }).click();
     await page.getByRole('button', { name: 'Download CSV' }).click();
     const file = await download;
     expect(file.suggestedFilename()).toBe('wrenfield-seven-string-fan-fret-table.csv');

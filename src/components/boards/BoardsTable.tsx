@@ -45,7 +45,7 @@ function RowActions({ board, onHistory, onArchived }: { board: BoardSummary; onH
       <button type="button" className={button} disabled={duplicate.isPending} onClick={() => duplicate.mutate()} aria-label={`Duplicate ${board.name}`}>
         {duplicate.isPending ? 'Duplicating…' : 'Duplicate'}
       </button>
-      <a className={`${button} no-underline`} href={`/api/designs/${board.id}/export?format=json`} download aria-label={`Export ${board.name} as a JSON file`}>Export JSON</a>
+      <a className={`${button} no-underline`} href={`/api/designs/${board.id}/export?format=json`} download aria-label={`Export JSON of ${board.name}`}>Export JSON</a>
       <button type="button" className={button} onClick={onHistory} aria-label={`History of ${board.name}`}>History</button>
       <button type="button" className={button} disabled={archive.isPending} onClick={() => archive.mutate()}
         aria-label={`${board.status === 'archived' ? 'Unarchive' : 'Archive'} ${board.name}`}>

@@ -1,7 +1,8 @@
 /**
  * The drawing: a Konva stage showing the board, with navigation (wheel and buttons zoom to a
- * point, drag and arrow keys pan, fit board, 1:1 on screen), fret picking for the readouts and
- * the measure tool. The view maths live in view-transform.ts.
+ * point, drag and Shift+arrow keys pan, fit board, 1:1 on screen), fret picking for the readouts,
+ * a keyboard cursor (arrow keys: Left/Right between frets, Up/Down between strings, announced
+ * politely) and the measure tool. The view maths live in view-transform.ts.
  */
 import type Konva from 'konva';
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from 'react';
@@ -10,11 +11,13 @@ import { formatLength } from '~/lib/format/units.ts';
 import type { Layout, Point } from '~/lib/geometry/layout.ts';
 import { distance } from '~/lib/geometry/plane.ts';
 import { BoardScene } from './BoardScene.tsx';
+import { cursorPoint, cursorWords, isCursorKey, stepCursor, type FretCursor } from './fret-cursor.ts';
 import { BUTTON } from './control-styles.ts';
 import { nearestFret, snapPoint, snapTargets } from './board-picking.ts';
 import { DRAWING_COLOURS as C, LINE_WIDTHS_PX as W, PICK_REACH_PX, SNAP_REACH_PX } from './drawing-style.ts';
 import { redrawCommitted, redrawDrawn } from './redraw-timing.ts';
 import {
+  boardToScreen,
   boundsOf,
   clampZoom,
   fitView,
@@ -40,9 +43,18 @@ export interface BoardDrawingProps {
   screenPxPerMm: number;
   /** id of the text summary describing the drawing. */
   describedBy: string;
+  /** The builder's tools (measure, 1:1 on screen); a client's page leaves them out. */
+  builderTools?: boolean;
 }
 
 const STAGE_HEIGHT_PX = 400;
+/** On a narrow screen (a phone) a long, thin board needs less height: at least this much. */
+const MIN_STAGE_HEIGHT_PX = 220;
+
+/** The stage's height for its width: the full height from about 670 px wide, less below. */
+function stageHeight(width: number): number {
+  return Math.min(STAGE_HEIGHT_PX, Math.max(MIN_STAGE_HEIGHT_PX, Math.round(width * 0.6)));
+}
 const FIT_MARGIN_PX = 56;
 const ZOOM_STEP = 1.25;
 const WHEEL_ZOOM_PER_PX = 0.0015;
@@ -51,13 +63,14 @@ const PAN_STEP_PX = 40;
 const CLICK_SLOP_PX = 4;
 
 export function BoardDrawing(props: BoardDrawingProps) {
-  const { layout, outOfDate, fitRequest, highlightedFret, onHoverFret, onPickFret, screenPxPerMm, describedBy } = props;
+  const { layout, outOfDate, fitRequest, highlightedFret, onHoverFret, onPickFret, screenPxPerMm, describedBy, builderTools = true } = props;
   const containerRef = useRef<HTMLDivElement>(null);
   const layerRef = useRef<Konva.Layer>(null);
   const [size, setSize] = useState({ width: 0, height: STAGE_HEIGHT_PX });
   const [view, setView] = useState<View | null>(null);
   const [measuring, setMeasuring] = useState(false);
   const [measurePoints, setMeasurePoints] = useState<Point[]>([]);
+  const [cursor, setCursor] = useState<FretCursor | null>(null);
   const drag = useRef<{ start: ScreenPoint; last: ScreenPoint; moved: boolean } | null>(null);
   const units = layout.units;
   const bounds = useMemo(
@@ -70,7 +83,7 @@ export function BoardDrawing(props: BoardDrawingProps) {
     const element = containerRef.current;
     if (!element) return;
     const observer = new ResizeObserver(([entry]) => {
-      if (entry) setSize({ width: Math.floor(entry.contentRect.width), height: STAGE_HEIGHT_PX });
+      if (entry) setSize({ width: Math.floor(entry.contentRect.width), height: stageHeight(Math.floor(entry.contentRect.width)) });
     });
     observer.observe(element);
     return () => observer.disconnect();
@@ -158,6 +171,18 @@ export function BoardDrawing(props: BoardDrawingProps) {
     }
   };
 
+  /** Moves the keyboard cursor, shows its fret in the readouts, and pans it into view when it leaves. */
+  const moveCursor = (next: FretCursor | null) => {
+    if (!view || !next) return;
+    setCursor(next);
+    onPickFret(next.fret);
+    const point = cursorPoint(layout, next);
+    if (!point) return;
+    const at = boardToScreen(view, point.x, point.y);
+    const inside = at.x >= FIT_MARGIN_PX && at.x <= size.width - FIT_MARGIN_PX && at.y >= 0 && at.y <= size.height;
+    if (!inside) setView(panBy(view, size.width / 2 - at.x, size.height / 2 - at.y));
+  };
+
   const onKeyDown = (event: KeyboardEvent<HTMLDivElement>) => {
     if (!view) return;
     const pans: Record<string, [number, number]> = {
@@ -167,13 +192,20 @@ export function BoardDrawing(props: BoardDrawingProps) {
       ArrowDown: [0, -PAN_STEP_PX],
     };
     const pan = pans[event.key];
-    if (pan) setView(panBy(view, pan[0], pan[1]));
+    if (pan && event.shiftKey) setView(panBy(view, pan[0], pan[1]));
+    else if (isCursorKey(event.key)) moveCursor(stepCursor(layout, cursor, event.key, highlightedFret));
     else if (event.key === '+' || event.key === '=') zoomButtons(ZOOM_STEP);
     else if (event.key === '-') zoomButtons(1 / ZOOM_STEP);
-    else if (event.key === 'Escape') setMeasurePoints([]);
-    else return;
+    else if (event.key === 'Escape') {
+      setMeasurePoints([]);
+      setCursor(null);
+    } else return;
     event.preventDefault();
   };
+
+  // A new layout (another string count, fewer frets) may no longer have the cursor's place.
+  const cursorAt = cursor ? cursorPoint(layout, cursor) : null;
+  const announced = cursor && cursorAt ? cursorWords(layout, cursor) : '';
 
   const [first, second] = measurePoints;
   const measured = first && second ? distance(first, second) : null;
@@ -185,18 +217,22 @@ export function BoardDrawing(props: BoardDrawingProps) {
         <button type="button" className={BUTTON} onClick={() => zoomButtons(ZOOM_STEP)} aria-label="Zoom in">+</button>
         <button type="button" className={BUTTON} onClick={() => zoomButtons(1 / ZOOM_STEP)} aria-label="Zoom out">−</button>
         <button type="button" className={BUTTON} onClick={fit}>Fit board</button>
-        <button type="button" className={BUTTON} onClick={oneToOne}>1:1 on screen</button>
-        <button
-          type="button"
-          className={BUTTON}
-          aria-pressed={measuring}
-          onClick={() => {
-            setMeasuring(!measuring);
-            setMeasurePoints([]);
-          }}
-        >
-          {measuring ? 'Measuring: click two points' : 'Measure'}
-        </button>
+        {builderTools && (
+          <>
+            <button type="button" className={BUTTON} onClick={oneToOne}>1:1 on screen</button>
+            <button
+              type="button"
+              className={BUTTON}
+              aria-pressed={measuring}
+              onClick={() => {
+                setMeasuring(!measuring);
+                setMeasurePoints([]);
+              }}
+            >
+              {measuring ? 'Measuring: click two points' : 'Measure'}
+            </button>
+          </>
+        )}
         {view && (
           <span className="font-mono text-xs text-ink-soft" aria-live="off">
             {formatScreenScale(view.zoom, screenPxPerMm, units)}
@@ -205,9 +241,9 @@ export function BoardDrawing(props: BoardDrawingProps) {
       </div>
       <div
         ref={containerRef}
-        role="img"
+        role="application"
         aria-roledescription="board drawing"
-        aria-label="Drawing of the board (drag or arrow keys to pan, wheel or + and − to zoom)"
+        aria-label="Drawing of the board (arrow keys: Left and Right move between frets, Up and Down between strings; Shift and arrows or drag to pan; wheel or + and − to zoom)"
         aria-describedby={describedBy}
         tabIndex={0}
         className={`relative touch-none select-none overflow-hidden rounded border border-paper-line bg-white ${measuring ? 'cursor-crosshair' : 'cursor-grab'}`}
@@ -243,6 +279,9 @@ export function BoardDrawing(props: BoardDrawingProps) {
                     strokeScaleEnabled={false}
                   />
                 )}
+                {cursorAt && (
+                  <Circle name="fret-cursor" fret={cursor?.fret} string={cursor?.string} x={cursorAt.x} y={cursorAt.y} radius={6 / view.zoom} stroke={C.highlight} strokeWidth={W.measure * 1.5} strokeScaleEnabled={false} />
+                )}
                 {measurePoints.map((point, index) => (
                   <Circle key={index} name="measure-point" x={point.x} y={point.y} radius={4 / view.zoom} stroke={C.measure} strokeWidth={W.measure} strokeScaleEnabled={false} />
                 ))}
@@ -254,6 +293,9 @@ export function BoardDrawing(props: BoardDrawingProps) {
           </Stage>
         )}
       </div>
+      <p className="min-h-5 font-mono text-sm" role="status" aria-live="polite" aria-atomic="true" aria-label="Keyboard readout">
+        {announced}
+      </p>
       {measuring && (
         <p className="text-sm" role="status" aria-live="polite">
           {first && second && measured !== null

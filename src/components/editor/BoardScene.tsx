@@ -9,7 +9,7 @@ import { memo } from 'react';
 import { Circle, Group, Line, Text } from 'react-konva';
 import { formatLength } from '~/lib/format/units.ts';
 import type { Layout, Point, Segment } from '~/lib/geometry/layout.ts';
-import { boardPicture, partsOn } from '~/lib/picture/board-picture.ts';
+import { boardPicture, fretNumbersApart, MONO_ADVANCE_EM, partsOn, type Box } from '~/lib/picture/board-picture.ts';
 import { DASHES_PX, DRAWING_COLOURS as C, LABEL_FONT, LINE_WIDTHS_PX as W } from './drawing-style.ts';
 import { boundsOf } from './view-transform.ts';
 
@@ -20,6 +20,23 @@ interface BoardSceneProps {
 }
 
 const SCALE_LABEL_WIDTH_PX = 280;
+/** A fret number sits this far below the treble end of its line, on screen (px). */
+const FRET_NUMBER_DROP_PX = 6;
+/** Clear space kept around each fret number, on screen (px). */
+const FRET_NUMBER_MARGIN_PX = 1;
+
+/** A fret number's box width on screen (px): its characters plus a pixel either side. */
+function fretNumberWidthPx(text: string): number {
+  return Math.ceil(text.length * MONO_ADVANCE_EM * LABEL_FONT.sizePx) + 2;
+}
+
+/** A fret number's box on screen (px, y down) relative to the view's origin, margin included. */
+function fretNumberBox(at: Point, text: string, zoom: number): Box {
+  const half = fretNumberWidthPx(text) / 2 + FRET_NUMBER_MARGIN_PX;
+  const x = at.x * zoom;
+  const top = -at.y * zoom + FRET_NUMBER_DROP_PX;
+  return { minX: x - half, maxX: x + half, minY: top - FRET_NUMBER_MARGIN_PX, maxY: top + LABEL_FONT.sizePx + FRET_NUMBER_MARGIN_PX };
+}
 
 const segmentPoints = (segment: Segment) => [segment.start.x, segment.start.y, segment.end.x, segment.end.y];
 
@@ -36,6 +53,11 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
   const frets = partsOn(picture, 'frets', 'line');
   const fretLines = frets.filter((part) => part.fret !== 0);
   const zeroFret = frets.find((part) => part.fret === 0);
+  // The shared rule: at this zoom, only the fret numbers that do not overprint one another.
+  const numbers = fretNumbersApart(
+    partsOn(picture, 'labels', 'text').filter((label) => label.fret !== 0),
+    (label) => fretNumberBox(label.at, label.text, zoom),
+  );
   const reference = (role: 'nut-uncompensated' | 'saddle-uncompensated') =>
     [...partsOn(picture, 'nut', 'line'), ...partsOn(picture, 'saddle', 'line')].find((part) => part.role === role);
   const drawn = (layer: 'nut' | 'saddle' | 'centre-line', role: 'nut' | 'saddle' | 'centre-line') =>
@@ -91,22 +113,26 @@ export const BoardScene = memo(function BoardScene({ layout, zoom }: BoardSceneP
             strokeWidth={W.slot}
             strokeScaleEnabled={false}
           />
-          <Text
-            name="fret-number"
-            fret={fret}
-            text={String(fret)}
-            x={segment.start.x}
-            y={segment.start.y}
-            {...labelScale}
-            width={28}
-            offsetX={14}
-            offsetY={-6}
-            align="center"
-            fontFamily={LABEL_FONT.family}
-            fontSize={LABEL_FONT.sizePx}
-            fill={C.label}
-          />
         </Group>
+      ))}
+      {numbers.map(({ fret, text, at }) => (
+        <Text
+          key={`number-${fret}`}
+          name="fret-number"
+          fret={fret}
+          text={text}
+          x={at.x}
+          y={at.y}
+          {...labelScale}
+          width={fretNumberWidthPx(text)}
+          offsetX={fretNumberWidthPx(text) / 2}
+          offsetY={-FRET_NUMBER_DROP_PX}
+          align="center"
+          wrap="none"
+          fontFamily={LABEL_FONT.family}
+          fontSize={LABEL_FONT.sizePx}
+          fill={C.label}
+        />
       ))}
       {zeroFret && (
         <Line name="zero-fret-line" points={segmentPoints(zeroFret.segment)} stroke={C.slot} strokeWidth={W.slot} strokeScaleEnabled={false} />

@@ -1,4 +1,7 @@
-/** Per-string distances of the fret under the pointer (or the last one tapped). */
+/**
+ * Per-string distances of the fret under the pointer (or the last one tapped, or the keyboard
+ * cursor's). Not a live region: the drawing announces the keyboard cursor's place itself, once.
+ */
 import { formatLength } from '~/lib/format/units.ts';
 import type { Layout } from '~/lib/geometry/layout.ts';
 
@@ -6,7 +9,7 @@ export function FretReadout({ layout, fret }: { layout: Layout; fret: number | n
   const shown = layout.frets.find((candidate) => candidate.number === fret);
   const units = layout.units;
   return (
-    <section aria-labelledby="fret-readout-title" className="rounded border border-paper-line bg-white p-3" aria-live="polite">
+    <section aria-labelledby="fret-readout-title" className="rounded border border-paper-line bg-white p-3">
       <h2 id="fret-readout-title" className="text-sm font-semibold">
         {shown ? `Fret ${shown.number} readout` : 'Fret readout'}
       </h2>

@@ -29,10 +29,12 @@ interface Props {
   design: Design;
   /** A saved board's download comes from the server, named after its revision (exports make one for unsaved changes). */
   boardId?: number | null;
+  /** Copy and download (left out on a client's proof page). */
+  downloads?: boolean;
 }
 
 /** Memoised: the table is large and only changes with the (deferred) layout. */
-export const FretTablePanel = memo(function FretTablePanel({ layout, design, boardId = null }: Props) {
+export const FretTablePanel = memo(function FretTablePanel({ layout, design, boardId = null, downloads = true }: Props) {
   const units = layout.units;
   const [sorting, setSorting] = useState<SortingState>([]);
   const [notice, setNotice] = useState('');
@@ -78,21 +80,23 @@ export const FretTablePanel = memo(function FretTablePanel({ layout, design, boa
 
   return (
     <div className="space-y-2">
-      <div className="flex flex-wrap items-center gap-2">
-        <button type="button" className={BUTTON} onClick={() => void copy()}>Copy CSV</button>
-        {boardId === null ? (
-          <button type="button" className={BUTTON} onClick={download}>Download CSV</button>
-        ) : (
-          <a className={`${BUTTON} no-underline`} href={`/api/designs/${boardId}/export?format=csv`} download>Download CSV</a>
-        )}
-        <span className="text-xs text-ink-soft" role="status">{notice}</span>
-      </div>
+      {downloads && (
+        <div className="flex flex-wrap items-center gap-2">
+          <button type="button" className={BUTTON} onClick={() => void copy()}>Copy CSV</button>
+          {boardId === null ? (
+            <button type="button" className={BUTTON} onClick={download}>Download CSV</button>
+          ) : (
+            <a className={`${BUTTON} no-underline`} href={`/api/designs/${boardId}/export?format=csv`} download>Download CSV</a>
+          )}
+          <span className="text-xs text-ink-soft" role="status">{notice}</span>
+        </div>
+      )}
       <p className="text-xs text-ink-soft">
         Distances along each string from its nut end (uncompensated); x and y in board coordinates from where
         the nut line crosses the centre line. The design gives its {scaleConventionWords(layout.scaleAlong)}.
-        Shown rounded; the CSV carries the unrounded numbers.
+        {downloads && ' Shown rounded; the CSV carries the unrounded numbers.'}
       </p>
-      <div className="max-h-80 overflow-auto rounded border border-paper-line bg-white">
+      <div className="relative max-h-80 overflow-auto rounded border border-paper-line bg-white">
         <table className="w-full font-mono text-xs" aria-label="Fret table">
           <thead className="sticky top-0 bg-paper-shade">
             {table.getHeaderGroups().map((group) => (

@@ -1,7 +1,8 @@
 /**
- * The Layout screen's island: parameter form beside a live drawing, readouts and fret table. In
- * 'view' mode (e.g. a client's Proof) the form is left out: the drawing, navigation, readouts and
- * fret table stay, and nothing is kept or sent.
+ * The Layout screen's island: a live drawing (kept in view) with a side panel of tabs beside it:
+ * the parameter form, the fret table and the exports. In 'view' mode (e.g. a client's Proof) the
+ * form is left out: the drawing, navigation, readouts and fret table stay, and nothing is kept or
+ * sent; `embedded` (a client's page) also leaves out the builder's tools.
  *
  * A scratch design is kept in this browser; a signed-in builder or owner can save it to Boards.
  * Both autosave through useAutosave; a board (opened from Boards, or just saved) also gets the
@@ -10,7 +11,7 @@
  * The layout is computed here with the shared geometry module (src/lib/geometry) at every change:
  * the same code the server runs for every export, so there is nothing to cross-check.
  */
-import { Suspense, lazy, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { Suspense, lazy, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import { STATUS_LABELS } from '~/components/boards/board-labels.ts';
 import { ApprovalNotice } from '~/components/boards/ApprovalNotice.tsx';
 import { BoardDetailsForm } from '~/components/boards/BoardDetailsForm.tsx';
@@ -19,6 +20,7 @@ import { ConflictNotice } from '~/components/boards/ConflictNotice.tsx';
 import { RevisionHistory } from '~/components/boards/RevisionHistory.tsx';
 import { SaveStatusBadge } from '~/components/boards/SaveStatusBadge.tsx';
 import { SaveToBoardsButton } from '~/components/boards/SaveToBoardsButton.tsx';
+import { TabList, tabPanelProps, type TabItem } from '~/components/ui/TabList.tsx';
 import { computeLayout } from '~/lib/geometry/layout.ts';
 import { blankDesign } from '~/lib/presets/blank-design.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
@@ -58,7 +60,8 @@ export interface LayoutEditorProps {
 const ExportPanel = lazy(() => import('~/components/export/ExportPanel.tsx'));
 const ProofPanel = lazy(() => import('~/components/proof/ProofPanel.tsx'));
 
-type Tab = 'table' | 'exports' | 'history' | 'proofs';
+type Tab = 'design' | 'table' | 'exports' | 'history' | 'proofs';
+const TABS_ID = 'layout';
 
 const BLANK_PRESET_ID = 'blank';
 const PRESETS: readonly PresetChoice[] = [
@@ -93,7 +96,13 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
   const [pickedFret, setPickedFret] = useState<number | null>(null);
   const [screen, setScreen] = useState(() => loadScreenPxPerMm(globalThis.localStorage));
   const [calibrating, setCalibrating] = useState(false);
-  const [tab, setTab] = useState<Tab>('table');
+  const [tab, setTab] = useState<Tab>('design');
+  // A panel is mounted when first opened (Exports and Proofs load their code then) and kept, hidden, after.
+  const [mounted, setMounted] = useState<ReadonlySet<Tab>>(() => new Set<Tab>(['design', 'table']));
+  const openTab = (next: Tab) => {
+    setTab(next);
+    setMounted((panels) => (panels.has(next) ? panels : new Set([...panels, next])));
+  };
 
   const validation = useMemo(() => {
     redrawStarted();
@@ -155,6 +164,13 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
     setFitRequest((n) => n + 1);
   };
 
+  const tabs: TabItem<Tab>[] = [
+    { id: 'design', label: 'Design' },
+    { id: 'table', label: 'Fret table' },
+    { id: 'exports', label: 'Exports' },
+    ...(board ? [{ id: 'history', label: 'History' } as const, { id: 'proofs', label: 'Proofs' } as const] : []),
+  ];
+
   const drawing = (
     <BoardDrawing
       layout={layout}
@@ -165,50 +181,54 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
       onPickFret={setPickedFret}
       screenPxPerMm={screen.pxPerMm}
       describedBy={SUMMARY_ID}
+      builderTools={!embedded}
     />
   );
 
   return (
     <div className="space-y-3">
-      <div role="toolbar" aria-label="Layout tools" className="flex flex-wrap items-center gap-x-4 gap-y-2 rounded border border-paper-line bg-white px-3 py-2 text-sm">
-        {embedded ? <span className="mr-auto" /> : <h1 className="mr-auto text-lg font-bold">{editing ? 'Layout' : design.name}</h1>}
-        {editing && (
-          <div aria-label="Where this design is kept" role="group" className="flex flex-wrap items-center gap-2 text-xs">
-            <span>{store.place}</span>
-            <SaveStatusBadge state={autosave.state} />
-            {autosave.state.status === 'error' && (
-              <button type="button" className={BUTTON} onClick={autosave.saveNow}>Try saving again</button>
-            )}
-            {board ? (
-              <>
-                <span>
-                  {board.workingRevision === null ? (
-                    <>Changes not yet in a revision (newest: <span className="font-mono">{board.currentRevision}</span>)</>
-                  ) : (
-                    <>Revision <span className="font-mono">{board.workingRevision}</span></>
-                  )}{' '}
-                  · <span className="font-mono" title="Fingerprint of this layout, as printed on its exports">{board.fingerprint}</span> · Status:{' '}
-                  <strong data-board-status={board.status}>{STATUS_LABELS[board.status]}</strong>
-                </span>
-              </>
-            ) : (
-              <>
-                {canSaveToBoards ? (
-                  <SaveToBoardsButton design={design} onSaved={switchToBoard} />
-                ) : (
-                  <span className="text-ink-soft">
-                    <a href={`/sign-in?next=${encodeURIComponent('/layout')}`}>Sign in</a> as a builder or owner to save it to Boards.
+      {/* Embedded in a client's page (a Proof), the builder's tools stay out. */}
+      {!embedded && (
+        <div role="toolbar" aria-label="Layout tools" className="flex flex-wrap items-center gap-x-4 gap-y-2 rounded border border-paper-line bg-white px-3 py-2 text-sm">
+          <h1 className="mr-auto text-lg font-bold">{editing ? 'Layout' : design.name}</h1>
+          {editing && (
+            <div aria-label="Where this design is kept" role="group" className="flex flex-wrap items-center gap-2 text-xs">
+              <span>{store.place}</span>
+              <SaveStatusBadge state={autosave.state} />
+              {autosave.state.status === 'error' && (
+                <button type="button" className={BUTTON} onClick={autosave.saveNow}>Try saving again</button>
+              )}
+              {board ? (
+                <>
+                  <span>
+                    {board.workingRevision === null ? (
+                      <>Changes not yet in a revision (newest: <span className="font-mono">{board.currentRevision}</span>)</>
+                    ) : (
+                      <>Revision <span className="font-mono">{board.workingRevision}</span></>
+                    )}{' '}
+                    · <span className="font-mono" title="Fingerprint of this layout, as printed on its exports">{board.fingerprint}</span> · Status:{' '}
+                    <strong data-board-status={board.status}>{STATUS_LABELS[board.status]}</strong>
                   </span>
-                )}
-              </>
-            )}
-          </div>
-        )}
-        <button type="button" className={BUTTON} aria-expanded={calibrating} onClick={() => setCalibrating(!calibrating)}>
-          Screen calibration
-        </button>
-        <a href="/safety" className="text-sm">Safety note: these layouts drive real saws and machines</a>
-      </div>
+                </>
+              ) : (
+                <>
+                  {canSaveToBoards ? (
+                    <SaveToBoardsButton design={design} onSaved={switchToBoard} />
+                  ) : (
+                    <span className="text-ink-soft">
+                      <a href={`/sign-in?next=${encodeURIComponent('/layout')}`}>Sign in</a> as a builder or owner to save it to Boards.
+                    </span>
+                  )}
+                </>
+              )}
+            </div>
+          )}
+          <button type="button" className={BUTTON} aria-expanded={calibrating} onClick={() => setCalibrating(!calibrating)}>
+            Screen calibration
+          </button>
+          <a href="/safety" className="text-sm">Safety note: these layouts drive real saws and machines</a>
+        </div>
+      )}
 
       {calibrating && (
         <CalibrationPanel
@@ -254,13 +274,8 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
         />
       )}
 
-      <div className={editing ? 'grid gap-4 lg:grid-cols-[22rem_minmax(0,1fr)]' : 'grid gap-4'}>
-        {editing && (
-          <aside aria-label="Design parameters" className="order-2 lg:order-1 lg:max-h-[calc(100vh-8rem)] lg:overflow-y-auto lg:pr-1">
-            <DesignForm draft={draft} onChange={setDraft} issues={validation.ok ? [] : validation.issues} presets={PRESETS} onStartFrom={startFrom} />
-          </aside>
-        )}
-        <div className="order-1 min-w-0 space-y-3 lg:order-2">
+      <div className={editing ? 'grid gap-4 lg:grid-cols-[minmax(20rem,26rem)_minmax(0,1fr)]' : 'grid gap-4'}>
+        <div className="order-1 min-w-0 space-y-3 lg:sticky lg:top-2 lg:order-2 lg:self-start">
           {drawing}
           <p id={SUMMARY_ID} className="text-xs text-ink-soft">{describeBoard(settledDesign, settledLayout)}</p>
           {settledLayout.warnings.length > 0 && (
@@ -272,62 +287,65 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
             </section>
           )}
           <FretReadout layout={layout} fret={hoveredFret ?? pickedFret} />
-          <section aria-label="Fret table and exports" className="space-y-2">
-            <div role="tablist" aria-label="Board outputs" className="flex gap-1 border-b border-paper-line">
-              <TabButton id="table" selected={tab === 'table'} onSelect={() => setTab('table')}>Fret table</TabButton>
-              {editing && <TabButton id="exports" selected={tab === 'exports'} onSelect={() => setTab('exports')}>Exports</TabButton>}
-              {board && <TabButton id="history" selected={tab === 'history'} onSelect={() => setTab('history')}>History</TabButton>}
-              {board && <TabButton id="proofs" selected={tab === 'proofs'} onSelect={() => setTab('proofs')}>Proofs</TabButton>}
-            </div>
-            <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`}>
-              {tab === 'table' || !editing ? (
-                <FretTablePanel layout={settledLayout} design={settledDesign} boardId={editing && board && autosave.state.status === 'saved' ? board.id : null} />
-              ) : tab === 'history' && board ? (
-                <RevisionHistory
-                  boardId={board.id}
-                  version={autosave.state.version}
-                  currentRevision={board.currentRevision}
-                  workingRevision={board.workingRevision}
-                  unsavedEdits={autosave.state.status !== 'saved'}
-                  onRestored={showBoard}
-                  onRevisionSaved={(saved) => setBoard(openBoard(saved))}
-                />
-              ) : tab === 'proofs' && board ? (
-                <Suspense fallback={<p className="text-sm" role="status">Loading the proofs…</p>}>
-                  <ProofPanel designId={board.id} />
-                </Suspense>
-              ) : (
-                <div className="space-y-2">
-                  {!validation.ok && (
-                    <p className="rounded border border-caution bg-caution-light p-2 text-sm" role="status">
-                      The form has errors: these exports are of the last valid layout, not what the form shows.
-                    </p>
+        </div>
+        {/* The side panel: every panel one tab away, the drawing staying in view beside it. */}
+        <section
+          aria-label={editing ? 'Design and board panels' : 'Fret table'}
+          className={`order-2 min-w-0 space-y-2 ${editing ? 'lg:sticky lg:top-2 lg:order-1 lg:max-h-[calc(100vh-1rem)] lg:self-start lg:overflow-y-auto lg:pr-1' : ''}`}
+        >
+          {editing ? (
+            <>
+              <TabList label="Panels" idPrefix={TABS_ID} tabs={tabs} selected={tab} onSelect={openTab} className="sticky top-0 z-10 bg-paper" />
+              <div {...tabPanelProps(TABS_ID, 'design', tab)}>
+                <DesignForm draft={draft} onChange={setDraft} issues={validation.ok ? [] : validation.issues} presets={PRESETS} onStartFrom={startFrom} />
+              </div>
+              <div {...tabPanelProps(TABS_ID, 'table', tab)}>
+                <FretTablePanel layout={settledLayout} design={settledDesign} boardId={board && autosave.state.status === 'saved' ? board.id : null} />
+              </div>
+              <div {...tabPanelProps(TABS_ID, 'exports', tab)}>
+                {mounted.has('exports') && (
+                  <div className="space-y-2">
+                    {!validation.ok && (
+                      <p className="rounded border border-caution bg-caution-light p-2 text-sm" role="status">
+                        The form has errors: these exports are of the last valid layout, not what the form shows.
+                      </p>
+                    )}
+                    <Suspense fallback={<p className="text-sm" role="status">Loading the exports…</p>}>
+                      <ExportPanel design={design} board={board ? { ...board, ready: autosave.state.status === 'saved' } : null} />
+                    </Suspense>
+                  </div>
+                )}
+              </div>
+              {board && (
+                <div {...tabPanelProps(TABS_ID, 'history', tab)}>
+                  {mounted.has('history') && (
+                    <RevisionHistory
+                      boardId={board.id}
+                      version={autosave.state.version}
+                      currentRevision={board.currentRevision}
+                      workingRevision={board.workingRevision}
+                      unsavedEdits={autosave.state.status !== 'saved'}
+                      onRestored={showBoard}
+                      onRevisionSaved={(saved) => setBoard(openBoard(saved))}
+                    />
                   )}
-                  <Suspense fallback={<p className="text-sm" role="status">Loading the exports…</p>}>
-                    <ExportPanel design={design} board={board ? { ...board, ready: autosave.state.status === 'saved' } : null} />
-                  </Suspense>
                 </div>
               )}
-            </div>
-          </section>
-        </div>
+              {board && (
+                <div {...tabPanelProps(TABS_ID, 'proofs', tab)}>
+                  {mounted.has('proofs') && (
+                    <Suspense fallback={<p className="text-sm" role="status">Loading the proofs…</p>}>
+                      <ProofPanel designId={board.id} />
+                    </Suspense>
+                  )}
+                </div>
+              )}
+            </>
+          ) : (
+            <FretTablePanel layout={settledLayout} design={settledDesign} downloads={!embedded} />
+          )}
+        </section>
       </div>
     </div>
-  );
-}
-
-function TabButton({ id, selected, onSelect, children }: { id: Tab; selected: boolean; onSelect: () => void; children: ReactNode }) {
-  return (
-    <button
-      type="button"
-      role="tab"
-      id={`tab-${id}`}
-      aria-selected={selected}
-      aria-controls={`panel-${id}`}
-      onClick={onSelect}
-      className={`-mb-px rounded-t border px-3 py-1 text-sm ${selected ? 'border-paper-line border-b-white bg-white font-semibold' : 'border-transparent text-ink-soft'}`}
-    >
-      {children}
-    </button>
   );
 }

@@ -68,7 +68,7 @@ function ProofRow({ proof, onRevoke }: { proof: ProofSummary; onRevoke: (id: num
             {proof.decision.comment && <p className="whitespace-pre-line text-sm text-ink-soft">{proof.decision.comment}</p>}
           </>
         ) : (
-          <span className="text-ink-faint">none yet</span>
+          <span className="text-ink-soft">none yet</span>
         )}
         {proof.revokedAt && <p className="text-sm text-ink-soft">Link revoked on {day(proof.revokedAt)}</p>}
       </td>
@@ -182,7 +182,7 @@ export default function ProofPanel({ designId }: Props) {
       ) : proofs.length === 0 ? (
         <p className="text-ink-soft">No proofs sent for this design yet.</p>
       ) : (
-        <div className="overflow-x-auto rounded border border-paper-line bg-white">
+        <div className="relative overflow-x-auto rounded border border-paper-line bg-white">
           <table className="w-full text-left text-sm" aria-label="Proofs of this design">
             <thead className="bg-paper-shade">
               <tr>

@@ -24,7 +24,7 @@ export const LAST_RESULT_LABELS: Record<(typeof LAST_RESULT_FILTERS)[number], st
 
 /** The last Template check's date and result, in words (not colour alone). */
 export function LastCheck({ template }: { template: Pick<TemplateView, 'lastCheckedOn' | 'lastCheckPassed'> }) {
-  if (!template.lastCheckedOn) return <span className="text-ink-faint">Not checked</span>;
+  if (!template.lastCheckedOn) return <span className="text-ink-soft">Not checked</span>;
   const passed = template.lastCheckPassed === true;
   return (
     <span>

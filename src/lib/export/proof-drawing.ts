@@ -1,6 +1,6 @@
 import { formatLength } from '~/lib/format/units.ts';
 import type { Layout, Segment } from '~/lib/geometry/layout.ts';
-import { boardPicture, partsOn, pictureBounds, type LineRole, type PictureLayer } from '~/lib/picture/board-picture.ts';
+import { boardPicture, fretNumbersApart, MONO_ADVANCE_EM, partsOn, pictureBounds, type LineRole, type PictureLayer } from '~/lib/picture/board-picture.ts';
 
 /**
  * A read-only drawing of a computed layout for the proof page, as plain data an SVG template
@@ -40,7 +40,17 @@ export interface ProofDrawing {
   dots: { x: number; y: number; r: number; side: boolean }[];
   /** A thin stroke that reads at any zoom, in design units. */
   stroke: number;
+  /** Size of the fret numbers, in design units. */
+  fontSize: number;
+  /**
+   * The fret numbers to print, in display coordinates (y flipped; `y` is the baseline of text
+   * centred on `x`), thinned by the picture's one rule where they would overprint.
+   */
+  numbers: { fret: number; text: string; x: number; y: number }[];
 }
+
+/** Fret numbers are this fraction of the drawing's width. */
+const FONT_PER_WIDTH = 1 / 140;
 
 function line(segment: Segment): DrawingLine {
   return { x1: segment.start.x, y1: segment.start.y, x2: segment.end.x, y2: segment.end.y };
@@ -66,6 +76,8 @@ export function proofDrawing(layout: Layout): ProofDrawing {
   const height = box.maxY - box.minY + 2 * margin;
   const lines = (layer: PictureLayer, role: LineRole) => partsOn(picture, layer, 'line').filter((part) => part.role === role);
   const only = (layer: PictureLayer, role: LineRole) => line(lines(layer, role)[0]!.segment);
+  const fontSize = width * FONT_PER_WIDTH;
+  const numbers = lines('frets', 'fret').map((part) => ({ fret: part.fret!, text: String(part.fret), x: part.segment.start.x, y: -part.segment.start.y + fontSize * 1.3 }));
   return {
     viewBox: `${box.minX - margin} ${-(box.maxY + margin)} ${width} ${height}`,
     width,
@@ -81,5 +93,12 @@ export function proofDrawing(layout: Layout): ProofDrawing {
       partsOn(picture, layer, 'circle').map((dot) => ({ x: dot.centre.x, y: dot.centre.y, r: dot.diameter / 2, side: layer === 'side-dots' })),
     ),
     stroke: width / 1500,
+    fontSize,
+    numbers: fretNumbersApart(numbers, (n) => ({
+      minX: n.x - (n.text.length * MONO_ADVANCE_EM * fontSize) / 2,
+      maxX: n.x + (n.text.length * MONO_ADVANCE_EM * fontSize) / 2,
+      minY: n.y - fontSize,
+      maxY: n.y,
+    })),
   };
 }

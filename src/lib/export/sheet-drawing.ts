@@ -7,7 +7,7 @@ import { formatLength, toMm } from '~/lib/format/units.ts';
 import type { Layout, Point, Segment } from '~/lib/geometry/layout.ts';
 import { distance, intersectLines } from '~/lib/geometry/plane.ts';
 import { measureLineLabel } from '~/lib/templates/check/measure-lines.ts';
-import { boardPicture, boundsOf, type Box } from '~/lib/picture/board-picture.ts';
+import { boardPicture, boundsOf, fretNumbersApart, MONO_ADVANCE_EM, partsOn, type BoardPicture, type Box } from '~/lib/picture/board-picture.ts';
 import type { ExportOptions } from '~/lib/schemas/export-options.ts';
 import { kerfOutline } from './kerf-outline.ts';
 import { ptToMm } from './paper-sizes.ts';
@@ -39,8 +39,6 @@ export interface SheetDrawing {
 /** Fret numbers sit this far beyond the treble edge (mm). */
 const LABEL_OFFSET_MM = 4;
 const LABEL_SIZE_PT = 7;
-/** JetBrains Mono advances 0.6 em per character. */
-const MONO_ADVANCE_EM = 0.6;
 
 /** How far the saddle marks run past the board end along the outer strings (mm). */
 const SADDLE_MARK_MM = 12;
@@ -63,15 +61,16 @@ export function sheetDrawing(
   const slotWidthMm = toMm(layout.slotWidth, layout.units);
   const items: SheetItem[] = [];
   for (const part of picture.parts) {
+    if (part.kind === 'text') continue; // fret numbers: below, thinned where they would crowd
     if (part.kind === 'polygon') items.push({ kind: 'polygon', style: 'outline', points: part.points.map(sheet) });
     else if (part.kind === 'circle') items.push({ kind: 'circle', style: 'marker', dot: part.layer === 'face-dots' ? 'face' : 'side', centre: sheet(part.centre), radiusMm: toMm(part.diameter, layout.units) / 2 });
-    else if (part.kind === 'text') items.push(fretNumber(part.text, sheet(part.at), sheet(part.away)));
     else if (part.role === 'slot') {
       if (options.kerf) items.push({ kind: 'polygon', style: 'kerf', points: kerfOutline({ start: sheet(part.segment.start), end: sheet(part.segment.end) }, slotWidthMm) });
     } else if (part.role !== 'string' || options.strings) {
       items.push({ kind: 'line', style: part.role, start: sheet(part.segment.start), end: sheet(part.segment.end), ...(part.fret === undefined ? {} : { fret: part.fret }) });
     }
   }
+  items.push(...fretNumbers(picture, sheet));
   if (!options.toSaddle) items.push(...saddleMarks(layout, sheet));
   items.push(...stringNumbers(layout, sheet), ...sideNames(layout, sheet));
   items.push(endLabel('nut', sheet(layout.nutLine.end), sheet(layout.nutLine.start)));
@@ -138,8 +137,20 @@ function sideNames(layout: Layout, sheet: (p: Point) => Point): SheetItem[] {
   ];
 }
 
+/** The fret numbers, thinned by the picture's one rule where they would overprint at 1:1. */
+function fretNumbers(picture: BoardPicture, sheet: (p: Point) => Point): SheetItem[] {
+  const labels = partsOn(picture, 'labels', 'text').map((part) => ({ fret: part.fret, item: fretNumber(part.text, sheet(part.at), sheet(part.away)) }));
+  return fretNumbersApart(labels, (label) => labelBox(label.item)).map((label) => label.item);
+}
+
+/** A label's printed box in sheet mm. */
+function labelBox(label: { text: string; centre: Point; sizePt: number }): Box {
+  const half = { x: labelHalfWidthMm(label.text, label.sizePt), y: ptToMm(label.sizePt) / 2 };
+  return { minX: label.centre.x - half.x, maxX: label.centre.x + half.x, minY: label.centre.y - half.y, maxY: label.centre.y + half.y };
+}
+
 /** Fret number beyond the treble end of the fret line; `away` is the picture's direction in board units. */
-function fretNumber(text: string, treble: Point, away: Point): SheetItem {
+function fretNumber(text: string, treble: Point, away: Point): Extract<SheetItem, { kind: 'label' }> {
   const origin = { x: treble.x - away.x, y: treble.y - away.y };
   return { kind: 'label', text, centre: beyond(treble, origin, LABEL_OFFSET_MM), sizePt: LABEL_SIZE_PT };
 }

@@ -61,6 +61,9 @@ export interface PictureOptions {
   to?: 'saddle' | 'board-end';
 }
 
+/** JetBrains Mono, the shipped font for numbers, advances 0.6 em per character. */
+export const MONO_ADVANCE_EM = 0.6;
+
 /** Nut or saddle lines count as the same line (not compensated) within this distance (mm). */
 const SAME_LINE_MM = 1e-6;
 
@@ -159,6 +162,29 @@ export function boundsOf(points: Iterable<Point>): Box {
 
 export function pictureBounds(picture: BoardPicture, layers: readonly PictureLayer[] = PICTURE_LAYERS): Box {
   return boundsOf(picture.parts.filter((part) => layers.includes(part.layer)).flatMap(partExtent));
+}
+
+/** Whether two boxes share any area (touching edges do not count). */
+export function boxesOverlap(a: Box, b: Box): boolean {
+  return a.minX < b.maxX && b.minX < a.maxX && a.minY < b.maxY && b.minY < a.maxY;
+}
+
+/**
+ * The one rule for crowded fret numbers, on every surface: the labels whose boxes (in the
+ * surface's own units, from `boxOf`) touch no other label kept. The octaves (12, 24, 36) are kept
+ * first, then the frets from the nut up, so as frets close in toward the body the numbers thin
+ * out (13, 15, 17 ...) rather than overprint. Returns the kept labels in their given order.
+ */
+export function fretNumbersApart<T extends { fret: number }>(labels: readonly T[], boxOf: (label: T) => Box): T[] {
+  const octave = (label: T) => label.fret > 0 && label.fret % 12 === 0;
+  const byPriority = [...labels].sort((a, b) => Number(octave(b)) - Number(octave(a)) || a.fret - b.fret);
+  const kept: { label: T; box: Box }[] = [];
+  for (const label of byPriority) {
+    const box = boxOf(label);
+    if (!kept.some((other) => boxesOverlap(other.box, box))) kept.push({ label, box });
+  }
+  const keep = new Set(kept.map((k) => k.label));
+  return labels.filter((label) => keep.has(label));
 }
 
 function unitFrom(from: Point, to: Point): Point {
