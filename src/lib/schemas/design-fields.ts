@@ -108,6 +108,8 @@ export const DESIGN_FIELDS = [
     label: 'The board end runs',
     help: 'The direction of the cut across the board end.',
   },
+  { path: 'radius.nut', kind: 'length', sign: 'nonNegative', defaultMm: 0, maxMm: LONGEST_MM, group: 'Board', label: 'Board radius at the nut (0 = flat)', help: 'The top’s radius square to the centre line at the nut; common radii run 184–508 mm (7.25–20 in).' },
+  { path: 'radius.end', kind: 'length', sign: 'nonNegative', defaultMm: 0, maxMm: LONGEST_MM, group: 'Board', label: 'Board radius at the last fret (0 = as at the nut)', help: 'Larger than at the nut for a compound (conical) board; the radius changes evenly along the board.' },
   { path: 'faceDotDiameter', kind: 'length', sign: 'positive', defaultMm: 6, maxMm: 50, group: 'Board', label: 'Face dot diameter', help: 'Diameter of each face dot inlay; every drawing and export draws the dots this size.' },
   { path: 'sideDotDiameter', kind: 'length', sign: 'positive', defaultMm: 2, maxMm: 20, group: 'Board', label: 'Side dot diameter', help: 'Diameter of each side dot on the bass edge; every drawing and export draws the dots this size.' },
   { path: 'slot.width', kind: 'length', sign: 'positive', defaultMm: 0.6, maxMm: 10, group: 'Slots', label: 'Slot width (kerf)', help: 'The width the saw or cutter leaves.' },
