@@ -229,6 +229,8 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
 
       <Group title="Slots">{rowsOf('Slots')}</Group>
 
+      <Group title="Fret wire">{rowsOf('Fret wire')}</Group>
+
       <Group title="Compensation">{rowsOf('Compensation')}</Group>
 
       <Group title="Markers">
