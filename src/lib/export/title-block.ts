@@ -6,6 +6,7 @@ import { scaleConventionWords } from '~/lib/format/design-specs.ts';
 import { formatLength } from '~/lib/format/units.ts';
 import { parseScl } from '~/lib/geometry/scala.ts';
 import type { Design } from '~/lib/schemas/design.ts';
+import type { FretWire } from '~/lib/schemas/fret-wire.ts';
 import type { ExportOptions } from '~/lib/schemas/export-options.ts';
 
 /** Where an export comes from; a saved design passes its revision and shop. */
@@ -14,6 +15,8 @@ export interface ExportContext {
   shopName?: string | null;
   /** Defaults to now. */
   date?: Date;
+  /** The board's fret wire from the shop's list (cut list and cut sheet); absent = none known. */
+  wire?: FretWire | null;
 }
 
 export function titleBlockLines(design: Design, options: Pick<ExportOptions, 'mirror'>, context: ExportContext): string[] {
