@@ -7,11 +7,12 @@ import { attachmentHeader, exportFileName } from '~/lib/export/file-name.ts';
 import { invalid } from '~/lib/http/problem.ts';
 import { answerOrServerError } from '~/lib/http/server-error.server.ts';
 import { validateExportOptions } from '~/lib/schemas/export-options.ts';
+import { boardWire } from '~/lib/wire/board-wire.server.ts';
 
 export const prerender = false;
 
 /**
- * GET /api/designs/{id}/export?format=pdf|dxf|svg|csv|json&revision=N&…options: a saved board as
+ * GET /api/designs/{id}/export?format=pdf|dxf|svg|csv|json|gcode|cutlist|cutsheet&revision=N&…options: a saved board as
  * a download, from its current revision unless `revision` names another. pdf (paper template),
  * dxf and svg (slot paths) and csv (fret table) take the export options (paper, slots, …);
  * json is the board file that Boards imports. Caps and the worker pool as for POST /api/export.
@@ -33,5 +34,7 @@ export const GET: APIRoute = ({ locals, params, url, request }) => answerOrServe
       },
     });
   }
-  return designExportResponse(storedDesign(board.design), options.options, { revision: board.revision, shopName: await shopName(user.shopId) }, request.signal);
+  const design = storedDesign(board.design);
+  const context = { revision: board.revision, shopName: await shopName(user.shopId), wire: await boardWire(user, design) };
+  return designExportResponse(design, options.options, context, request.signal);
 });
