@@ -135,19 +135,29 @@ function slotLine(surface: BoardSurface, slot: Segment, edgeToEdge: Segment, acr
   }
   breaks.sort((a, b) => a - b);
   const ts: number[] = [0];
-  for (let i = 1; i < breaks.length; i++) split(top, breaks[i - 1]!, breaks[i]!, tolerance, 0, ts);
+  for (let i = 1; i < breaks.length; i++) {
+    const a = breaks[i - 1]!;
+    const b = breaks[i]!;
+    split(top, a, b, top(a), top((a + b) / 2), top(b), tolerance, 0, ts);
+  }
   return ts.map((t) => ({ ...at(t), top: top(t) }));
 }
 
-/** Appends the inner points of [a, b] and b, splitting where the chord leaves the curve by more than `tolerance`. */
-function split(z: (t: number) => number, a: number, b: number, tolerance: number, depth: number, out: number[]): void {
-  const za = z(a);
-  const zb = z(b);
-  const off = (f: number) => Math.abs(z(a + (b - a) * f) - (za + (zb - za) * f));
-  if (depth < MAX_SPLIT_DEPTH && Math.max(off(0.25), off(0.5), off(0.75)) > tolerance) {
+/**
+ * Appends the inner points of [a, b] and b, splitting where the chord leaves the curve by more
+ * than `tolerance` at a quarter, the middle or three quarters. `za`, `zm`, `zb` are z at a, the
+ * middle and b, so each split evaluates z only at the two new quarter points.
+ */
+function split(z: (t: number) => number, a: number, b: number, za: number, zm: number, zb: number, tolerance: number, depth: number, out: number[]): void {
+  const q1 = a + (b - a) * 0.25;
+  const q3 = a + (b - a) * 0.75;
+  const z1 = z(q1);
+  const z3 = z(q3);
+  const off = Math.max(Math.abs(z1 - (za * 0.75 + zb * 0.25)), Math.abs(zm - (za + zb) / 2), Math.abs(z3 - (za * 0.25 + zb * 0.75)));
+  if (depth < MAX_SPLIT_DEPTH && off > tolerance) {
     const mid = (a + b) / 2;
-    split(z, a, mid, tolerance, depth + 1, out);
-    split(z, mid, b, tolerance, depth + 1, out);
+    split(z, a, mid, za, z1, zm, tolerance, depth + 1, out);
+    split(z, mid, b, zm, z3, zb, tolerance, depth + 1, out);
     return;
   }
   out.push(b);

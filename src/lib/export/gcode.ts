@@ -51,18 +51,26 @@ export function gcodeText(plan: ToolpathPlan, header: GcodeHeader): string {
     'G4 P2',
   ];
   let fret: number | null = null;
+  // F is modal: written only when the feed changes (a plunge after cuts, cuts after a plunge).
+  let feed: number | null = null;
   for (const move of plan.moves) {
     if (move.fret !== fret) {
       fret = move.fret;
       lines.push(`(fret ${fret === 0 ? '0, zero fret' : fret})`);
     }
-    lines.push(moveLine(move, plan, n));
+    const rate = move.kind === 'cut' ? s.feed : move.kind === 'plunge' ? s.plungeFeed : null;
+    const line = moveLine(move, n);
+    if (rate === null || rate === feed) lines.push(line);
+    else {
+      lines.push(`${line} F${n(rate)}`);
+      feed = rate;
+    }
   }
   lines.push(`G0 Z${n(plan.start.z)}`, 'M5', 'M2');
   return `${lines.join('\n')}\n`;
 }
 
-function moveLine(move: ToolMove, plan: ToolpathPlan, n: (value: number) => string): string {
+function moveLine(move: ToolMove, n: (value: number) => string): string {
   const { x, y, z } = move.to;
   switch (move.kind) {
     case 'rapid':
@@ -70,15 +78,15 @@ function moveLine(move: ToolMove, plan: ToolpathPlan, n: (value: number) => stri
     case 'retract':
       return `G0 Z${n(z)}`;
     case 'plunge':
-      return `G1 X${n(x)} Y${n(y)} Z${n(z)} F${n(plan.settings.plungeFeed)}`;
     case 'cut':
-      return `G1 X${n(x)} Y${n(y)} Z${n(z)} F${n(plan.settings.feed)}`;
+      return `G1 X${n(x)} Y${n(y)} Z${n(z)}`;
   }
 }
 
 function number(value: number, units: LengthUnit): string {
   const text = value.toFixed(DECIMALS[units]);
-  return /^-0\.0*$/.test(text) ? text.slice(1) : text;
+  // "-0.0000" is written "0.0000".
+  return text.charCodeAt(0) === 45 && Number(text) === 0 ? text.slice(1) : text;
 }
 
 /** Comment lines: plain ASCII, no parentheses inside, wrapped to COMMENT_WIDTH. */

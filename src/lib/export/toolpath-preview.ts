@@ -26,6 +26,12 @@ export interface ToolpathPreview {
   moves: number;
 }
 
+/** Shades of the depth ramp. */
+const DEPTH_STEPS = 8;
+
+/** Screen precision: 0.01 of the design's unit is far below a pixel of the preview. */
+const short = (value: number) => Math.round(value * 100) / 100;
+
 /** Depth ramp: light wood to dark rosewood (the palette's rosewood at 1). */
 export function depthColour(depth: number): string {
   const mix = (from: number, to: number) => Math.round(from + (to - from) * depth);
@@ -38,16 +44,22 @@ export function toolpathPreview(plan: ToolpathPlan, layout: Layout): ToolpathPre
   const zMin = Math.min(...cuts.map((m) => m.to.z));
   const zMax = Math.max(...cuts.map((m) => m.to.z));
   const span = zMax - zMin || 1;
-  const paths: PreviewPath[] = [];
+  // Cuts are grouped into DEPTH_STEPS paths by depth, so the panel draws a few elements, not thousands.
+  const cutPaths = Array.from({ length: DEPTH_STEPS }, () => '');
   let from = plan.start;
   let rapid = '';
   for (const move of plan.moves) {
-    const segment = `M${from.x} ${from.y}L${move.to.x} ${move.to.y}`;
-    if (move.kind === 'cut') paths.push({ kind: 'cut', d: segment, depth: (zMax - (from.z + move.to.z) / 2) / span });
-    else if (move.to.x !== from.x || move.to.y !== from.y) rapid += segment;
+    const segment = `M${short(from.x)} ${short(from.y)}L${short(move.to.x)} ${short(move.to.y)}`;
+    if (move.kind === 'cut') {
+      const step = Math.min(DEPTH_STEPS - 1, Math.floor(((zMax - (from.z + move.to.z) / 2) / span) * DEPTH_STEPS));
+      cutPaths[step] += segment;
+    } else if (move.to.x !== from.x || move.to.y !== from.y) rapid += segment;
     from = move.to;
   }
-  paths.unshift({ kind: 'rapid', d: rapid, depth: 0 });
+  const paths: PreviewPath[] = [
+    { kind: 'rapid', d: rapid, depth: 0 },
+    ...cutPaths.flatMap((d, step) => (d === '' ? [] : [{ kind: 'cut' as const, d, depth: step / (DEPTH_STEPS - 1) }])),
+  ];
   const xs = outline.map((p) => p.x);
   const ys = outline.map((p) => p.y);
   return {

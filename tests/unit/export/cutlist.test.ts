@@ -56,7 +56,7 @@ describe('the cut list', () => {
   });
 
   it('checks the wire: slot width between tang and barbs, depth at least tang + 0.3 mm, wood under the slots', () => {
-    const good = designOf({ slot: { width: 0.6, depth: 2 }, thickness: 6.5, radius: { nut: 254 } });
+    const good = designOf({ slot: { width: 0.6, depth: 2 }, thickness: 8, radius: { nut: 254 } });
     const checks = cutList(good, computeLayout(good), wire)!.wire!.checks;
     expect(checks.map((c) => [c.check, c.ok])).toEqual([['slot-width', true], ['slot-depth', true], ['wood-under-slot', true]]);
     const bad = designOf({ slot: { width: 0.5, depth: 1.6 }, thickness: 4, radius: { nut: 184.15 } });
