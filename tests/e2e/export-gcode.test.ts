@@ -40,6 +40,13 @@ describe('Export panel: slot toolpath (Chromium, built server)', () => {
     expect(shades).toBeLessThanOrEqual(8);
     expect(await preview.locator('[data-kind="rapid"]').count()).toBe(1);
 
+    // The cut list table: one row per fret plus the total; a visitor has no shop wire list.
+    const cutList = page.getByRole('table', { name: /Cut list/ });
+    await expect(cutList.getByRole('row').count()).resolves.toBe(1 + 24 + 1);
+    await page.getByText("Sign in as a shop member to use the shop's fret wire list.").waitFor();
+    await page.getByLabel('Wire stock length (mm)').fill('610');
+    await page.getByTestId('stock-count').getByText(/^3 stock pieces of 610\.00 mm/).waitFor();
+
     const button = page.getByRole('button', { name: 'Download Slot toolpath (G-code)' });
     await button.focus();
     const [download] = await Promise.all([page.waitForEvent('download'), page.keyboard.press('Enter')]);
