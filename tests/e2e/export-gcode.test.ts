@@ -40,10 +40,10 @@ describe('Export panel: slot toolpath (Chromium, built server)', () => {
     expect(shades).toBeLessThanOrEqual(8);
     expect(await preview.locator('[data-kind="rapid"]').count()).toBe(1);
 
-    // The cut list table: one row per fret plus the total; a visitor has no shop wire list.
+    // The cut list table: one row per fret plus the total; the demo fan names no fret wire.
     const cutList = page.getByRole('table', { name: /Cut list/ });
     await expect(cutList.getByRole('row').count()).resolves.toBe(1 + 24 + 1);
-    await page.getByText("Sign in as a shop member to use the shop's fret wire list.").waitFor();
+    await page.getByText('No fret wire chosen for this board (Layout, "Fret wire").').waitFor();
     await page.getByLabel('Wire stock length (mm)').fill('610');
     await page.getByTestId('stock-count').getByText(/^3 stock pieces of 610\.00 mm/).waitFor();
 
