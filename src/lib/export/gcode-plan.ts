@@ -86,16 +86,20 @@ export function planToolpath(design: Design, layout: Layout, settings: GcodeSett
   for (const fret of fretsWithZero(layout)) {
     for (const across of offsets) {
       const path = slotLine(surface, fret.slot, fret.line, across, settings.chordTolerance);
+      const last = path.length - 1;
       depths.forEach((depth, pass) => {
-        const points = pass % 2 === 0 ? path : [...path].reverse();
-        const machine = points.map((p) => ({ x: p.x + offset.x, y: p.y + offset.y, z: p.top + zShift - depth + lift }));
-        const first = machine[0]!;
+        // Odd passes run back the way the last one came.
+        const at = (i: number): Point3 => {
+          const p = path[pass % 2 === 0 ? i : last - i]!;
+          return { x: p.x + offset.x, y: p.y + offset.y, z: p.top + zShift - depth + lift };
+        };
+        const first = at(0);
         if (pass === 0) moves.push({ kind: 'rapid', to: { x: first.x, y: first.y, z: safe }, fret: fret.number });
         moves.push({ kind: 'plunge', to: first, fret: fret.number });
-        for (const to of machine.slice(1)) moves.push({ kind: 'cut', to, fret: fret.number });
+        for (let i = 1; i <= last; i++) moves.push({ kind: 'cut', to: at(i), fret: fret.number });
       });
-      const last = moves[moves.length - 1]!.to;
-      moves.push({ kind: 'retract', to: { x: last.x, y: last.y, z: safe }, fret: fret.number });
+      const end = moves[moves.length - 1]!.to;
+      moves.push({ kind: 'retract', to: { x: end.x, y: end.y, z: safe }, fret: fret.number });
     }
     slots.push({ fret: fret.number, passes: depths.length, lines: offsets.length });
   }
@@ -135,20 +139,24 @@ function slotLine(surface: BoardSurface, slot: Segment, edgeToEdge: Segment, acr
   }
   breaks.sort((a, b) => a - b);
   const ts: number[] = [0];
+  const tops: number[] = [top(0)];
   for (let i = 1; i < breaks.length; i++) {
     const a = breaks[i - 1]!;
     const b = breaks[i]!;
-    split(top, a, b, top(a), top((a + b) / 2), top(b), tolerance, 0, ts);
+    split(top, a, b, tops[tops.length - 1]!, top((a + b) / 2), top(b), tolerance, 0, ts, tops);
   }
-  return ts.map((t) => ({ ...at(t), top: top(t) }));
+  return ts.map((t, i) => {
+    const p = at(t);
+    return { x: p.x, y: p.y, top: tops[i]! };
+  });
 }
 
 /**
- * Appends the inner points of [a, b] and b, splitting where the chord leaves the curve by more
- * than `tolerance` at a quarter, the middle or three quarters. `za`, `zm`, `zb` are z at a, the
- * middle and b, so each split evaluates z only at the two new quarter points.
+ * Appends the inner points of [a, b] and b to `out` (their z to `zs`), splitting where the chord
+ * leaves the curve by more than `tolerance` at a quarter, the middle or three quarters. `za`,
+ * `zm`, `zb` are z at a, the middle and b, so each split evaluates z only at the two new quarters.
  */
-function split(z: (t: number) => number, a: number, b: number, za: number, zm: number, zb: number, tolerance: number, depth: number, out: number[]): void {
+function split(z: (t: number) => number, a: number, b: number, za: number, zm: number, zb: number, tolerance: number, depth: number, out: number[], zs: number[]): void {
   const q1 = a + (b - a) * 0.25;
   const q3 = a + (b - a) * 0.75;
   const z1 = z(q1);
@@ -156,11 +164,12 @@ function split(z: (t: number) => number, a: number, b: number, za: number, zm: n
   const off = Math.max(Math.abs(z1 - (za * 0.75 + zb * 0.25)), Math.abs(zm - (za + zb) / 2), Math.abs(z3 - (za * 0.25 + zb * 0.75)));
   if (depth < MAX_SPLIT_DEPTH && off > tolerance) {
     const mid = (a + b) / 2;
-    split(z, a, mid, za, z1, zm, tolerance, depth + 1, out);
-    split(z, mid, b, zm, z3, zb, tolerance, depth + 1, out);
+    split(z, a, mid, za, z1, zm, tolerance, depth + 1, out, zs);
+    split(z, mid, b, zm, z3, zb, tolerance, depth + 1, out, zs);
     return;
   }
   out.push(b);
+  zs.push(zb);
 }
 
 /** Run time from the plan's lengths and feeds, minutes (acceleration ignored: a lower bound). */
