@@ -6,7 +6,7 @@
  */
 import { eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { designs, proofs, shops, templates, users } from '~/lib/db/schema.ts';
+import { designs, fretWires, proofs, shops, templates, users } from '~/lib/db/schema.ts';
 import { DEMO_SHOP_NAME } from '~/lib/db/seed/demo-shop.server.ts';
 import { ROUTE_CASES } from '../route-matrix/index.ts';
 import type { MatrixIds, RouteCase } from '../route-matrix/types.ts';
@@ -52,7 +52,8 @@ beforeAll(async () => {
   const [builder] = await db().select({ id: users.id }).from(users).where(eq(users.email, 'builder@wrenfield.example'));
   const designId = await ensureDesign(demoShop!.id, builder!.id, 'Seven-string', 'seven-string-fan');
   demoRows = await shopRows(demoShop!.id, builder!.id, 'client@wrenfield.example', 'Cross-shop board', designId);
-  ids = { designId, templateId: demoRows.templateId, proofToken: demoRows.proofToken, demoBuilderId: builder!.id };
+  const [wire] = await db().select({ id: fretWires.id }).from(fretWires).where(eq(fretWires.shopId, demoShop!.id)).limit(1);
+  ids = { designId, templateId: demoRows.templateId, wireId: wire!.id, proofToken: demoRows.proofToken, demoBuilderId: builder!.id };
   otherOwner = await newShopUser('owner', 'Cross-shop visitor shop');
   secrets = await demoShopTexts(demoShop!.id);
 });

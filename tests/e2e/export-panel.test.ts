@@ -54,7 +54,7 @@ describe('Export a design page in Chromium (built server)', () => {
 });
 
 describe('Export panel messages next to the download buttons (Chromium, built server)', () => {
-  const largest = { ...sevenStringFan, name: 'Largest board', strings: 16, frets: 36, scale: { treble: 5000, bass: 5000 }, perpendicularFret: 0, stringSpacing: { nut: 5000, bridge: 5000 }, markers: [] };
+  const largest = { ...sevenStringFan, name: 'Largest board', strings: 16, frets: 36, scale: { treble: 5000, bass: 5000 }, perpendicularFret: 0, stringSpacing: { nut: 5000, bridge: 5000 }, radius: { nut: 0 }, markers: [] };
   const problem = (status: number, body: unknown, headers: Record<string, string> = {}) => ({
     status,
     headers: { 'content-type': 'application/json; charset=utf-8', ...headers },

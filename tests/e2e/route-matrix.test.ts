@@ -7,7 +7,7 @@ import { join, relative } from 'node:path';
 import { asc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { newToken, sha256Hex } from '~/lib/auth/index.server.ts';
-import { proofs, shops, templates, users } from '~/lib/db/schema.ts';
+import { fretWires, proofs, shops, templates, users } from '~/lib/db/schema.ts';
 import { DEMO_SHOP_NAME } from '~/lib/db/seed/demo-shop.server.ts';
 import { ROUTE_CASES } from '../route-matrix/index.ts';
 import type { Actor, MatrixIds, RouteCase } from '../route-matrix/types.ts';
@@ -47,7 +47,8 @@ async function resolveIds(): Promise<MatrixIds> {
     expiresAt: new Date(Date.now() + 86_400_000),
     createdBy: builder!.id,
   });
-  return { designId, templateId: template?.id ?? MISSING_ID, proofToken, demoBuilderId: builder!.id };
+  const [wire] = await db().select({ id: fretWires.id }).from(fretWires).where(eq(fretWires.shopId, shop.id)).orderBy(asc(fretWires.id)).limit(1);
+  return { designId, templateId: template?.id ?? MISSING_ID, wireId: wire?.id ?? MISSING_ID, proofToken, demoBuilderId: builder!.id };
 }
 
 /** A fresh session per request, since some routes (sign-out) end every session of the user. */

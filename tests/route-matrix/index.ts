@@ -1,6 +1,7 @@
 import { ACCOUNT_ROUTES } from './accounts.ts';
 import { BOARDS_ROUTES } from './boards.ts';
 import { EXPORT_ROUTES } from './exports.ts';
+import { FRET_WIRE_ROUTES } from './fret-wire.ts';
 import { PROOF_ROUTES } from './proof.ts';
 import { SITE_ROUTES } from './site.ts';
 import { TEMPLATE_ROUTES } from './templates.ts';
@@ -14,4 +15,5 @@ export const ROUTE_CASES: readonly RouteCase[] = [
   ...PROOF_ROUTES,
   ...TEMPLATE_ROUTES,
   ...BOARDS_ROUTES,
+  ...FRET_WIRE_ROUTES,
 ];

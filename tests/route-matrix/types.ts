@@ -10,6 +10,8 @@ export type Actor = 'anonymous' | 'client' | 'builder' | 'owner' | 'otherOwner';
 export interface MatrixIds {
   designId: number;
   templateId: number;
+  /** The demo shop's first seeded fret wire. */
+  wireId: number;
   proofToken: string;
   /** The demo shop's Builder (builder@wrenfield.example). */
   demoBuilderId: string;

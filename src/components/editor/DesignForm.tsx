@@ -22,6 +22,7 @@ import {
   type LengthField,
   type NumberField,
 } from './design-draft.ts';
+import { RadiusPicks } from './RadiusPicks.tsx';
 import { ScaleConventionFigure } from './ScaleConventionFigure.tsx';
 import { ScalaUpload } from './ScalaUpload.tsx';
 
@@ -94,7 +95,7 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
     switch (field.kind) {
       case 'length': {
         const path: LengthField = field.path;
-        return (
+        const input = (
           <TextField
             key={path}
             path={path}
@@ -109,6 +110,14 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
               onChange((d) => ({ ...d, lengths: { ...d.lengths, [path]: typedLength(text) } }));
             }}
           />
+        );
+        // The quick picks sit under the last radius field.
+        if (path !== 'radius.end') return input;
+        return (
+          <div key={path} className="space-y-2">
+            {input}
+            <RadiusPicks units={units} onPick={(pick, text) => onChange((d) => ({ ...d, lengths: { ...d.lengths, [pick]: typedLength(text) } }))} />
+          </div>
         );
       }
       case 'flag': {
@@ -228,6 +237,8 @@ export function DesignForm({ draft, onChange, issues, presets, onStartFrom }: De
       </Group>
 
       <Group title="Slots">{rowsOf('Slots')}</Group>
+
+      <Group title="Fret wire">{rowsOf('Fret wire')}</Group>
 
       <Group title="Compensation">{rowsOf('Compensation')}</Group>
 

@@ -1,6 +1,7 @@
 /**
- * The Export panel: options for the paper template and the slot paths, a preview of the page
- * tiling (the same tile-pages module the PDF uses), and downloads: a saved board's from
+ * The Export panel: options for the paper template, the slot paths and the slot toolpath, a
+ * preview of the page tiling (the same tile-pages module the PDF uses) and of the toolpath (the
+ * same plan the G-code is written from), the cut list, and downloads: a saved board's from
  * GET /api/designs/{id}/export (so every file names its revision and fingerprint; unsaved
  * changes become a revision first), an unsaved design's from POST /api/export.
  */
@@ -21,7 +22,9 @@ import {
   validateExportOptions,
   type ExportFormat,
 } from '~/lib/schemas/export-options.ts';
+import { CutListTable } from './CutListTable.tsx';
 import { exportFailureMessage, type ExportProblem } from './export-failure.ts';
+import { GCODE_FIELDS, GcodeFields, type GcodeField } from './GcodeFields.tsx';
 import { TilingPreview } from './TilingPreview.tsx';
 
 interface Props {
@@ -30,7 +33,11 @@ interface Props {
   board?: { id: number; fingerprint: string; approval: { revision: number; fingerprint: string } | null; ready: boolean } | null;
 }
 
-interface FormState {
+interface FormState extends Record<GcodeField, string> {
+  dialect: string;
+  zZero: string;
+  /** Cut list stock length in the design's units; empty = the fret wire's. */
+  stockLength: string;
   paper: string;
   orientation: string;
   overlap: string;
@@ -48,6 +55,9 @@ const DOWNLOADS: { format: ExportFormat; label: string }[] = [
   { format: 'dxf', label: 'Slot paths (DXF)' },
   { format: 'svg', label: 'Slot paths (SVG)' },
   { format: 'csv', label: 'Fret table (CSV)' },
+  { format: 'gcode', label: 'Slot toolpath (G-code)' },
+  { format: 'cutlist', label: 'Cut list (CSV)' },
+  { format: 'cutsheet', label: 'Shop cut sheet (PDF)' },
 ];
 
 const ORIENTATION_LABELS: Record<(typeof ORIENTATIONS)[number], string> = {
@@ -79,11 +89,17 @@ export default function ExportPanel({ design, board = null }: Props) {
     distances: defaults.distances,
     slots: defaults.slots,
     origin: defaults.origin,
+    dialect: defaults.dialect,
+    zZero: defaults.zZero,
+    stockLength: '',
+    ...(Object.fromEntries(GCODE_FIELDS.map((key) => [key, ''])) as Record<GcodeField, string>),
   });
   const [status, setStatus] = useState<Status>({ state: 'idle' });
   const set = <K extends keyof FormState>(key: K, value: FormState[K]) => setForm((f) => ({ ...f, [key]: value }));
 
-  const validation = validateExportOptions({ ...form });
+  // An empty G-code or cut list field means its default.
+  const given = Object.fromEntries(Object.entries(form).filter(([, value]) => value !== ''));
+  const validation = validateExportOptions(given);
   const errors = new Map(validation.ok ? [] : validation.issues.map((i) => [i.path, i.message]));
   const layout = useMemo(() => computeLayout(design), [design]);
   const optionsKey = validation.ok ? JSON.stringify(validation.options) : null;
@@ -101,7 +117,7 @@ export default function ExportPanel({ design, board = null }: Props) {
   async function download(format: ExportFormat) {
     if (!validation.ok) return;
     setStatus({ state: 'busy', format });
-    const query = new URLSearchParams({ ...form, format, strings: String(form.strings), kerf: String(form.kerf), mirror: String(form.mirror), toSaddle: String(form.toSaddle), distances: String(form.distances) });
+    const query = new URLSearchParams({ ...(given as Record<string, string>), format, strings: String(form.strings), kerf: String(form.kerf), mirror: String(form.mirror), toSaddle: String(form.toSaddle), distances: String(form.distances) });
     try {
       const response = board
         ? await fetch(`/api/designs/${board.id}/export?${query}`, { credentials: 'same-origin' })
@@ -256,6 +272,33 @@ export default function ExportPanel({ design, board = null }: Props) {
         </div>
         <OverrunNote design={design} minimumOverrun={layout.minimumOverrun} />
       </fieldset>
+
+      <GcodeFields
+        design={design}
+        layout={layout}
+        values={form}
+        onChange={(key, value) => set(key, value)}
+        errors={errors}
+        options={validation.ok ? validation.options : null}
+      />
+
+      <div className="space-y-2">
+        <div className="flex max-w-xs flex-col gap-1 text-sm">
+          <label htmlFor="export-stockLength">Wire stock length ({design.units})</label>
+          <input
+            id="export-stockLength"
+            className={`${input} font-mono`}
+            inputMode="decimal"
+            value={form.stockLength}
+            placeholder="the fret wire's"
+            onChange={(e) => set('stockLength', e.target.value)}
+            aria-invalid={errors.has('stockLength')}
+            aria-describedby={errors.has('stockLength') ? 'export-stockLength-error' : undefined}
+          />
+          {error('stockLength')}
+        </div>
+        <CutListTable design={design} layout={layout} stockLength={validation.ok ? validation.options.stockLength : undefined} />
+      </div>
 
       <div className="grid gap-4 md:grid-cols-2">
         <div className="space-y-2">

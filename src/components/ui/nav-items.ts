@@ -12,6 +12,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/boards', label: 'Boards', roles: ['owner', 'builder'] },
   { href: '/layout', label: 'Layout' },
   { href: '/templates', label: 'Template shelf', roles: ['owner', 'builder'] },
+  { href: '/fret-wire', label: 'Fret wire', roles: ['owner', 'builder'] },
   { href: '/shared', label: 'Shared with me', roles: ['client'] },
   { href: '/members', label: 'Members', roles: ['owner'] },
   { href: '/safety', label: 'Safety' },

@@ -1,5 +1,6 @@
 import { parseArgs } from 'node:util';
-import { EXPORT_FORMATS, validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options.ts';
+import { EXPORT_FORMATS, GCODE_DIALECTS, Z_ZEROS, validateExportOptions, type ExportOptions } from '~/lib/schemas/export-options.ts';
+import { DEFAULT_SPINDLE_RPM, GCODE_DEFAULTS_MM } from '~/lib/export/gcode-settings.ts';
 import { PAPER_NAMES } from '~/lib/export/paper-sizes.ts';
 import { EDGE_AND_CENTRE_LINES, parseMeasureLine, type MeasureLine } from '~/lib/templates/check/measure-lines.ts';
 
@@ -31,7 +32,8 @@ export const USAGE = [
   '  layout   compute the fret layout of a design file and export it',
   `  --format       ${EXPORT_FORMATS.join(', ')} (default csv): pdf = paper template,`,
   '                 dxf/svg = slot paths, csv = fret table, json = the computed layout',
-  '  --out <file>   write to this file instead of stdout (required for pdf)',
+  '                 gcode = slot toolpath, cutlist = fret wire cut list (CSV), cutsheet = shop cut sheet (PDF)',
+  '  --out <file>   write to this file instead of stdout (required for pdf and cutsheet)',
   '',
   '  Paper template (pdf):',
   `  --paper        ${PAPER_NAMES.join(', ')} (default letter; fit = one sheet sized to the board)`,
@@ -43,7 +45,20 @@ export const USAGE = [
   '  --distances    add a last page of fret distances along the edges and the centre line',
   '  Slot paths (dxf, svg):',
   '  --slots        lines, outlines (default lines; outlines = closed outlines of the slot width)',
-  '  --origin       nut-centre, lower-left (default nut-centre)',
+  '  --origin       nut-centre, lower-left (default nut-centre; also for gcode)',
+  "  Slot toolpath (gcode); lengths in the design's units, feeds in its units per minute,",
+  '  defaults given in mm and converted for a design in inches (the estimate goes to stderr):',
+  `  --dialect          ${GCODE_DIALECTS.join(', ')} (default linuxcnc)`,
+  `  --z-zero           ${Z_ZEROS.join(', ')} (default crown: the board top on the centre line)`,
+  '  --tool-diameter    cutter diameter (default the slot width; wider is refused, narrower adds offset passes)',
+  `  --feed             cutting feed (default ${GCODE_DEFAULTS_MM.feed} mm/min)   --plunge-feed  (default ${GCODE_DEFAULTS_MM.plungeFeed} mm/min)`,
+  `  --spindle          rpm (default ${DEFAULT_SPINDLE_RPM})              --safe-z  above Z zero (default ${GCODE_DEFAULTS_MM.safeZ} mm)`,
+  `  --pass-depth       deepest cut per pass (default ${GCODE_DEFAULTS_MM.passDepth} mm)`,
+  `  --chord-tolerance  straight moves stay this close to the radiused slot bottom (default ${GCODE_DEFAULTS_MM.chordTolerance} mm)`,
+  '  --dry-run <h>      raise every Z by h so the cutter cuts only air (default 0: a real cut)',
+  `  --rapid-rate       for the time estimate only (default ${GCODE_DEFAULTS_MM.rapidRate} mm/min)`,
+  '  Cut list (cutlist, cutsheet):',
+  "  --stock-length     wire stock length in the design's units (default: none; the Export panel uses the board's fret wire)",
   '',
   '  check    compare measured slot positions of a template with the design (Template check)',
   '  CSV columns    fret,from_nut (along --along) or fret,along,from_nut; comma or semicolon separated,',
@@ -67,6 +82,18 @@ const OPTION_FLAGS = {
   distances: { type: 'boolean' },
   slots: { type: 'string' },
   origin: { type: 'string' },
+  dialect: { type: 'string' },
+  'z-zero': { type: 'string' },
+  'tool-diameter': { type: 'string' },
+  feed: { type: 'string' },
+  'plunge-feed': { type: 'string' },
+  'rapid-rate': { type: 'string' },
+  spindle: { type: 'string' },
+  'safe-z': { type: 'string' },
+  'pass-depth': { type: 'string' },
+  'chord-tolerance': { type: 'string' },
+  'dry-run': { type: 'string' },
+  'stock-length': { type: 'string' },
   along: { type: 'string' },
   tolerance: { type: 'string' },
   help: { type: 'boolean', short: 'h' },
@@ -76,7 +103,20 @@ type Values = ReturnType<typeof parseArgs<{ args: string[]; allowPositionals: tr
 
 /** Flags that belong to one command only. */
 const CHECK_ONLY = ['along', 'tolerance'] as const;
-const LAYOUT_ONLY = ['out', 'paper', 'orientation', 'overlap', 'strings', 'kerf', 'mirror', 'to-saddle', 'distances', 'slots', 'origin'] as const;
+const LAYOUT_ONLY = [
+  'out', 'paper', 'orientation', 'overlap', 'strings', 'kerf', 'mirror', 'to-saddle', 'distances', 'slots', 'origin',
+  'dialect', 'z-zero', 'tool-diameter', 'feed', 'plunge-feed', 'rapid-rate', 'spindle', 'safe-z', 'pass-depth', 'chord-tolerance', 'dry-run', 'stock-length',
+] as const;
+
+/** The option's name as a flag: toolDiameter → tool-diameter. */
+export function flagName(option: string): string {
+  return option.replace(/[A-Z]/g, (letter) => `-${letter.toLowerCase()}`);
+}
+
+/** The flag's name as an option: tool-diameter → toolDiameter. */
+function optionName(flag: string): string {
+  return flag.replace(/-([a-z])/g, (_, letter: string) => letter.toUpperCase());
+}
 
 /** Parses the arguments after the program name; never throws. */
 export function parseCommand(argv: readonly string[]): ParsedCommand {
@@ -97,14 +137,15 @@ export function parseCommand(argv: readonly string[]): ParsedCommand {
   if (extra.length > 0) return { ok: false, message: `unexpected argument "${extra[0]}"` };
   const foreign = CHECK_ONLY.find((flag) => parsed.values[flag] !== undefined);
   if (foreign) return { ok: false, message: `--${foreign} belongs to the check command` };
-  const { out, help: _help, along: _along, tolerance: _tolerance, 'to-saddle': toSaddle, ...values } = parsed.values;
-  const options = validateExportOptions({ format: 'csv', ...values, ...(toSaddle === undefined ? {} : { toSaddle }) });
+  const { out, help: _help, along: _along, tolerance: _tolerance, ...values } = parsed.values;
+  const named = Object.fromEntries(Object.entries(values).map(([flag, value]) => [optionName(flag), value]));
+  const options = validateExportOptions({ format: 'csv', ...named });
   if (!options.ok) {
     const first = options.issues[0];
-    return { ok: false, message: `--${first?.path}: ${first?.message}` };
+    return { ok: false, message: `--${flagName(first?.path ?? 'format')}: ${first?.message}` };
   }
-  if (options.options.format === 'pdf' && out === undefined) {
-    return { ok: false, message: 'a pdf is binary: give --out <file>' };
+  if ((options.options.format === 'pdf' || options.options.format === 'cutsheet') && out === undefined) {
+    return { ok: false, message: `a ${options.options.format} is a PDF (binary): give --out <file>` };
   }
   return { ok: true, command: { kind: 'layout', designPath, options: options.options, out: out ?? null } };
 }

@@ -1,10 +1,13 @@
 import { readFile, writeFile } from 'node:fs/promises';
 import { layoutExportRefusal } from '~/lib/export/export-cost.ts';
 import { exportDesign } from '~/lib/export/export-design.server.ts';
-import { computeLayout } from '~/lib/geometry/layout.ts';
-import { MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note.ts';
-import { validateDesign } from '~/lib/schemas/design.ts';
-import { USAGE, parseCommand } from './parse-command.server.ts';
+import { DRY_RUN_NOTE, MACHINE_SAFETY_NOTES, PRINT_CAUTION } from '~/lib/export/safety-note.ts';
+import { designToolpath, exportOptionIssues } from '~/lib/export/gcode-checks.ts';
+import { runTime } from '~/lib/export/gcode-plan.ts';
+import { computeLayout, type Layout } from '~/lib/geometry/layout.ts';
+import { validateDesign, type Design } from '~/lib/schemas/design.ts';
+import type { ExportOptions } from '~/lib/schemas/export-options.ts';
+import { flagName, USAGE, parseCommand } from './parse-command.server.ts';
 import { runCheckCommand } from './run-check-command.server.ts';
 
 export interface CliOutput {
@@ -43,12 +46,19 @@ export async function runKerfline(argv: readonly string[], output: CliOutput): P
     output.stderr(`kerfline: invalid design ${command.designPath}\n${lines.join('\n')}\n`);
     return 1;
   }
-  const refusal = layoutExportRefusal(computeLayout(validation.design), command.options);
+  const layout = computeLayout(validation.design);
+  const issue = exportOptionIssues(validation.design, layout, command.options)[0];
+  if (issue) {
+    output.stderr(`kerfline: --${flagName(issue.path)}: ${issue.message}\n`);
+    return 2;
+  }
+  const refusal = layoutExportRefusal(layout, command.options, validation.design);
   if (refusal) {
     output.stderr(`kerfline: --${refusal.field}: ${refusal.message}\n`);
     return 2;
   }
   const file = await exportDesign(validation.design, command.options);
+  if (command.options.format === 'gcode') reportRunTime(validation.design, layout, command.options, output);
   if (command.out === null) {
     output.stdout(new TextDecoder().decode(file.bytes));
     return 0;
@@ -62,8 +72,20 @@ export async function runKerfline(argv: readonly string[], output: CliOutput): P
   output.stdout(`Wrote ${command.out} (${file.bytes.byteLength} bytes)\n`);
   const format = command.options.format;
   if (format === 'pdf') output.stdout(`${PRINT_CAUTION}\n`);
-  if (format === 'dxf' || format === 'svg') output.stdout(`Caution: ${MACHINE_SAFETY_NOTES.join(' ')}\n`);
+  if (format === 'dxf' || format === 'svg' || format === 'gcode') output.stdout(`Caution: ${MACHINE_SAFETY_NOTES.join(' ')}\n`);
+  if (format === 'gcode') output.stdout(`Caution: ${DRY_RUN_NOTE}\n`);
   return 0;
+}
+
+/** The estimate goes to stderr so stdout stays the file when no --out is given. */
+function reportRunTime(design: Design, layout: Layout, options: ExportOptions, output: CliOutput): void {
+  const planned = designToolpath(design, layout, options);
+  if (!planned.ok) return;
+  const time = runTime(planned.plan);
+  output.stderr(
+    `Estimated run time ${time.total.toFixed(1)} min (cutting ${time.cutting.toFixed(1)}, plunging ${time.plunging.toFixed(1)}, rapids ${time.rapid.toFixed(1)}; ` +
+      `${planned.plan.moves.length} moves, acceleration ignored)\n`,
+  );
 }
 
 function reason(error: unknown): string {

@@ -258,3 +258,25 @@ export const rateLimits = mysqlTable('rate_limits', {
   points: int('points').notNull().default(0),
   expire: bigint('expire', { mode: 'number', unsigned: true }),
 });
+
+/**
+ * The fret wire a shop uses (its Fret wire list): sizes and stock length in millimetres, and where
+ * the sizes come from ("maker's sheet", "measured", "from memory"). A board names one by id.
+ */
+export const fretWires = mysqlTable(
+  'fret_wires',
+  {
+    id: idColumn(),
+    shopId: shopRef(),
+    name: varchar('name', { length: 80 }).notNull(),
+    crownWidthMm: double('crown_width_mm').notNull(),
+    crownHeightMm: double('crown_height_mm').notNull(),
+    tangWidthMm: double('tang_width_mm').notNull(),
+    tangDepthMm: double('tang_depth_mm').notNull(),
+    barbWidthMm: double('barb_width_mm').notNull(),
+    stockLengthMm: double('stock_length_mm').notNull(),
+    source: varchar('source', { length: 120 }).notNull().default(''),
+    createdAt: now(),
+  },
+  (t) => [uniqueIndex('fret_wires_shop_name_uq').on(t.shopId, t.name)],
+);

@@ -8,8 +8,10 @@
  * stay under them.
  */
 import type { Layout } from '~/lib/geometry/layout.ts';
+import type { Design } from '~/lib/schemas/design.ts';
 import type { ExportOptions } from '~/lib/schemas/export-options.ts';
 import { EXPORT_LIMITS } from './export-limits.ts';
+import { designToolpath } from './gcode-checks.ts';
 import type { IndexTemplateStrip } from '~/lib/templates/index-template.ts';
 import type { LabelSize } from '~/lib/templates/index-template-label.server.ts';
 import { sheetDrawing } from './sheet-drawing.ts';
@@ -44,6 +46,8 @@ const BYTES = {
   slotSegment: 160,
   csvRow: 128,
   jsonRow: 256,
+  /** One G-code move: a G1 with X, Y, Z and F unrounded to 0.0001 mm (or 0.000001 in). */
+  gcodeMove: 64,
 } as const;
 
 /**
@@ -63,8 +67,13 @@ export function paperTemplateCost(plan: TilePlan, drawingItems: number, extraPag
   };
 }
 
-/** The cost of exporting a computed layout as `options.format`. */
-export function layoutExportCost(layout: Layout, options: ExportOptions): ExportCost {
+/** Pages of the shop cut sheet: the key numbers, slot table and cut list, then the checks. */
+const CUT_SHEET_PAGES = 2;
+/** Per slot on the cut sheet: its table rows (text cells) and its line in the drawing. */
+const CUT_SHEET_ITEMS_PER_SLOT = 12;
+
+/** The cost of exporting a computed layout of `design` as `options.format`. */
+export function layoutExportCost(layout: Layout, options: ExportOptions, design: Design): ExportCost {
   const rows = (layout.frets.length + (layout.zeroFret ? 1 : 0)) * layout.strings.length;
   switch (options.format) {
     case 'pdf': {
@@ -84,6 +93,17 @@ export function layoutExportCost(layout: Layout, options: ExportOptions): Export
       return text(rows, BYTES.textHeader + rows * BYTES.csvRow);
     case 'json':
       return text(rows, BYTES.textHeader + rows * BYTES.jsonRow);
+    case 'gcode': {
+      const planned = designToolpath(design, layout, options);
+      const moves = planned.ok ? planned.plan.moves.length : 0;
+      return text(moves, BYTES.textHeader + moves * BYTES.gcodeMove);
+    }
+    case 'cutlist':
+      return text(layout.frets.length + 1, BYTES.textHeader + (layout.frets.length + 1) * BYTES.csvRow);
+    case 'cutsheet': {
+      const primitives = (layout.frets.length + 1) * CUT_SHEET_ITEMS_PER_SLOT + layout.outline.length;
+      return { pages: CUT_SHEET_PAGES, largestPageSidePt: 842, primitives, estimatedBytes: BYTES.pdfDocument + CUT_SHEET_PAGES * BYTES.pdfPage + primitives * BYTES.pdfPrimitive };
+    }
   }
 }
 
@@ -152,14 +172,14 @@ export function refuseOverCap(cost: ExportCost, what: string, field: string, adv
  * The refusal for exporting `layout` as `options`, or null. A paper template with too many
  * pages names `overlap` when less overlap alone would be enough, else `paper`.
  */
-export function layoutExportRefusal(layout: Layout, options: ExportOptions): ExportRefusal | null {
-  const cost = layoutExportCost(layout, options);
+export function layoutExportRefusal(layout: Layout, options: ExportOptions, design: Design): ExportRefusal | null {
+  const cost = layoutExportCost(layout, options, design);
   if (options.format !== 'pdf') {
     return refuseOverCap(cost, `this ${options.format.toUpperCase()} file`, 'format', 'export a smaller design or another format');
   }
   const advice = 'use a larger paper, less overlap or paper "fit"';
   const refusal = refuseOverCap(cost, 'this paper template', 'paper', advice);
   if (!refusal || options.paper === 'fit' || options.overlap === 0) return refusal;
-  const withoutOverlap = layoutExportCost(layout, { ...options, overlap: 0 });
+  const withoutOverlap = layoutExportCost(layout, { ...options, overlap: 0 }, design);
   return refuseOverCap(withoutOverlap, 'this paper template', 'paper', advice) ? refusal : { ...refusal, field: 'overlap' };
 }

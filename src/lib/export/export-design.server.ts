@@ -5,7 +5,12 @@
 import { computeLayout } from '~/lib/geometry/layout.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import type { ExportFormat, ExportOptions } from '~/lib/schemas/export-options.ts';
+import { cutList, cutListCsv } from './cut-list.ts';
+import { cutSheetPdf } from './cut-sheet-pdf.server.ts';
+import { designFingerprint } from '~/lib/boards/fingerprint.server.ts';
 import { slotPathsDxf } from './dxf.server.ts';
+import { gcodeText } from './gcode.ts';
+import { designToolpath } from './gcode-checks.ts';
 import { exportFileName } from './file-name.ts';
 import { LAYOUT_FORMATS } from './layout-formats.ts';
 import { paperTemplatePdf } from './pdf.server.ts';
@@ -29,9 +34,15 @@ export const EXPORT_CONTENT_TYPES: Readonly<Record<ExportFormat, string>> = {
   svg: 'image/svg+xml; charset=utf-8',
   csv: LAYOUT_FORMATS.csv.contentType,
   json: LAYOUT_FORMATS.json.contentType,
+  gcode: 'text/plain; charset=utf-8',
+  cutlist: LAYOUT_FORMATS.csv.contentType,
+  cutsheet: 'application/pdf',
 };
 
-/** Builds the file for `options.format`; every length comes from computeLayout. */
+/**
+ * Builds the file for `options.format`; every length comes from computeLayout. G-code options are
+ * checked first by the callers (exportOptionIssues); one that fails here is a programming error.
+ */
 export async function exportDesign(
   design: Design,
   options: ExportOptions,
@@ -57,6 +68,23 @@ export async function exportDesign(
     }
     case 'json':
       bytes = text.encode(`${LAYOUT_FORMATS.json.render(layout)}\n`);
+      break;
+    case 'gcode': {
+      const planned = designToolpath(design, layout, options);
+      if (!planned.ok) throw new Error(`G-code options not checked: ${planned.issues[0]?.path}`);
+      bytes = text.encode(gcodeText(planned.plan, {
+        boardName: design.name,
+        revision: context.revision ?? null,
+        fingerprint: context.fingerprint ?? designFingerprint(design),
+        approvalWarning: context.approvalWarning ?? null,
+      }));
+      break;
+    }
+    case 'cutlist':
+      bytes = text.encode(cutListCsv(cutList(design, layout, context.wire ?? null, options.stockLength)));
+      break;
+    case 'cutsheet':
+      bytes = await cutSheetPdf(design, layout, options, context);
       break;
   }
   return {

@@ -1,6 +1,6 @@
 /**
  * The one place download file names are made, for every export (paper template, slot paths,
- * fret table, layout JSON, board file, index template, template label), from the name of the
+ * slot toolpath, cut list, cut sheet, fret table, layout JSON, board file, index template, template label), from the name of the
  * design, board or template: accented letters folded to ASCII, then ASCII letters, digits, dots,
  * dashes and underscores only, so the name is safe in a Content-Disposition header and on every
  * file system, and the same file gets the same name wherever it is downloaded from.
@@ -13,6 +13,9 @@ const SUFFIX: Readonly<Record<ExportFormat, string>> = {
   svg: 'slot-paths.svg',
   csv: 'fret-table.csv',
   json: 'layout.json',
+  gcode: 'slot-toolpath.nc',
+  cutlist: 'cut-list.csv',
+  cutsheet: 'cut-sheet.pdf',
 };
 
 /** What is downloaded: a design export by its format, or one of the other files. */

@@ -6,6 +6,7 @@ import { scaleConventionWords } from '~/lib/format/design-specs.ts';
 import { formatLength } from '~/lib/format/units.ts';
 import { parseScl } from '~/lib/geometry/scala.ts';
 import type { Design } from '~/lib/schemas/design.ts';
+import type { FretWire } from '~/lib/schemas/fret-wire.ts';
 import type { ExportOptions } from '~/lib/schemas/export-options.ts';
 
 /** Where an export comes from; a saved board passes its revision, fingerprint and shop. */
@@ -18,6 +19,8 @@ export interface ExportContext {
   approvalWarning?: string | null;
   /** Defaults to now. */
   date?: Date;
+  /** The board's fret wire from the shop's list (cut list and cut sheet); absent = none known. */
+  wire?: FretWire | null;
 }
 
 /** "revision 7 · 4f2a-9c1d-77e0", or "unsaved" for a design that is not a saved board's revision. */

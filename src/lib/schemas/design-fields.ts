@@ -12,7 +12,7 @@ import { z } from 'zod';
 import { formatLength, fromMm, type LengthUnit } from '~/lib/format/units.ts';
 
 /** The form's groups of fields, in the order the form shows them. */
-export const FIELD_GROUPS = ['Strings and scale', 'Board', 'Slots', 'Compensation'] as const;
+export const FIELD_GROUPS = ['Strings and scale', 'Board', 'Slots', 'Fret wire', 'Compensation'] as const;
 export type FieldGroup = (typeof FIELD_GROUPS)[number];
 
 interface RowBase {
@@ -37,11 +37,12 @@ export interface LengthRow extends RowBase {
   maxMm: number;
 }
 
-/** A whole number within [min, max] (strings, frets). Required. */
+/** A whole number within [min, max] (strings, frets). Required unless it has a default. */
 export interface WholeRow extends RowBase {
   kind: 'whole';
   min: number;
   max: number;
+  default?: number;
 }
 
 /** A real number ≥ 0 (the perpendicular fret may lie between frets). Required. */
@@ -108,12 +109,18 @@ export const DESIGN_FIELDS = [
     label: 'The board end runs',
     help: 'The direction of the cut across the board end.',
   },
+  { path: 'radius.nut', kind: 'length', sign: 'nonNegative', defaultMm: 0, maxMm: LONGEST_MM, group: 'Board', label: 'Board radius at the nut (0 = flat)', help: 'The top’s radius square to the centre line at the nut; common radii run 184–508 mm (7.25–20 in).' },
+  { path: 'radius.end', kind: 'length', sign: 'nonNegative', defaultMm: 0, maxMm: LONGEST_MM, group: 'Board', label: 'Board radius at the last fret (0 = as at the nut)', help: 'Larger than at the nut for a compound (conical) board; the radius changes evenly along the board.' },
   { path: 'faceDotDiameter', kind: 'length', sign: 'positive', defaultMm: 6, maxMm: 50, group: 'Board', label: 'Face dot diameter', help: 'Diameter of each face dot inlay; every drawing and export draws the dots this size.' },
   { path: 'sideDotDiameter', kind: 'length', sign: 'positive', defaultMm: 2, maxMm: 20, group: 'Board', label: 'Side dot diameter', help: 'Diameter of each side dot on the bass edge; every drawing and export draws the dots this size.' },
   { path: 'slot.width', kind: 'length', sign: 'positive', defaultMm: 0.6, maxMm: 10, group: 'Slots', label: 'Slot width (kerf)', help: 'The width the saw or cutter leaves.' },
   { path: 'slot.overrun', kind: 'length', sign: 'nonNegative', defaultMm: 0, maxMm: 20, group: 'Slots', label: 'Through slots run past each edge by', help: 'Along the slot, so a slanted kerf clears the board corner; 1 mm suits most CNC work.' },
+  { path: 'slot.depth', kind: 'length', sign: 'positive', defaultMm: 3, maxMm: 50, group: 'Slots', label: 'Slot depth', help: 'Measured straight down from the board top, so on a radiused board the slot bottom follows the radius.' },
   { path: 'slot.stopped', kind: 'flag', default: false, group: 'Slots', label: 'Stopped slots (end short of both board edges)', help: 'Slots that stop before the edges, as for bound or hidden-tang boards.' },
   { path: 'slot.stopDistance', kind: 'length', sign: 'nonNegative', defaultMm: 2, maxMm: 100, group: 'Slots', label: 'Stop short of each edge by', help: 'How far each stopped slot ends before the board edge, square to the edge.', shownWhen: 'slot.stopped' },
+  { path: 'thickness', kind: 'length', sign: 'nonNegative', defaultMm: 0, maxMm: 100, group: 'Board', label: 'Board thickness at the crown (0 = not given)', help: 'Used only to check the wood left under the slots.' },
+  { path: 'wire.id', kind: 'whole', min: 0, max: 2_147_483_647, default: 0, group: 'Fret wire', label: "Fret wire (its number on the shop's fret wire list; 0 = none)", help: 'The wire the cut list and the checks use; the list is under Fret wire.' },
+  { path: 'wire.endAllowance', kind: 'length', sign: 'nonNegative', defaultMm: 2, maxMm: 50, group: 'Fret wire', label: 'Wire left past each end of a slot', help: 'Added at both ends of every piece in the cut list, for trimming.' },
   { path: 'compensation.nut', kind: 'length', sign: 'signed', defaultMm: 0, maxMm: 50, group: 'Compensation', label: 'Nut setback', help: 'Moves the drawn nut toward the bridge, along the outer strings; frets do not move.' },
   { path: 'compensation.saddleTreble', kind: 'length', sign: 'signed', defaultMm: 0, maxMm: 50, group: 'Compensation', label: 'Saddle setback, treble', help: 'Moves the drawn saddle away from the nut on string 1.' },
   { path: 'compensation.saddleBass', kind: 'length', sign: 'signed', defaultMm: 0, maxMm: 50, group: 'Compensation', label: 'Saddle setback, bass', help: 'Moves the drawn saddle away from the nut on the last string.' },
@@ -134,7 +141,7 @@ type RowAt<P> = Extract<Row, { path: P }>;
 type TopPath = Exclude<FieldPath, `${string}.${string}`>;
 type GroupKey = FieldPath extends infer P ? (P extends `${infer G}.${string}` ? G : never) : never;
 type MemberKey<G extends string> = FieldPath extends infer P ? (P extends `${G}.${infer M}` ? M : never) : never;
-type IsOptional<R> = R extends { defaultMm: number } | { default: boolean | string } ? true : false;
+type IsOptional<R> = R extends { defaultMm: number } | { default: boolean | string | number } ? true : false;
 type Options<R> = R extends { options: infer O extends readonly [string, ...string[]] } ? O : never;
 type ValueOf<R> = R extends { kind: 'flag' } ? boolean : R extends { kind: 'choice' } ? Options<R>[number] : number;
 type ZodOf<R> = R extends { kind: 'choice' }
@@ -168,7 +175,7 @@ function schemaOf(row: FieldRow): z.ZodTypeAny {
     case 'choice':
       return z.enum(row.options, { errorMap: () => ({ message: `must be one of: ${row.options.join(', ')}` }) }).optional();
     case 'whole':
-      return wholeNumber(row.min, row.max);
+      return row.default === undefined ? wholeNumber(row.min, row.max) : wholeNumber(row.min, row.max).optional();
     case 'real':
       return finiteNumber.nonnegative({ message: 'must not be negative' });
     case 'length': {
@@ -184,7 +191,7 @@ function schemaOf(row: FieldRow): z.ZodTypeAny {
 }
 
 function isOptional(row: FieldRow): boolean {
-  return row.kind === 'flag' || row.kind === 'choice' || (row.kind === 'length' && row.defaultMm !== undefined);
+  return row.kind === 'flag' || row.kind === 'choice' || (row.kind === 'length' && row.defaultMm !== undefined) || (row.kind === 'whole' && row.default !== undefined);
 }
 
 function split(path: string): [string] | [string, string] {
@@ -240,7 +247,7 @@ export function setFieldValue(target: Record<string, unknown>, path: string, val
 }
 
 function defaultOf(row: FieldRow, units: LengthUnit): unknown {
-  if (row.kind === 'flag' || row.kind === 'choice') return row.default;
+  if (row.kind === 'flag' || row.kind === 'choice' || row.kind === 'whole') return row.default;
   if (row.kind === 'length' && row.defaultMm !== undefined) return fromMm(row.defaultMm, units);
   return undefined;
 }

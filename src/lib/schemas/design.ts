@@ -1,5 +1,7 @@
 import { z } from 'zod';
 import { formatLength } from '~/lib/format/units.ts';
+import { boardSurface, radiusTooSmall } from '~/lib/geometry/board-radius.ts';
+import { computeLayout } from '~/lib/geometry/layout.ts';
 import { parseScl } from '~/lib/geometry/scala.ts';
 import { COUNT_ROWS, fieldShape, fieldValues, magnitudeProblems, maxLengthMm } from './design-fields.ts';
 
@@ -157,7 +159,24 @@ function geometryProblems(design: Design): Problem[] {
     });
   }
   problems.push(...temperamentProblems(design));
+  if (problems.length === 0) problems.push(...radiusProblems(design));
   return problems;
+}
+
+/** A radiused top must span the board: R(x) at least half the board's width at every corner. */
+function radiusProblems(design: Design): Problem[] {
+  if (design.radius.nut === 0) return [];
+  const layout = computeLayout(design);
+  const surface = boardSurface(design.radius, layout.frets[layout.frets.length - 1]!.line);
+  const tight = radiusTooSmall(surface, layout.outline);
+  if (!tight) return [];
+  const atNut = tight.corner.x < (surface.radius?.lastFretX ?? 0) / 2;
+  return [
+    {
+      path: ['radius', atNut || design.radius.end === 0 ? 'nut' : 'end'],
+      message: `is too small for the board: it must be at least half the board's width (${formatLength(tight.needed, design.units, true)}) ${atNut ? 'at the nut' : 'at the board end'}`,
+    },
+  ];
 }
 
 /**

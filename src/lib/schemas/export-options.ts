@@ -7,12 +7,16 @@ import { z } from 'zod';
 import { maxOverlapMm } from '~/lib/export/page-frame.ts';
 import { PAPER_NAMES } from '~/lib/export/paper-sizes.ts';
 
-export const EXPORT_FORMATS = ['pdf', 'dxf', 'svg', 'csv', 'json'] as const;
+export const EXPORT_FORMATS = ['pdf', 'dxf', 'svg', 'csv', 'json', 'gcode', 'cutlist', 'cutsheet'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
 
 export const ORIENTATIONS = ['auto', 'portrait', 'landscape'] as const;
 export const SLOT_STYLES = ['lines', 'outlines'] as const;
 export const ORIGINS = ['nut-centre', 'lower-left'] as const;
+/** G-code as LinuxCNC and GRBL read it; they differ in a few words (docs/exports.md, "G-code"). */
+export const GCODE_DIALECTS = ['linuxcnc', 'grbl'] as const;
+/** Where the machine's Z = 0 was touched off: the crown (centre line), or the treble edge at the nut. */
+export const Z_ZEROS = ['crown', 'edge-at-nut'] as const;
 
 /** Default overlap between tiled pages: 10 mm. */
 export const DEFAULT_OVERLAP_MM = 10;
@@ -33,13 +37,22 @@ function numberFromText(value: unknown): unknown {
 
 const flag = z.preprocess(fromText, z.boolean({ invalid_type_error: 'must be true or false' }));
 
+/** A G-code length or rate in the design's units; absent = the default converted (gcode-settings.ts). */
+const designLength = (sign: 'positive' | 'nonNegative') => {
+  const base = z.number({ invalid_type_error: "must be a number in the design's units" }).finite({ message: 'must be a finite number' });
+  return z.preprocess(numberFromText, sign === 'positive' ? base.positive({ message: 'must be greater than 0' }) : base.nonnegative({ message: 'must not be negative' })).optional();
+};
+
 function choice<T extends readonly [string, ...string[]]>(values: T) {
   return z.enum(values, { errorMap: () => ({ message: `must be one of: ${values.join(', ')}` }) });
 }
 
 export const exportOptionsSchema = z
   .object({
-    /** pdf = paper template, dxf/svg = slot paths, csv = fret table, json = the computed layout. */
+    /**
+     * pdf = paper template, dxf/svg = slot paths, csv = fret table, json = the computed layout,
+     * gcode = slot toolpath, cutlist = fret wire cut list (CSV), cutsheet = the shop cut sheet (PDF).
+     */
     format: choice(EXPORT_FORMATS).default('pdf'),
     /** Paper template sheet; `fit` is one sheet sized to the board. */
     paper: choice(PAPER_NAMES).default('letter'),
@@ -74,6 +87,28 @@ export const exportOptionsSchema = z
     slots: choice(SLOT_STYLES).default('lines'),
     /** Slot paths origin: the nut centre (board coordinates) or the board's lower-left corner. */
     origin: choice(ORIGINS).default('nut-centre'),
+    /** G-code: the controller's dialect. */
+    dialect: choice(GCODE_DIALECTS).default('linuxcnc'),
+    /** G-code: where Z = 0 is. */
+    zZero: choice(Z_ZEROS).default('crown'),
+    /** G-code, in the design's units: cutter diameter (default the slot width). */
+    toolDiameter: designLength('positive'),
+    /** G-code, design units per minute: cutting and plunging feeds, and the rapid rate the time estimate assumes. */
+    feed: designLength('positive'),
+    plungeFeed: designLength('positive'),
+    rapidRate: designLength('positive'),
+    /** G-code: spindle speed, rpm. */
+    spindle: z.preprocess(numberFromText, z.number({ invalid_type_error: 'must be a number of rpm' }).finite().positive({ message: 'must be greater than 0' })).optional(),
+    /** G-code, design units: the height for moves between slots, above Z = 0. */
+    safeZ: designLength('positive'),
+    /** G-code, design units: the deepest cut of one pass. */
+    passDepth: designLength('positive'),
+    /** G-code, design units: how far the straight moves may leave the radiused slot bottom. */
+    chordTolerance: designLength('positive'),
+    /** G-code, design units: a dry run raises every Z by this much, so the cutter runs in the air (0 = a real cut). */
+    dryRun: designLength('nonNegative'),
+    /** Cut list, design units: the wire's stock length (default: the chosen fret wire's). */
+    stockLength: designLength('positive'),
   })
   .strict()
   .superRefine((options, ctx) => {

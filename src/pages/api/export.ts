@@ -3,4 +3,4 @@ import { handleExportRequest } from '~/lib/export/export-endpoint.server.ts';
 
 export const prerender = false;
 
-export const POST: APIRoute = ({ request }) => handleExportRequest(request);
+export const POST: APIRoute = ({ request, locals }) => handleExportRequest(request, undefined, locals.user);

@@ -104,7 +104,7 @@ describe('kerfline layout --format ... --out', () => {
     const dir = mkdtempSync(join(tmpdir(), 'kerfline-cli-'));
     const largest = join(dir, 'largest.json');
     const spacing = { nut: 5000, bridge: 5000 };
-    writeFileSync(largest, JSON.stringify({ ...sevenStringFan, strings: 16, frets: 36, scale: { treble: 5000, bass: 5000 }, perpendicularFret: 0, stringSpacing: spacing, markers: [] }));
+    writeFileSync(largest, JSON.stringify({ ...sevenStringFan, strings: 16, frets: 36, scale: { treble: 5000, bass: 5000 }, perpendicularFret: 0, stringSpacing: spacing, radius: { nut: 0 }, markers: [] }));
     const refused = await run(['layout', largest, '--format', 'pdf', '--paper', 'letter', '--overlap', '99.9', '--out', join(dir, 't.pdf')]);
     expect(refused.code).toBe(2);
     expect(refused.stderr).toMatch(/^kerfline: --paper: this paper template would print \d{1,2},\d{3} pages; the most is 200: /);

@@ -44,7 +44,7 @@ describe('export caps, checked from the plan before anything is drawn', () => {
     const design = largest();
     const expected = pages(design, chosen);
     expect(expected).toBeGreaterThan(2000);
-    const refusal = layoutExportRefusal(computeLayout(design), chosen);
+    const refusal = layoutExportRefusal(computeLayout(design), chosen, design);
     expect(refusal?.field).toBe('paper');
     expect(refusal?.message).toBe(
       `this paper template would print ${expected.toLocaleString('en-US')} pages; the most is 200: use a larger paper, less overlap or paper "fit"`,
@@ -58,22 +58,23 @@ describe('export caps, checked from the plan before anything is drawn', () => {
     const chosen = options({ paper: 'letter', overlap: 99.9 });
     expect(pages(design, chosen)).toBeGreaterThan(EXPORT_LIMITS.maxPages);
     expect(pages(design, { ...chosen, overlap: 0 })).toBeLessThanOrEqual(EXPORT_LIMITS.maxPages);
-    expect(layoutExportRefusal(computeLayout(design), chosen)?.field).toBe('overlap');
+    expect(layoutExportRefusal(computeLayout(design), chosen, design)?.field).toBe('overlap');
   });
 
   it('lets the same board through at exactly the cap, and on `fit` whatever its size', () => {
     const design = largest(500);
     const chosen = options({ paper: 'letter', overlap: 99.9 });
     expect(pages(design, chosen)).toBe(EXPORT_LIMITS.maxPages);
-    expect(layoutExportRefusal(computeLayout(design), chosen)).toBeNull();
-    expect(layoutExportRefusal(computeLayout(largest()), options({ paper: 'fit' }))).toBeNull();
+    expect(layoutExportRefusal(computeLayout(design), chosen, design)).toBeNull();
+    expect(layoutExportRefusal(computeLayout(largest()), options({ paper: 'fit' }), largest())).toBeNull();
   });
 
   it('never refuses slot paths, fret tables or layouts of the largest valid design (the design limits bound them)', () => {
-    const layout = computeLayout(designOf({ ...largest(500), zeroFret: true }));
+    const design = designOf({ ...largest(500), zeroFret: true });
+    const layout = computeLayout(design);
     for (const format of ['dxf', 'svg', 'csv', 'json'] as const) {
       for (const slots of ['lines', 'outlines'] as const) {
-        expect(layoutExportRefusal(layout, options({ format, slots })), `${format} ${slots}`).toBeNull();
+        expect(layoutExportRefusal(layout, options({ format, slots }), design), `${format} ${slots}`).toBeNull();
       }
     }
   });
@@ -106,7 +107,7 @@ describe('size estimates are upper estimates of the real files', () => {
 
   it.each(cases)('%s: the real file is no larger than the estimate, and at least a fifth of it', async (_name, design, input) => {
     const chosen = options(input);
-    const cost = layoutExportCost(computeLayout(design), chosen);
+    const cost = layoutExportCost(computeLayout(design), chosen, design);
     const file = await exportDesign(design, chosen);
     expect(file.bytes.byteLength).toBeLessThanOrEqual(cost.estimatedBytes);
     expect(file.bytes.byteLength * 5).toBeGreaterThan(cost.estimatedBytes);

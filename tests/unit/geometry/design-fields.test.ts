@@ -33,7 +33,7 @@ describe('the design field table', () => {
 
   it.each(DESIGN_FIELDS.map((row) => [row.path, row] as const))('%s: missing is refused when required, defaulted otherwise', (path, row) => {
     const result = validateDesign(without(path));
-    const optional = row.kind === 'flag' || row.kind === 'choice' || (row.kind === 'length' && 'defaultMm' in row);
+    const optional = row.kind === 'flag' || row.kind === 'choice' || (row.kind === 'length' && 'defaultMm' in row) || (row.kind === 'whole' && 'default' in row);
     if (!optional) {
       expect(result.ok).toBe(false);
       if (!result.ok) expect(result.issues.map((i) => i.path)).toContain(path);
@@ -41,7 +41,7 @@ describe('the design field table', () => {
     }
     expect(result.ok).toBe(true);
     if (!result.ok) return;
-    const expected = row.kind === 'flag' || row.kind === 'choice' ? row.default : (row as { defaultMm: number }).defaultMm;
+    const expected = 'default' in row ? row.default : (row as { defaultMm: number }).defaultMm;
     expect(fieldValue(result.design, path)).toBe(expected);
   });
 

@@ -77,7 +77,7 @@ describe('validateDesign rejects bad input, naming the field', () => {
 describe('validateDesign fills defaults', () => {
   it('in mm, with the common-practice markers cut at the last fret', () => {
     const design = validDesign(designInput({ frets: 20 }));
-    expect(design.slot).toEqual({ width: 0.6, overrun: 0, stopped: false, stopDistance: 2 });
+    expect(design.slot).toEqual({ width: 0.6, overrun: 0, depth: 3, stopped: false, stopDistance: 2 });
     expect(design.compensation).toEqual({ nut: 0, saddleTreble: 0, saddleBass: 0 });
     expect(design.zeroFret).toBe(false);
     expect(design.markers.map((m) => m.fret)).toEqual([3, 5, 7, 9, 12, 15, 17, 19]);
@@ -93,7 +93,7 @@ describe('validateDesign fills defaults', () => {
   it('keeps given values and trims the name', () => {
     const design = validDesign(designInput({ name: '  Build 12  ', slot: { width: 0.5, stopped: true }, markers: [] }));
     expect(design.name).toBe('Build 12');
-    expect(design.slot).toEqual({ width: 0.5, overrun: 0, stopped: true, stopDistance: 2 });
+    expect(design.slot).toEqual({ width: 0.5, overrun: 0, depth: 3, stopped: true, stopDistance: 2 });
     expect(design.markers).toEqual([]);
   });
 });

@@ -2,6 +2,7 @@
 import { seedDemoBoards } from './demo-boards.server.ts';
 import type { SeedStep } from './demo-shop.server.ts';
 import { seedDemoProof } from './demo-proof.server.ts';
+import { seedDemoWires } from './fret-wires.server.ts';
 import { seedDemoTemplates } from './templates.server.ts';
 
 export const DEMO_SEED_STEPS: readonly SeedStep[] = [
@@ -9,4 +10,5 @@ export const DEMO_SEED_STEPS: readonly SeedStep[] = [
   // Both link to the demo designs by name: keep them after the step that seeds the designs.
   seedDemoTemplates,
   seedDemoProof,
+  seedDemoWires,
 ];

@@ -9,16 +9,17 @@ import { invalid } from '~/lib/http/problem.ts';
 import { answerOrServerError } from '~/lib/http/server-error.server.ts';
 import { approvalWarning } from '~/lib/proofs/board-approval.ts';
 import { validateExportOptions } from '~/lib/schemas/export-options.ts';
+import { boardWire } from '~/lib/wire/board-wire.server.ts';
 
 export const prerender = false;
 
 /**
- * GET /api/designs/{id}/export?format=pdf|dxf|svg|csv|json&revision=N&…options: a saved board as
+ * GET /api/designs/{id}/export?format=pdf|dxf|svg|csv|json|gcode|cutlist|cutsheet&revision=N&…options: a saved board as
  * a download, from the named revision, or else from its working copy, which is kept as a revision
  * first when it has changes not yet in one (so every print names a revision: the file name, the
  * title block or header comment carry its number and fingerprint). pdf (paper template), dxf and
  * svg (slot paths) and csv (fret table) take the export options (paper, slots, …); json is the
- * board file that Boards imports. Caps and the worker pool as for POST /api/export.
+ * board file that Boards imports; gcode, cutlist and cutsheet are the machine files (docs/exports.md). Caps and the worker pool as for POST /api/export.
  */
 export const GET: APIRoute = ({ locals, params, url, request }) => answerOrServerError('The export', async () => {
   const { revision: revisionParam, ...query } = Object.fromEntries(url.searchParams);
@@ -40,10 +41,12 @@ export const GET: APIRoute = ({ locals, params, url, request }) => answerOrServe
       },
     });
   }
-  return designExportResponse(storedDesign(board.design), options.options, {
+  const design = storedDesign(board.design);
+  return designExportResponse(design, options.options, {
     revision,
     fingerprint: board.fingerprint,
     approvalWarning: approvalWarning(board.approval, board.fingerprint),
     shopName: await shopName(user.shopId),
+    wire: await boardWire(user, design),
   }, request.signal);
 });
