@@ -60,6 +60,6 @@ describe('POST /api/export for the slot toolpath, cut list and cut sheet', () =>
     expect(first).toContain('treble edge');
     expect(second).toContain('Fret wire cut list');
     expect(second).toContain('Secure the work');
-    expect(second).toMatch(/Fingerprint [0-9a-f]{16}/);
+    expect(second).toMatch(/Unsaved design · fingerprint [0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}/);
   });
 });
