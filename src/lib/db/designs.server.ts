@@ -18,6 +18,7 @@ import {
 } from '~/lib/schemas/board.ts';
 import { DESIGN_LIMITS, validateDesign, type Design } from '~/lib/schemas/design.ts';
 import { db, type Db } from './client.server.ts';
+import { withRetry } from './with-retry.server.ts';
 import { designRevisions, designs, users, type DesignStatus } from './schema.ts';
 
 /** Who writes: the signed-in user's id and shop. */
@@ -235,14 +236,14 @@ async function writeLocked<T>(
   expectedVersion: number | undefined,
   change: (tx: Tx, locked: Locked) => Promise<WriteResult<T>>,
 ): Promise<WriteResult<T>> {
-  return db().transaction(async (tx) => {
+  return withRetry(() => db().transaction(async (tx) => {
     const locked = await lockHead(tx, writer.shopId, id);
     if (!locked) return { ok: false, reason: 'not_found' };
     if (expectedVersion !== undefined && expectedVersion !== locked.head.version) {
       return { ok: false, reason: 'conflict', current: detailOf(locked.head, locked.design) };
     }
     return change(tx, locked);
-  });
+  }));
 }
 
 /** Writes `fields` to the head row with the next version; returns the row as it now is. */

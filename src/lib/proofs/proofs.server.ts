@@ -18,6 +18,7 @@ import type {
   SharedProof,
 } from '~/lib/schemas/proof.ts';
 import { db } from '~/lib/db/client.server.ts';
+import { withRetry } from '~/lib/db/with-retry.server.ts';
 import { findRevisionDesign, findShopDesign, setDesignStatus, storedJson } from '~/lib/db/designs.server.ts';
 import { designRevisions, designs, proofs, shops, users } from '~/lib/db/schema.ts';
 import { mailBuilderDecision, mailClientProof } from '~/lib/proofs/proof-mails.server.ts';
@@ -176,7 +177,7 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
   if (row.decision) return { ok: false, reason: 'already_decided' };
   if (row.expiresAt.getTime() <= now.getTime()) return { ok: false, reason: 'expired' };
   const comment = input.decision === 'changes_requested' ? input.comment : '';
-  const recorded = await db().transaction(async (tx) => {
+  const recorded = await withRetry(() => db().transaction(async (tx) => {
     const [result] = await tx
       .update(proofs)
       .set({ decision: input.decision, decidedAt: now, decidedName: input.name, decisionComment: comment })
@@ -185,7 +186,7 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
     const head = await findShopDesign(tx, row.shopId, row.designId);
     if (head && head.currentRevision === row.revision) await setDesignStatus(tx, row.shopId, row.designId, input.decision);
     return head;
-  });
+  }));
   if (!recorded) return { ok: false, reason: 'already_decided' };
   const decision: ProofDecision = { kind: input.decision, at: now.toISOString(), name: input.name, comment };
   const [builder] = await db().select({ email: users.email }).from(users).where(eq(users.id, row.createdBy));
