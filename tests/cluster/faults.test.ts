@@ -182,10 +182,11 @@ describe('faults under load through HAProxy', () => {
     }, 30_000);
     expect(refused!.headers.get('retry-after'), '503 says when to try again').toMatch(/^\d+$/);
 
-    phase = 'nodes back';
     const backStarted = Date.now();
     await Promise.all([galeraNode('start', 2), galeraNode('start', 3)]);
     await Promise.all([galeraNode('wait', 2), galeraNode('wait', 3)]);
+    const rejoinedMs = Date.now() - backStarted;
+    phase = 'nodes back';
     const acknowledgedBefore = acknowledged.length;
     await waitUntil('a save is acknowledged again', async () => acknowledged.length > acknowledgedBefore, 60_000);
     const resumeMs = Date.now() - backStarted;
@@ -200,7 +201,7 @@ describe('faults under load through HAProxy', () => {
     console.log(
       [
         `cluster faults: ${acknowledged.length} saves acknowledged; missing through the pool: ${(await acknowledgedSaveProblems(acknowledged)).length}; missing per node: ${perNode.map((m) => m.length).join('/')}`,
-        `  node 1 rejoined (IST) in ${(rejoinMs / 1000).toFixed(1)} s; after quorum loss, service resumed ${(resumeMs / 1000).toFixed(1)} s after restarting nodes 2 and 3`,
+        `  node 1 rejoined (IST) in ${(rejoinMs / 1000).toFixed(1)} s; after the quorum loss nodes 2 and 3 were Synced ${(rejoinedMs / 1000).toFixed(1)} s after their restart, saves acknowledged again after ${(resumeMs / 1000).toFixed(1)} s`,
         ...figures,
       ].join('\n'),
     );
@@ -212,6 +213,9 @@ describe('faults under load through HAProxy', () => {
     expect(okIn('app killed'), 'service continues after an app process dies').toBeGreaterThan(0);
     expect(failedIn('node stopped'), 'stopping one node fails at most the requests in flight').toBeLessThanOrEqual(IN_FLIGHT_AT_MOST);
     expect(okIn('node stopped'), 'service continues with one node stopped').toBeGreaterThan(0);
+    const quorumLost = tallies.get('quorum lost')?.statuses ?? {};
+    expect(Object.keys(quorumLost).filter((status) => status !== '200' && status !== '503'), 'without quorum every refusal is a 503').toEqual([]);
+    expect(quorumLost['503'] ?? 0, 'without quorum saves are refused with 503').toBeGreaterThan(0);
     expect(okIn('after'), 'service resumes after the quorum is back').toBeGreaterThan(0);
     expect(failedIn('after'), 'no failures once the cluster is whole').toBe(0);
   });

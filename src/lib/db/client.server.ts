@@ -1,12 +1,14 @@
 /**
  * The one MariaDB connection pool and Drizzle instance for the app process. With several hosts in
  * DATABASE_URL (a Galera cluster) each new connection goes to the first host that answers and is
- * ready (failover-socket.server.ts).
+ * ready (failover-socket.server.ts), and a read whose connection was lost runs again there
+ * (read-retry.server.ts).
  */
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import mysql from 'mysql2/promise';
 import { config } from '~/lib/config/env.server.ts';
 import { FailoverSocket, HostList, watchReadiness } from './failover-socket.server.ts';
+import { retryReadsOnLostConnection } from './read-retry.server.ts';
 import * as schema from './schema.ts';
 
 /** Fail fast when MariaDB is down so requests get a 503 instead of hanging. */
@@ -32,7 +34,10 @@ export function getPool(): mysql.Pool {
       timezone: 'Z',
       dateStrings: false,
     });
-    if (list) watchReadiness(pool.pool, list);
+    if (list) {
+      watchReadiness(pool.pool, list);
+      retryReadsOnLostConnection(pool);
+    }
   }
   return pool;
 }

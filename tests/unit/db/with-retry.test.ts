@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { DbBusyError, isCertificationConflict, isDbUnavailable, isQuickUnavailable } from '~/lib/db/db-errors.ts';
+import { isReadStatement } from '~/lib/db/read-retry.server.ts';
 import { withRetry } from '~/lib/db/with-retry.server.ts';
 
 /** Errors shaped as mysql2 gives them (code, errno), wrapped as drizzle wraps them (cause). */
@@ -70,5 +71,20 @@ describe('withRetry', () => {
     const work = flaky([deadlock(), deadlock(), deadlock()], 'saved');
     await withRetry(work.run, { firstDelayMs: 10, random: () => 1, sleep: async (ms) => void waits.push(ms) });
     expect(waits).toEqual([15, 30, 60]);
+  });
+});
+
+describe('isReadStatement: the statements run again after a lost connection', () => {
+  it.each([
+    ['select 1', true],
+    [{ sql: '  SELECT `id` from `designs`' }, true],
+    ['(select 1) union (select 2)', true],
+    ["SHOW GLOBAL STATUS LIKE 'wsrep_ready'", true],
+    ['insert into `sessions` values (1)', false],
+    [{ sql: 'update `designs` set `version` = 2' }, false],
+    ['selectivity', false],
+    [undefined, false],
+  ])('%j: %s', (statement, read) => {
+    expect(isReadStatement(statement)).toBe(read);
   });
 });
