@@ -59,7 +59,9 @@ export interface Balancer {
 /** HAProxy on a free port (`port` when given) over the app processes on `ports`; waits until it answers. */
 export async function startBalancer(ports: readonly number[], port?: number): Promise<Balancer> {
   const chosen = port ?? (await freePort());
-  const child = spawn('bash', ['scripts/cluster/haproxy-start.sh', String(chosen), ...ports.map(String)], { env: process.env, stdio: 'ignore' });
+  const child = spawn('bash', ['scripts/cluster/haproxy-start.sh', String(chosen), ...ports.map(String)], { env: process.env, stdio: ['ignore', 'ignore', 'pipe'] });
+  let log = '';
+  child.stderr?.on('data', (chunk: Buffer) => (log = (log + chunk.toString()).slice(-2000)));
   const exited = once(child, 'exit');
   const url = `http://127.0.0.1:${chosen}`;
   const stop = async () => {
@@ -75,7 +77,7 @@ export async function startBalancer(ports: readonly number[], port?: number): Pr
     await new Promise((r) => setTimeout(r, 250));
   }
   await stop();
-  throw new Error(`HAProxy did not answer on ${url} within 30 s`);
+  throw new Error(`HAProxy did not answer on ${url} within 30 s:\n${log}`);
 }
 
 /** Waits until `check` is true, polling every 250 ms, up to `ms`; says what it waited for otherwise. */

@@ -118,16 +118,27 @@ export class FailoverSocket extends Duplex {
 }
 
 /**
+ * One row `{ ready: 1 }` when the server takes queries: Galera off (a single server; MariaDB's
+ * `wsrep_on` is 0 there), or a Galera node with `wsrep_ready` ON. A node outside the primary
+ * component (it lost its quorum, or is still joining) gives `{ ready: 0 }`.
+ */
+export const NODE_READY_SQL =
+  "SELECT (@@global.wsrep_on = 0 OR COALESCE((SELECT VARIABLE_VALUE FROM information_schema.GLOBAL_STATUS WHERE VARIABLE_NAME = 'WSREP_READY'), 'OFF') = 'ON') AS ready";
+
+/** Reads the answer of NODE_READY_SQL. */
+export function isReadyAnswer(rows: unknown): boolean {
+  return Array.isArray(rows) && Number((rows[0] as { ready?: unknown } | undefined)?.ready) === 1;
+}
+
+/**
  * Before a new connection's first query, asks the node whether it takes queries
- * (`wsrep_ready`; a server without Galera has no such status and always passes). A node that is
- * not ready is marked down and the connection closed, so the request fails over to 503 or its
- * retry, and the next connection goes to another node.
+ * (NODE_READY_SQL). A node that is not ready is marked down and the connection closed, so the
+ * request fails over to 503 or its retry, and the next connection goes to another node.
  */
 export function watchReadiness(pool: CallbackPool, list: HostList): void {
   pool.on('connection', (connection: CallbackConnection) => {
-    connection.query("SHOW GLOBAL STATUS WHERE Variable_name = 'wsrep_ready'", (error, rows) => {
-      const value = Array.isArray(rows) ? (rows[0] as { Value?: unknown } | undefined)?.Value : undefined;
-      if (!error && (value === undefined || value === 'ON')) return;
+    connection.query(NODE_READY_SQL, (error, rows) => {
+      if (!error && isReadyAnswer(rows)) return;
       const host = (connection as unknown as { stream?: unknown }).stream;
       if (host instanceof FailoverSocket && host.connectedTo) list.markDown(host.connectedTo);
       connection.destroy();
