@@ -42,6 +42,18 @@ export default defineConfig({
           hookTimeout: 60_000,
         },
       },
+      {
+        resolve: { alias },
+        test: {
+          // scripts/test-cluster.sh: a throwaway Galera cluster; the tests start app processes and HAProxy.
+          name: 'cluster',
+          include: ['tests/cluster/**/*.test.ts'],
+          pool: 'forks',
+          poolOptions: { forks: { singleFork: true } },
+          testTimeout: 240_000,
+          hookTimeout: 120_000,
+        },
+      },
     ],
   },
 });

@@ -23,6 +23,7 @@ cd "$(dirname "$0")/.."
 source scripts/lib/common.sh
 source scripts/lib/build.sh
 source scripts/lib/throwaway-stack.sh
+source scripts/lib/galera.sh
 
 TOTAL_BUDGET_S=${BENCH_TOTAL_BUDGET:-280}
 export BENCH_SECONDS=${BENCH_SECONDS:-5}
@@ -32,6 +33,8 @@ started=$SECONDS
 ensure_node_modules
 ensure_mariadb
 ensure_chromium
+# bench/export-spread.ts puts HAProxy in front of two app processes.
+ensure_cluster_packages
 
 throwaway_env bench
 export BASE_URL="$APP_ORIGIN"

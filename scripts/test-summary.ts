@@ -4,6 +4,7 @@
  * A test file that failed to load counts as one failure; a missing report counts as one failure.
  * Before that line: the five slowest test files (from the reports' start and end times), and the
  * reports are copied to the folder named by the second argument (test-results/) to keep.
+ * `--expect=a.json,b.json` names the reports that must be there (default vitest.json,e2e.json).
  */
 import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
@@ -14,8 +15,10 @@ interface VitestReport {
   testResults: { status: string; assertionResults: unknown[]; name: string; message?: string; startTime?: number; endTime?: number }[];
 }
 
-const dir = process.argv[2] ?? '.';
-const keepIn = process.argv[3];
+const args = process.argv.slice(2);
+const expectArg = args.find((a) => a.startsWith('--expect='));
+const [dir = '.', keepIn] = args.filter((a) => !a.startsWith('--'));
+const expectedReports = expectArg ? expectArg.slice('--expect='.length).split(',').filter(Boolean) : ['vitest.json', 'e2e.json'];
 const SLOWEST_SHOWN = 5;
 const durations: { file: string; ms: number }[] = [];
 let passed = 0;
@@ -45,7 +48,7 @@ for (const name of readdirSync(dir)) {
     }
   }
 }
-for (const expected of ['vitest.json', 'e2e.json']) {
+for (const expected of expectedReports) {
   if (!existsSync(join(dir, expected))) {
     console.log(`missing report: ${expected}`);
     failed++;

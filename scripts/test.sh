@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # npm test: installs what it needs, starts a throwaway MariaDB and fake SMTP on free loopback
 # ports (never the start command's data), then runs type checks, unit and integration tests,
-# the import-boundary lint, builds the app and runs the browser tests against the built server.
+# the import-boundary lint, builds the app and runs the browser tests against the built server,
+# then the cluster suite on a throwaway three-node Galera cluster (scripts/test-cluster.sh).
 # Always tears down.
 # The last line is "N passed, N failed" over all suites.
 # `npm test -- FILE...` runs only the test files whose paths contain one of the words (the same
@@ -53,4 +54,13 @@ else
   echo fail >"$results/build.status"
 fi
 
-node_modules/.bin/tsx scripts/test-summary.ts "$results" "$ARTIFACTS_DIR"
+# The cluster suite (tests/cluster) runs on its own throwaway Galera cluster: in a full run, or
+# when one of the words given names it.
+expected=vitest.json,e2e.json
+if [ ${#only[@]} -eq 0 ] || printf '%s\n' "${only[@]}" | grep -q cluster; then
+  cluster_words=(); for word in "${only[@]}"; do [[ "$word" == *cluster* ]] && cluster_words+=("$word"); done
+  bash scripts/test-cluster.sh "$results" "${cluster_words[@]}"
+  expected+=,cluster.json
+fi
+
+node_modules/.bin/tsx scripts/test-summary.ts "$results" "$ARTIFACTS_DIR" --expect="$expected"

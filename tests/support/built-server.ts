@@ -11,6 +11,8 @@ export interface BuiltServer {
   port: number;
   /** Sends SIGTERM and waits until the process has exited. */
   stop(): Promise<void>;
+  /** Sends SIGKILL (a crash: no clean-up) and waits until the process has gone. */
+  kill(): Promise<void>;
 }
 
 async function answers(url: string): Promise<boolean> {
@@ -36,14 +38,15 @@ export async function startBuiltServer(options: BuiltServerOptions = {}): Promis
   }
   const child: ChildProcess = spawn(process.execPath, ['scripts/serve-built-app.mjs'], { env, stdio: 'ignore' });
   const exited = once(child, 'exit');
-  const stop = async () => {
+  const end = async (signal: NodeJS.Signals) => {
     if (child.exitCode === null && child.signalCode === null) {
-      child.kill('SIGTERM');
+      child.kill(signal);
       await exited;
     }
   };
+  const stop = () => end('SIGTERM');
   for (let i = 0; i < 80; i++) {
-    if (await answers(url)) return { url, port: chosen, stop };
+    if (await answers(url)) return { url, port: chosen, stop, kill: () => end('SIGKILL') };
     if (child.exitCode !== null) break;
     await new Promise((r) => setTimeout(r, 250));
   }

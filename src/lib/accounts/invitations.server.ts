@@ -7,6 +7,7 @@ import { hashPassword } from '~/lib/auth/index.server.ts';
 import { config } from '~/lib/config/env.server.ts';
 import { db, type Db } from '~/lib/db/client.server.ts';
 import { newUserId } from '~/lib/db/ids.server.ts';
+import { withRetry } from '~/lib/db/with-retry.server.ts';
 import { oneTimeTokens, shops, users, type Role } from '~/lib/db/schema.ts';
 import type { AcceptInvitationInput } from '~/lib/schemas/account.ts';
 import { invitationMail } from './account-mail.ts';
@@ -34,10 +35,10 @@ export interface PendingInvitation {
 const NOT_SENT = 'The invitation is saved, but the e-mail could not be sent. Try "Resend" in a moment.';
 
 async function issueAndMail(inviter: Inviter, email: string, role: Role): Promise<Outcome> {
-  const token = await db().transaction(async (tx) => {
+  const token = await withRetry(() => db().transaction(async (tx) => {
     await revokePendingTokens(tx, 'invite', inviter.shopId, email);
     return issueToken(tx, { kind: 'invite', shopId: inviter.shopId, email, role, createdBy: inviter.userId, ttlMs: INVITATION_TTL_MS });
-  });
+  }));
   const mail = invitationMail(config().appOrigin, await shopName(inviter.shopId), role, inviter.displayName, token);
   return (await sendMail({ to: email, ...mail })) ? done(undefined) : refused(502, {}, NOT_SENT);
 }
@@ -99,7 +100,7 @@ export async function describeInvitation(token: string): Promise<InvitationView 
  */
 export async function acceptInvitation(token: string, input: AcceptInvitationInput): Promise<Outcome<{ userId: string; email: string }>> {
   const passwordHash = await hashPassword(input.password);
-  const result = await db().transaction(async (tx) => {
+  const result = await withRetry(() => db().transaction(async (tx) => {
     const row = await findUsableToken(tx, JOIN_LINKS, token, true);
     if (!row?.role) return 'gone' as const;
     const [taken] = await tx.select({ id: users.id }).from(users).where(eq(users.email, row.email)).limit(1);
@@ -110,7 +111,7 @@ export async function acceptInvitation(token: string, input: AcceptInvitationInp
     await tx.insert(users).values({ id, shopId, email: row.email, displayName: input.displayName, passwordHash, role: row.role });
     await markTokenUsed(tx, row.id);
     return { userId: id, email: row.email };
-  });
+  }));
   if (result === 'gone') return refused(410, {}, LINK_NO_LONGER_VALID);
   if (result === 'taken') {
     return refused(409, {}, 'This e-mail address already has a Kerfline account. Sign in with it, or ask the shop to invite another address.');

@@ -28,6 +28,7 @@ import { boardApproval, type Approval } from '~/lib/proofs/board-approval.ts';
 import type { RevisionReason } from '~/lib/schemas/board.ts';
 import { db, type Db } from './client.server.ts';
 import { designRevisions, designs, proofs, users } from './schema.ts';
+import { withRetry } from './with-retry.server.ts';
 
 /** Who writes: the signed-in user's id and shop. */
 export interface Writer {
@@ -358,14 +359,14 @@ async function writeLocked<T>(
   expectedVersion: number | undefined,
   change: (tx: Tx, locked: Locked) => Promise<WriteResult<T>>,
 ): Promise<WriteResult<T>> {
-  return db().transaction(async (tx) => {
+  return withRetry(() => db().transaction(async (tx) => {
     const locked = await lockHead(tx, writer.shopId, id);
     if (!locked) return { ok: false, reason: 'not_found' };
     if (expectedVersion !== undefined && expectedVersion !== locked.head.version) {
       return { ok: false, reason: 'conflict', current: detailOf(locked.head) };
     }
     return change(tx, locked);
-  });
+  }));
 }
 
 /** Writes `fields` to the head row with the next version; returns the row as it now is. */
@@ -427,12 +428,14 @@ export function saveRevision(writer: Writer, id: number, version: number | undef
  * one), so every print names a revision. Null when the shop has no such board.
  */
 export async function exportRevision(writer: Writer, id: number): Promise<BoardDetail | null> {
-  return db().transaction(async (tx) => {
-    const locked = await lockHead(tx, writer.shopId, id);
-    if (!locked) return null;
-    const { revision } = await checkpointLocked(tx, writer, locked.head, 'export', 'Made for an export');
-    return readDetail(tx, writer.shopId, id, revision);
-  });
+  return withRetry(() =>
+    db().transaction(async (tx) => {
+      const locked = await lockHead(tx, writer.shopId, id);
+      if (!locked) return null;
+      const { revision } = await checkpointLocked(tx, writer, locked.head, 'export', 'Made for an export');
+      return readDetail(tx, writer.shopId, id, revision);
+    }),
+  );
 }
 
 /**

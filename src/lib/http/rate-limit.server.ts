@@ -16,6 +16,7 @@ import { config } from '~/lib/config/env.server.ts';
 import { getPool } from '~/lib/db/client.server.ts';
 import { isDbUnavailable, withDbTimeout } from '~/lib/db/db-errors.ts';
 import { rateLimits } from '~/lib/db/schema.ts';
+import { withRetry } from '~/lib/db/with-retry.server.ts';
 import { retryAfterSeconds, scaledPoints, type Budget } from './rate-budgets.ts';
 
 export interface Counter {
@@ -101,7 +102,8 @@ function memoryFor(counter: Counter): RateLimiterMemory {
 /** Runs `work` on the shared store, or on this process's memory while MariaDB is down (if allowed). */
 async function onStore<T>(counter: Counter, work: (limiter: RateLimiterAbstract) => Promise<T>): Promise<T> {
   try {
-    return await withDbTimeout(work(storeFor(counter)), LIMITER_TIMEOUT_MS);
+    // A Galera certification conflict on the shared counter rolled the count back: count again.
+    return await withDbTimeout(withRetry(() => work(storeFor(counter))), LIMITER_TIMEOUT_MS);
   } catch (error) {
     if (error instanceof RateLimiterRes || counter.whenDatabaseDown !== 'per-process' || !isDbUnavailable(error)) throw error;
     return work(memoryFor(counter));

@@ -18,6 +18,7 @@ import type {
   SharedProof,
 } from '~/lib/schemas/proof.ts';
 import { db } from '~/lib/db/client.server.ts';
+import { withRetry } from '~/lib/db/with-retry.server.ts';
 import { checkpointLocked, findRevisionDesign, findShopDesign, lockBoard, refreshApproval, storedJson } from '~/lib/db/designs.server.ts';
 import { designRevisions, designs, proofs, shops, users } from '~/lib/db/schema.ts';
 import { mailBuilderDecision, mailClientProof } from '~/lib/proofs/proof-mails.server.ts';
@@ -185,7 +186,7 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
   if (row.decision) return { ok: false, reason: 'already_decided' };
   if (row.expiresAt.getTime() <= now.getTime()) return { ok: false, reason: 'expired' };
   const comment = input.decision === 'changes_requested' ? input.comment : '';
-  const recorded = await db().transaction(async (tx) => {
+  const recorded = await withRetry(() => db().transaction(async (tx) => {
     const [result] = await tx
       .update(proofs)
       .set({ decision: input.decision, decidedAt: now, decidedName: input.name, decisionComment: comment })
@@ -193,7 +194,7 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
     if (result.affectedRows !== 1) return null;
     await refreshApproval(tx, row.shopId, row.designId);
     return findShopDesign(tx, row.shopId, row.designId);
-  });
+  }));
   if (!recorded) return { ok: false, reason: 'already_decided' };
   const decision: ProofDecision = { kind: input.decision, at: now.toISOString(), name: input.name, comment };
   const [builder] = await db().select({ email: users.email }).from(users).where(eq(users.id, row.createdBy));
