@@ -1,6 +1,28 @@
 import type { APIRoute } from 'astro';
-import { handleExportRequest } from '~/lib/export/export-endpoint.server.ts';
+import { designExportResponse } from '~/lib/export/design-export.server.ts';
+import { readJson } from '~/lib/http/body.server.ts';
+import { methodNotAllowed } from '~/lib/http/method-not-allowed.ts';
+import { invalid } from '~/lib/http/problem.ts';
+import { answerOrServerError } from '~/lib/http/server-error.server.ts';
+import { DESIGN_JSON_MAX_BYTES, validateDesign } from '~/lib/schemas/design.ts';
+import { validateExportOptions } from '~/lib/schemas/export-options.ts';
 
 export const prerender = false;
 
-export const POST: APIRoute = ({ request }) => handleExportRequest(request);
+/**
+ * POST /api/export?format=pdf|dxf|svg|csv|json&paper=...: a design as JSON in (saved or not), the
+ * file out as an attachment. Public like /api/layout: it stores and reads nothing. Options come
+ * from the query string; a bad option is a 400 naming it, a bad design the geometry's 400, an
+ * export over a cap a 422 naming the option to change (docs/exports.md, "Limits").
+ */
+export const POST: APIRoute = ({ request, url }) => answerOrServerError('The export', async () => {
+  const options = validateExportOptions(Object.fromEntries(url.searchParams));
+  if (!options.ok) return invalid(options.issues);
+  const body = await readJson(request, DESIGN_JSON_MAX_BYTES);
+  if (!body.ok) return body.response;
+  const design = validateDesign(body.value);
+  if (!design.ok) return invalid(design.issues);
+  return designExportResponse(design.design, options.options, {}, request.signal);
+});
+
+export const ALL: APIRoute = () => methodNotAllowed('POST', 'Use POST with a design as JSON');

@@ -20,7 +20,7 @@ export const GET: APIRoute = ({ locals, params, url, request }) => answerOrServe
   const { revision, ...query } = Object.fromEntries(url.searchParams);
   const found = await requestedBoard(locals.user, params.id, revision);
   if (!found.ok) return found.response;
-  const { user, board } = found;
+  const { user, board } = found.value;
   const options = validateExportOptions({ format: 'json', ...query });
   if (!options.ok) return invalid(options.issues);
 

@@ -9,7 +9,7 @@ export const prerender = false;
 export const GET: APIRoute = async ({ locals, params }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;
-  const { user, id } = target;
+  const { user, id } = target.value;
   const revisions = await listRevisions(user.shopId, id);
   return revisions ? json({ items: revisions }) : boardNotFound();
 };

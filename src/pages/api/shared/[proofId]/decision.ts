@@ -1,5 +1,6 @@
 import type { APIRoute } from 'astro';
-import { CAN, requireRole } from '~/lib/auth/index.server.ts';
+import { CAN } from '~/lib/auth/index.server.ts';
+import { requireRole } from '~/lib/http/require-role.ts';
 import { handleDecision } from '~/lib/proofs/decision-endpoint.server.ts';
 import { parseRecordId } from '~/lib/http/record-id.ts';
 
@@ -10,6 +11,6 @@ export const POST: APIRoute = ({ params, request, locals }) => {
   const guard = requireRole(locals.user, CAN.viewProofs);
   if (!guard.ok) return guard.response;
   const id = parseRecordId(params.proofId);
-  const locator = id !== null ? { proofId: id, shopId: guard.user.shopId, clientEmail: guard.user.email } : null;
-  return handleDecision(request, locator, `user:${guard.user.id}`, new Date());
+  const locator = id !== null ? { proofId: id, shopId: guard.value.shopId, clientEmail: guard.value.email } : null;
+  return handleDecision(request, locator, `user:${guard.value.id}`, new Date());
 };
