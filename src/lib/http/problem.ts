@@ -7,9 +7,6 @@ import type { ZodError } from 'zod';
 /** What a route step gives back: the value to go on with, or the answer (4xx/5xx) to send as it is. */
 export type Checked<T> = { ok: true; value: T } | { ok: false; response: Response };
 
-export const passed = <T>(value: T): Checked<T> => ({ ok: true, value });
-export const refused = (response: Response): Checked<never> => ({ ok: false, response });
-
 export interface FieldIssue {
   path: string;
   message: string;

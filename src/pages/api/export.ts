@@ -1,7 +1,6 @@
 import type { APIRoute } from 'astro';
 import { designExportResponse } from '~/lib/export/design-export.server.ts';
 import { readJson } from '~/lib/http/body.server.ts';
-import { methodNotAllowed } from '~/lib/http/method-not-allowed.ts';
 import { invalid } from '~/lib/http/problem.ts';
 import { answerOrServerError } from '~/lib/http/server-error.server.ts';
 import { DESIGN_JSON_MAX_BYTES, validateDesign } from '~/lib/schemas/design.ts';
@@ -25,4 +24,3 @@ export const POST: APIRoute = ({ request, url }) => answerOrServerError('The exp
   return designExportResponse(design.design, options.options, {}, request.signal);
 });
 
-export const ALL: APIRoute = () => methodNotAllowed('POST', 'Use POST with a design as JSON');

@@ -3,7 +3,6 @@ import { compactLayoutJson } from '~/lib/export/layout-json.server.ts';
 import { LAYOUT_FORMATS, isLayoutFormatName, type LayoutFormatName } from '~/lib/export/layout-formats.ts';
 import { computeLayout, fretFractions } from '~/lib/geometry/layout.ts';
 import { readJson } from '~/lib/http/body.server.ts';
-import { methodNotAllowed } from '~/lib/http/method-not-allowed.ts';
 import { invalid, problem } from '~/lib/http/problem.ts';
 import { DESIGN_JSON_MAX_BYTES, validateDesign } from '~/lib/schemas/design.ts';
 
@@ -30,7 +29,6 @@ export const POST: APIRoute = async ({ request, url }) => {
   return new Response(text, { status: 200, headers: { 'content-type': output.contentType, 'cache-control': 'no-store' } });
 };
 
-export const ALL: APIRoute = () => methodNotAllowed('POST', 'Use POST with a design as JSON');
 
 /** `?format=` wins; otherwise `Accept: text/csv` asks for CSV; JSON is the default. */
 function requestedFormat(url: URL, request: Request): LayoutFormatName | null {

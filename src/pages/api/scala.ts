@@ -1,7 +1,6 @@
 import type { APIRoute } from 'astro';
 import { parseScl } from '~/lib/geometry/scala.ts';
 import { readText } from '~/lib/http/body.server.ts';
-import { methodNotAllowed } from '~/lib/http/method-not-allowed.ts';
 import { json, problem } from '~/lib/http/problem.ts';
 
 export const prerender = false;
@@ -25,4 +24,3 @@ export const POST: APIRoute = async ({ request }) => {
   return json(parsed.scale);
 };
 
-export const ALL: APIRoute = () => methodNotAllowed('POST', 'Use POST with the .scl text as the body');

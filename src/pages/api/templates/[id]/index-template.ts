@@ -43,5 +43,5 @@ export const GET: APIRoute = ({ locals, params, url, request }) => answerOrServe
     });
   }
   const run = await runExport({ kind: 'index-template', strip, filename: fileName('pdf') }, request.signal);
-  return run.ok ? pdfResponse(run.file.bytes, run.file.filename) : run.response;
+  return run.ok ? pdfResponse(run.value.bytes, run.value.filename) : run.response;
 });

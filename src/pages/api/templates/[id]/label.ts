@@ -24,5 +24,5 @@ export const GET: APIRoute = ({ locals, params, url, request }) => answerOrServe
   const { template } = found.value;
   const content = { ...template, url: `${config().appOrigin}/templates/${template.id}` };
   const run = await runExport({ kind: 'label', content, size, filename: exportFileName(template.name, { kind: 'label', templateId: template.id, size: size.id }) }, request.signal);
-  return run.ok ? pdfResponse(run.file.bytes, run.file.filename) : run.response;
+  return run.ok ? pdfResponse(run.value.bytes, run.value.filename) : run.response;
 });
