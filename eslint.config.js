@@ -4,7 +4,9 @@
  * - a module without `.server` in its name is pure and browser-safe: it imports no `*.server.ts`
  *   module and no server-only package;
  * - the geometry imports only geometry, the units and the design schema;
- * - src/lib never imports pages or components, and the product never imports tests or fixtures;
+ * - src/lib never imports pages, components or actions (the route layer sits above it); route files
+ *   and actions never import each other: what two routes share lives in lib;
+ * - the product never imports tests or fixtures;
  * - one import spelling: the project's own modules are named with their extension.
  */
 import tseslint from 'typescript-eslint';
@@ -17,7 +19,9 @@ const SERVER_ONLY_PACKAGES = [
 
 const serverModules = { group: ['**/*.server', '**/*.server.ts', '**/*.server.js'], allowTypeImports: true, message: 'a pure module (no .server in its name) must not import a .server module: it may run in the browser' };
 const serverPackages = { group: SERVER_ONLY_PACKAGES, message: 'a pure module (no .server in its name) must not use a server-only package; move this code into a .server.ts file' };
-const noPagesOrComponents = { group: ['~/pages/*', '~/components/*', '**/pages/**', '**/components/**'], message: 'src/lib is below pages and components: it never imports them' };
+const noPagesOrComponents = { group: ['~/pages/*', '~/components/*', '~/actions/*', '**/pages/**', '**/components/**', '**/actions/**'], message: 'src/lib is below pages, components and actions: it never imports them' };
+const noOtherRoutes = { group: ['~/pages/*', '~/actions/*', '**/pages/**', '**/actions/**'], message: 'a route file or action never imports another: move what they share into src/lib' };
+const noRelativeModules = { regex: '^\\.{1,2}/.*\\.tsx?$', message: 'a route file or action imports lib by `~/lib/…`, never a neighbour: move what they share into src/lib' };
 const noTests = { group: ['**/tests/**', '**/fixtures/**', '**/bench/**'], message: 'the product never imports tests, fixtures or benchmarks' };
 
 export default tseslint.config(
@@ -40,11 +44,21 @@ export default tseslint.config(
   },
   {
     files: ['src/**/*.{ts,tsx}'],
-    ignores: ['src/**/*.server.ts', 'src/middleware.ts', 'src/pages/**'],
+    ignores: ['src/**/*.server.ts', 'src/middleware.ts', 'src/pages/**', 'src/actions/**'],
     rules: { '@typescript-eslint/no-restricted-imports': ['error', { patterns: [serverModules, serverPackages, noTests] }] },
   },
   {
-    files: ['src/lib/**/*.server.ts', 'src/middleware.ts', 'src/pages/**/*.ts'],
+    files: ['src/lib/**/*.server.ts', 'src/middleware.ts'],
+    rules: { '@typescript-eslint/no-restricted-imports': ['error', { patterns: [noTests] }] },
+  },
+  {
+    // The route layer: API routes (src/pages/**) and form actions (src/actions/**) call lib only.
+    files: ['src/pages/**/*.ts', 'src/actions/**/*.ts'],
+    ignores: ['src/actions/index.ts'],
+    rules: { '@typescript-eslint/no-restricted-imports': ['error', { patterns: [noOtherRoutes, noRelativeModules, noTests] }] },
+  },
+  {
+    files: ['src/actions/index.ts'],
     rules: { '@typescript-eslint/no-restricted-imports': ['error', { patterns: [noTests] }] },
   },
   {

@@ -6,11 +6,13 @@
  * and what a constant answer (GET /api/version) never pays. Medians over batches after a warm-up.
  */
 import { readFileSync } from 'node:fs';
+import type { APIContext } from 'astro';
+import { compactLayoutJson } from '~/lib/export/layout-json.server.ts';
 import { LAYOUT_FORMATS } from '~/lib/export/layout-formats.ts';
-import { LAYOUT_BODY_MAX_BYTES, handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server.ts';
-import { computeLayout } from '~/lib/geometry/layout.ts';
+import { computeLayout, fretFractions } from '~/lib/geometry/layout.ts';
 import { readJson } from '~/lib/http/body.server.ts';
-import { validateDesign } from '~/lib/schemas/design.ts';
+import { DESIGN_JSON_MAX_BYTES, validateDesign } from '~/lib/schemas/design.ts';
+import { POST } from '~/pages/api/layout.ts';
 import { reportFigure } from './lib/figure.ts';
 
 const BATCHES = 31;
@@ -23,6 +25,8 @@ const validation = validateDesign(JSON.parse(text));
 if (!validation.ok) throw new Error('the demo design does not validate');
 const design = validation.design;
 const layout = computeLayout(design);
+const fractions = fretFractions(design.temperament, design.frets);
+const callRoute = (request: Request) => POST({ request, url: new URL(request.url) } as unknown as APIContext);
 
 async function medianMicroseconds(work: () => unknown): Promise<number> {
   for (let i = 0; i < WARM_UP; i++) await work();
@@ -38,12 +42,13 @@ async function medianMicroseconds(work: () => unknown): Promise<number> {
 
 const stages: [string, () => unknown][] = [
   ['build the Request (as the adapter does)', request],
-  ['read the body (limit, UTF-8, JSON.parse)', () => readJson(request(), LAYOUT_BODY_MAX_BYTES)],
+  ['read the body (limit, UTF-8, JSON.parse)', () => readJson(request(), DESIGN_JSON_MAX_BYTES)],
   ['validate the design', () => validateDesign(JSON.parse(text))],
   ['compute the layout', () => computeLayout(design)],
-  ['serialise the layout JSON', () => LAYOUT_FORMATS.json.render(layout)],
+  ['serialise the compact layout JSON (the answer)', () => compactLayoutJson(layout, fractions)],
+  ['serialise the full layout JSON (?full=1)', () => LAYOUT_FORMATS.json.render(layout)],
   ['whole route, answer streamed out as the adapter writes it', async () => {
-    const response = await handleLayoutRequest(request());
+    const response = await callRoute(request());
     for await (const chunk of response.body!) void chunk;
   }],
 ];
@@ -51,4 +56,5 @@ const round = (value: number) => Math.round(value * 10) / 10;
 for (const [stage, work] of stages) {
   reportFigure({ figure: `POST /api/layout inside the route: ${stage} (median)`, value: round(await medianMicroseconds(work)), unit: 'µs', goal: 'context' });
 }
-reportFigure({ figure: 'POST /api/layout answer size (7-string fanned, JSON)', value: Buffer.byteLength(LAYOUT_FORMATS.json.render(layout)), unit: 'bytes', goal: 'context' });
+reportFigure({ figure: 'POST /api/layout answer size (7-string fanned, compact JSON)', value: Buffer.byteLength(compactLayoutJson(layout, fractions)), unit: 'bytes', goal: 'context' });
+reportFigure({ figure: 'POST /api/layout?full=1 answer size (7-string fanned, full JSON)', value: Buffer.byteLength(LAYOUT_FORMATS.json.render(layout)), unit: 'bytes', goal: 'context' });

@@ -1,6 +1,6 @@
 /**
  * Every request passes here: security headers and `Cache-Control: no-store`, the same-origin
- * (CSRF) check, the signed-in user, the route budgets of CPU-heavy public routes, and a 503
+ * (CSRF) check, the size of form posts to Astro Actions, the signed-in user, the route budgets of CPU-heavy public routes, and a 503
  * instead of a 500 when the database is down (rate limit counters live there too). Roles are
  * checked again in each route.
  */
@@ -9,6 +9,7 @@ import { resolveSession } from '~/lib/auth/index.server.ts';
 import { config } from '~/lib/config/env.server.ts';
 import { isDbUnavailable } from '~/lib/db/db-errors.ts';
 import { clientIp } from '~/lib/http/client-ip.ts';
+import { actionBodyRefusal } from '~/lib/http/action-body.ts';
 import { problem } from '~/lib/http/problem.ts';
 import { ROUTE_BUDGETS, reserveFor, type Budget } from '~/lib/http/rate-budgets.ts';
 import { consumeEach, type Counter } from '~/lib/http/rate-limit.server.ts';
@@ -27,6 +28,12 @@ const sameOrigin = defineMiddleware((context, next) => {
   }
   return next();
 });
+
+/**
+ * Astro Actions read their whole form body themselves, with no limit: a form post to an action
+ * must declare its length, at most the forms' limit, before it is read.
+ */
+const actionBodies = defineMiddleware((context, next) => actionBodyRefusal(context.request, context.url) ?? next());
 
 const session = defineMiddleware(async (context, next) => {
   context.locals.user = null;
@@ -74,4 +81,4 @@ const databaseDown = defineMiddleware(async (context, next) => {
   }
 });
 
-export const onRequest = sequence(headers, sameOrigin, databaseDown, session, routeBudgets);
+export const onRequest = sequence(headers, sameOrigin, actionBodies, databaseDown, session, routeBudgets);

@@ -87,7 +87,7 @@ describe('CSRF: every non-GET request needs this site as its Origin', () => {
 
   it('refuses cross-site form posts, and other methods, with 403', async () => {
     const user = await newShopUser('owner');
-    const forged = await post('/members?action=invite', { email: uniqueEmail('victim'), role: 'owner' }, { cookie: user.cookie, origin: 'https://evil.example' });
+    const forged = await post('/members?_action=members.invite', { email: uniqueEmail('victim'), role: 'owner' }, { cookie: user.cookie, origin: 'https://evil.example' });
     expect(forged.status).toBe(403);
     expect((await fetch(`${BASE_URL}/sign-out`, { method: 'POST', headers: { cookie: user.cookie } })).status).toBe(403);
     expect((await fetch(`${BASE_URL}/api/version`, { method: 'DELETE' })).status).toBe(403);
@@ -205,7 +205,7 @@ describe('development Outbox page', () => {
 describe('shop settings on the Members page', () => {
   it('the Owner sets the time zone; an unknown zone gets 400 with the message beside the field and changes nothing', async () => {
     const owner = await newShopUser('owner');
-    const send = (timeZone: string) => post('/members?action=settings', { timeZone }, { cookie: owner.cookie });
+    const send = (timeZone: string) => post('/members?_action=members.settings', { timeZone }, { cookie: owner.cookie });
     const bad = await send('Mars/Olympus_Mons');
     expect(bad.status).toBe(400);
     expect(await bad.text()).toContain('choose a time zone from the list');

@@ -50,7 +50,7 @@ describe('Export panel: slot toolpath (Chromium, built server)', () => {
     const button = page.getByRole('button', { name: 'Download Slot toolpath (G-code)' });
     await button.focus();
     const [download] = await Promise.all([page.waitForEvent('download'), page.keyboard.press('Enter')]);
-    expect(download.suggestedFilename()).toBe('Demo-seven-string-multi-scale-guitar-slot-toolpath.nc');
+    expect(download.suggestedFilename()).toBe('demo-seven-string-multi-scale-guitar-slot-toolpath.nc');
     const text = await readFile((await download.path())!, 'utf8');
     expect(text).toMatch(/^G21 G90 G17 G94$/m);
     expect(text).not.toMatch(/^G64/m);

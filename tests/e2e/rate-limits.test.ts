@@ -231,10 +231,10 @@ describe('no mail cannon: proofs and invitations per user and per shop per hour'
     const from = testAddress();
     const young = MAIL_BUDGETS.invitation.young.perUser.points;
     for (let i = 0; i < young; i++) {
-      const sent = await postForm(proxied.url, '/members?action=invite', { email: uniqueEmail('invitee'), role: 'client' }, { cookie: owner.cookie, forwardedFor: from });
+      const sent = await postForm(proxied.url, '/members?_action=members.invite', { email: uniqueEmail('invitee'), role: 'client' }, { cookie: owner.cookie, forwardedFor: from });
       expect(sent.status).toBe(303);
     }
-    const limited = await postForm(proxied.url, '/members?action=invite', { email: uniqueEmail('invitee'), role: 'client' }, { cookie: owner.cookie, forwardedFor: from });
+    const limited = await postForm(proxied.url, '/members?_action=members.invite', { email: uniqueEmail('invitee'), role: 'client' }, { cookie: owner.cookie, forwardedFor: from });
     expect(limited.status).toBe(429);
     expect(Number(limited.headers.get('retry-after'))).toBeGreaterThan(0);
     expect(await limited.text()).toMatch(/as many invitations as it may for now\. Try again in \d+ minutes?/);

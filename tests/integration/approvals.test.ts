@@ -14,7 +14,7 @@ import type { BoardDetail, BoardList, BoardRevision } from '~/lib/schemas/board.
 import type { Design } from '~/lib/schemas/design.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import * as listRoute from '~/pages/api/designs/index.ts';
-import * as boardRoute from '~/pages/api/designs/[id].ts';
+import * as boardRoute from '~/pages/api/designs/[id]/index.ts';
 import * as exportRoute from '~/pages/api/designs/[id]/export.ts';
 import * as restoreRoute from '~/pages/api/designs/[id]/restore.ts';
 import * as revisionsRoute from '~/pages/api/designs/[id]/revisions.ts';

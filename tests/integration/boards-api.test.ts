@@ -6,7 +6,7 @@ import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail, BoardList, BoardRevision } from '~/lib/schemas/board.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import * as listRoute from '~/pages/api/designs/index.ts';
-import * as boardRoute from '~/pages/api/designs/[id].ts';
+import * as boardRoute from '~/pages/api/designs/[id]/index.ts';
 import * as archiveRoute from '~/pages/api/designs/[id]/archive.ts';
 import * as duplicateRoute from '~/pages/api/designs/[id]/duplicate.ts';
 import * as exportRoute from '~/pages/api/designs/[id]/export.ts';

@@ -10,7 +10,7 @@ import { DEMO_SHOP_NAME, seedDemoShop } from '~/lib/db/seed/demo-shop.server.ts'
 import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server.ts';
 import type { FretWire } from '~/lib/schemas/fret-wire.ts';
 import * as collection from '~/pages/api/fret-wire/index.ts';
-import * as one from '~/pages/api/fret-wire/[id].ts';
+import * as one from '~/pages/api/fret-wire/[id]/index.ts';
 import * as boardExport from '~/pages/api/designs/[id]/export.ts';
 import { callRoute } from '../support/route-call.ts';
 import { addShopUser, newShopUser, type TestUser } from '../support/sessions.ts';

@@ -5,7 +5,7 @@ import { setShopTimeZone } from '~/lib/accounts/users.server.ts';
 import { createProof, decideProof, listDesignProofs, listSharedWith, openProof, revokeProof } from '~/lib/proofs/proofs.server.ts';
 import { designs, proofs, shops } from '~/lib/db/schema.ts';
 import { seedDemoProof } from '~/lib/db/seed/demo-proof.server.ts';
-import { handleDecision } from '~/lib/proofs/decision-endpoint.server.ts';
+import { decisionAnswer } from '~/lib/proofs/proof-answers.server.ts';
 import { PROOF_LIMITS, type CreatedProof } from '~/lib/schemas/proof.ts';
 import * as designProofsRoute from '~/pages/api/designs/[id]/proofs.ts';
 import * as tokenDecisionRoute from '~/pages/api/p/[token]/decision.ts';
@@ -256,14 +256,14 @@ describe('revoking, expiry and links that do not open', () => {
     const justAfter = new Date(T0.getTime() + 2 * DAY_MS + 1000);
     expect(await openProof({ token }, justBefore)).not.toBeNull();
     expect(await openProof({ token }, justAfter)).toBeNull();
-    const body = JSON.stringify({ decision: 'approved', name: 'C', confirmed: true });
-    const request = () => new Request('http://127.0.0.1/api/p/x/decision', { method: 'POST', headers: { 'content-type': 'application/json' }, body });
-    const late = await handleDecision(request(), { token }, '192.0.2.20', justAfter);
+    // What the decision route answers, at a given time.
+    const answerAt = async (now: Date) => decisionAnswer(await decideProof({ token }, { decision: 'approved', name: 'C', confirmed: true }, now));
+    const late = await answerAt(justAfter);
     expect(late.status).toBe(409);
     expect(((await late.json()) as { error: string }).error).toMatch(/expired/);
     const list = await listDesignProofs(builder.shopId, designId, justAfter);
     expect(list!.find((p) => p.id === result!.proof.id)?.state).toBe('expired');
-    expect((await handleDecision(request(), { token }, '192.0.2.20', justBefore)).status).toBe(200);
+    expect((await answerAt(justBefore)).status).toBe(200);
   });
 
   it('unknown, expired, revoked and malformed tokens get the same 404 answer from the decision route', async () => {

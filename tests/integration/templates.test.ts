@@ -10,15 +10,36 @@ import { seedDemoShop } from '~/lib/db/seed/demo-shop.server.ts';
 import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { TemplateView } from '~/lib/schemas/template.ts';
-import { listChecksRoute, postCheckRoute } from '~/lib/templates/check-endpoints.server.ts';
-import { indexTemplateRoute, labelRoute } from '~/lib/templates/export-endpoints.server.ts';
-import { createRoute, listRoute, readRoute, retireRoute, updateRoute } from '~/lib/templates/shelf-endpoints.server.ts';
+import type { APIContext, APIRoute } from 'astro';
+import * as checksRoute from '~/pages/api/templates/[id]/checks.ts';
+import * as indexTemplateFile from '~/pages/api/templates/[id]/index-template.ts';
+import * as templateRoute from '~/pages/api/templates/[id]/index.ts';
+import * as labelFile from '~/pages/api/templates/[id]/label.ts';
+import * as shelfRoute from '~/pages/api/templates/index.ts';
 import { newShopUser, type TestUser } from '../support/sessions.ts';
 import { closeDb, db } from '../support/test-db.ts';
 
 afterAll(() => closeDb());
 
 const ORIGIN = 'http://127.0.0.1:4321';
+
+/** Calls a route module's handler as the router would, for `user` (no middleware). */
+function call(route: APIRoute | undefined, user: SessionUser | null, request: Request, id?: string): Promise<Response> {
+  if (!route) throw new Error('no such handler');
+  const context = { request, url: new URL(request.url), params: id === undefined ? {} : { id }, locals: { user, sessionId: null } };
+  return Promise.resolve(route(context as unknown as APIContext));
+}
+const get = (url: URL | string) => new Request(url, { method: 'GET' });
+const templateUrl = (id: string, rest = '') => `${ORIGIN}/api/templates/${id}${rest}`;
+const createRoute = (user: SessionUser, request: Request) => call(shelfRoute.POST, user, request);
+const listRoute = (user: SessionUser, url: URL) => call(shelfRoute.GET, user, get(url));
+const readRoute = (user: SessionUser, id: string) => call(templateRoute.GET, user, get(templateUrl(id)), id);
+const updateRoute = (user: SessionUser, id: string, request: Request) => call(templateRoute.PATCH, user, request, id);
+const retireRoute = (user: SessionUser, id: string) => call(templateRoute.DELETE, user, new Request(templateUrl(id), { method: 'DELETE' }), id);
+const listChecksRoute = (user: SessionUser, id: string) => call(checksRoute.GET, user, get(templateUrl(id, '/checks')), id);
+const postCheckRoute = (user: SessionUser, id: string, request: Request) => call(checksRoute.POST, user, request, id);
+const labelRoute = (user: SessionUser, id: string, url: URL) => call(labelFile.GET, user, get(url), id);
+const indexTemplateRoute = (user: SessionUser, id: string, url: URL) => call(indexTemplateFile.GET, user, get(url), id);
 
 async function sessionUser(test: TestUser): Promise<SessionUser> {
   const [row] = await db().select().from(users).where(eq(users.id, test.id));

@@ -22,9 +22,9 @@ export const BOARDS_ROUTES: readonly RouteCase[] = [
   { file: 'pages/api/designs/index.ts', method: 'GET', path: '/api/designs?sort=scale&pageSize=10', expect: writers(200) },
   { file: 'pages/api/designs/index.ts', method: 'POST', path: '/api/designs', body: { design }, expect: writers(201) },
   { file: 'pages/api/designs/import.ts', method: 'POST', path: '/api/designs/import', body: design, expect: writers(201) },
-  { file: 'pages/api/designs/[id].ts', method: 'GET', path: (ids) => `/api/designs/${ids.designId}`, expect: writers(200, 404) },
+  { file: 'pages/api/designs/[id]/index.ts', method: 'GET', path: (ids) => `/api/designs/${ids.designId}`, expect: writers(200, 404) },
   {
-    file: 'pages/api/designs/[id].ts',
+    file: 'pages/api/designs/[id]/index.ts',
     method: 'PATCH',
     path: (ids) => `/api/designs/${ids.designId}`,
     // The version may be stale by the time the matrix runs: 409 also proves the write was allowed.

@@ -17,7 +17,7 @@ export const FRET_WIRE_ROUTES: readonly RouteCase[] = [
     // The second member of the demo shop to add the same name gets the 409.
     expect: { anonymous: 401, client: 403, builder: [201, 409], owner: [201, 409], otherOwner: [201, 409] },
   },
-  { file: 'pages/api/fret-wire/[id].ts', method: 'GET', path: (ids: MatrixIds) => `/api/fret-wire/${ids.wireId}`, expect: shopOnly },
-  { file: 'pages/api/fret-wire/[id].ts', method: 'PUT', path: (ids: MatrixIds) => `/api/fret-wire/${ids.wireId}`, body: seeded, expect: shopOnly },
-  { file: 'pages/api/fret-wire/[id].ts', method: 'DELETE', path: '/api/fret-wire/2000000000', expect: { anonymous: 401, client: 403, builder: 404, owner: 404, otherOwner: 404 } },
+  { file: 'pages/api/fret-wire/[id]/index.ts', method: 'GET', path: (ids: MatrixIds) => `/api/fret-wire/${ids.wireId}`, expect: shopOnly },
+  { file: 'pages/api/fret-wire/[id]/index.ts', method: 'PUT', path: (ids: MatrixIds) => `/api/fret-wire/${ids.wireId}`, body: seeded, expect: shopOnly },
+  { file: 'pages/api/fret-wire/[id]/index.ts', method: 'DELETE', path: '/api/fret-wire/2000000000', expect: { anonymous: 401, client: 403, builder: 404, owner: 404, otherOwner: 404 } },
 ];

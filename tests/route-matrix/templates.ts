@@ -38,10 +38,10 @@ export const TEMPLATE_ROUTES: readonly RouteCase[] = [
     // Another shop's design is not found, and nothing is saved for it.
     expect: { anonymous: 401, client: 403, builder: 201, owner: 201, otherOwner: 404 },
   },
-  { file: 'pages/api/templates/[id].ts', method: 'GET', path: (ids) => `/api/templates/${ids.templateId}`, expect: shelfOnly },
-  { file: 'pages/api/templates/[id].ts', method: 'DELETE', path: (ids) => `/api/templates/${ids.templateId}`, expect: shelfOnly },
+  { file: 'pages/api/templates/[id]/index.ts', method: 'GET', path: (ids) => `/api/templates/${ids.templateId}`, expect: shelfOnly },
+  { file: 'pages/api/templates/[id]/index.ts', method: 'DELETE', path: (ids) => `/api/templates/${ids.templateId}`, expect: shelfOnly },
   {
-    file: 'pages/api/templates/[id].ts',
+    file: 'pages/api/templates/[id]/index.ts',
     method: 'PATCH',
     path: (ids) => `/api/templates/${ids.templateId}`,
     body: { condition: 'in_use' },

@@ -18,7 +18,7 @@ export interface MatrixIds {
 }
 
 export interface RouteCase {
-  /** The file under src/pages that serves it, e.g. 'pages/api/designs/[id].ts'. */
+  /** The file under src/pages that serves it, e.g. 'pages/api/designs/[id]/index.ts'. */
   file: string;
   method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
   path: string | ((ids: MatrixIds) => string);

@@ -4,16 +4,12 @@
  * a status code.
  */
 import { parseRecordId } from '~/lib/http/record-id.ts';
-import { CAN, requireRole, type Guarded, type SessionUser } from '~/lib/auth/index.server.ts';
+import { CAN, type SessionUser } from '~/lib/auth/index.server.ts';
+import { requireRole } from '~/lib/http/require-role.ts';
 import { getDesign, type WriteResult } from '~/lib/db/designs.server.ts';
-import { json, problem, type FieldIssue } from '~/lib/http/problem.ts';
+import { json, problem, type Checked, type FieldIssue } from '~/lib/http/problem.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
-
-/** Owners and builders use Boards; clients get 403, visitors 401. */
-export function requireBoardsUser(user: SessionUser | null): Guarded {
-  return requireRole(user, CAN.design);
-}
 
 const NOT_FOUND = 'No such board in your shop';
 
@@ -22,31 +18,32 @@ export function boardNotFound(): Response {
 }
 
 
-export type BoardTarget = { ok: true; user: SessionUser; id: number } | { ok: false; response: Response };
-
-/** What every `/api/designs/{id}` route starts with: the role check, then the board id (bad = 404). */
-export function boardTarget(user: SessionUser | null, param: string | undefined): BoardTarget {
-  const guard = requireBoardsUser(user);
+/**
+ * What every `/api/designs/{id}` route starts with: the role check (Owners and Builders; Clients
+ * get 403, visitors 401), then the board id (bad = 404).
+ */
+export function boardTarget(user: SessionUser | null, param: string | undefined): Checked<{ user: SessionUser; id: number }> {
+  const guard = requireRole(user, CAN.design);
   if (!guard.ok) return guard;
   const id = parseRecordId(param);
-  return id === null ? { ok: false, response: boardNotFound() } : { ok: true, user: guard.user, id };
+  return id === null ? { ok: false, response: boardNotFound() } : { ok: true, value: { user: guard.value, id } };
 }
-
-export type RequestedBoard =
-  | { ok: true; user: SessionUser; board: BoardDetail; revision: number | undefined }
-  | { ok: false; response: Response };
 
 /**
  * For the routes that read one board: the guard, the board id, the optional `revision` query
  * parameter (undefined = current; a bad one is a 400 naming it) and the board in the user's shop.
  */
-export async function requestedBoard(user: SessionUser | null, idParam: string | undefined, revisionParam: string | null | undefined): Promise<RequestedBoard> {
+export async function requestedBoard(
+  user: SessionUser | null,
+  idParam: string | undefined,
+  revisionParam: string | null | undefined,
+): Promise<Checked<{ user: SessionUser; board: BoardDetail; revision: number | undefined }>> {
   const target = boardTarget(user, idParam);
   if (!target.ok) return target;
   const revision = revisionParam === null || revisionParam === undefined ? undefined : parseRecordId(revisionParam);
   if (revision === null) return { ok: false, response: problem(400, 'revision must be a whole number from 1', { field: 'revision' }) };
-  const board = await getDesign(target.user.shopId, target.id, revision);
-  return board ? { ok: true, user: target.user, board, revision } : { ok: false, response: boardNotFound() };
+  const board = await getDesign(target.value.user.shopId, target.value.id, revision);
+  return board ? { ok: true, value: { user: target.value.user, board, revision } } : { ok: false, response: boardNotFound() };
 }
 
 /** Validates a design, reporting issues under `prefix` (e.g. "design.scale.treble"; '' for none). */

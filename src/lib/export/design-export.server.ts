@@ -39,7 +39,7 @@ export async function designExportResponse(
   if (options.format === 'pdf' || options.format === 'cutsheet') {
     const run = await runExport({ kind: 'design', design, options, context }, signal, pool);
     if (!run.ok) return run.response;
-    file = run.file;
+    file = run.value;
   } else {
     file = await exportDesign(design, options, context);
   }

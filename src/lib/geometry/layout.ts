@@ -87,6 +87,34 @@ export interface Layout {
 }
 
 /**
+ * Where each fret lies along every string: index n holds 1 - r(n), the fraction of a string's
+ * length from its nut end (index 0 is the nut, 0). r comes from the design's temperament.
+ */
+export function fretFractions(temperament: Design['temperament'], frets: number): number[] {
+  const r = remainingFraction(temperament);
+  const fractions: number[] = [0];
+  for (let n = 1; n <= frets; n++) fractions.push(1 - r(n));
+  return fractions;
+}
+
+/**
+ * The point of a fret on one string, at `fraction` of the string's length from its
+ * (uncompensated) nut end; `previous` is the previous fret's fraction (0 for fret 1). Lengths in
+ * the design's units. The one rule computeLayout and the compact layout answer share, so a
+ * point rebuilt from the answer is the same double the server computed.
+ */
+export function fretPoint(string: LayoutString, fraction: number, previous: number): FretPoint {
+  const { index, nut, saddle, scaleLength } = string;
+  return {
+    string: index,
+    x: nut.x + (saddle.x - nut.x) * fraction,
+    y: nut.y + (saddle.y - nut.y) * fraction,
+    fromNut: fraction * scaleLength,
+    fromPrevious: (fraction - previous) * scaleLength,
+  };
+}
+
+/**
  * Computes the fret layout of a validated design.
  *
  * Model: the outer strings are symmetric about the centre line (y = ∓nut/2 at the nut,
@@ -132,8 +160,7 @@ export function computeLayout(design: Design): Layout {
     strings.push({ index, nut, saddle, scaleLength });
   }
 
-  const fractions: number[] = [0];
-  for (let n = 1; n <= fretCount; n++) fractions.push(1 - r(n));
+  const fractions = fretFractions(design.temperament, fretCount);
 
   const fretPoints: FretPoint[][] = [];
   const closestGaps: ClosestGap[] = [];
@@ -143,18 +170,11 @@ export function computeLayout(design: Design): Layout {
     const points: FretPoint[] = new Array<FretPoint>(stringCount);
     const closest = { gap: Number.POSITIVE_INFINITY, string: 1 };
     for (let i = 0; i < stringCount; i++) {
-      const { index, nut, saddle, scaleLength } = strings[i]!;
-      const fromPrevious = (fraction - previous) * scaleLength;
-      points[i] = {
-        string: index,
-        x: nut.x + (saddle.x - nut.x) * fraction,
-        y: nut.y + (saddle.y - nut.y) * fraction,
-        fromNut: fraction * scaleLength,
-        fromPrevious,
-      };
-      if (fromPrevious < closest.gap) {
-        closest.gap = fromPrevious;
-        closest.string = index;
+      const point = fretPoint(strings[i]!, fraction, previous);
+      points[i] = point;
+      if (point.fromPrevious < closest.gap) {
+        closest.gap = point.fromPrevious;
+        closest.string = point.string;
       }
     }
     fretPoints.push(points);

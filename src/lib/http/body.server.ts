@@ -3,9 +3,9 @@
  * first, then nothing past the limit is kept or parsed as the stream arrives.
  */
 import type { z, ZodTypeAny } from 'zod';
-import { invalid, problem, zodIssues } from './problem.ts';
+import { invalid, problem, zodIssues, type Checked } from './problem.ts';
 
-export type BodyResult<T> = { ok: true; value: T } | { ok: false; response: Response };
+export type BodyResult<T> = Checked<T>;
 
 export interface ReadBodyOptions {
   maxBytes: number;

@@ -3,11 +3,9 @@
  * so the same page handler serves browsers without JavaScript and scripted clients alike.
  * The size limit and the media type are checked before anything is parsed.
  */
+import { FORM_MAX_BYTES } from './action-body.ts';
 import { readBytes, type BodyResult } from './body.server.ts';
 import { problem } from './problem.ts';
-
-/** Forms here carry a few short fields; 16 KiB is generous. */
-export const FORM_MAX_BYTES = 16 * 1024;
 
 const FORM_TYPES = ['application/x-www-form-urlencoded', 'multipart/form-data', 'application/json'] as const;
 

@@ -1,4 +1,7 @@
-/** One step for every form page: read the fields, validate them with the form's zod schema. */
+/**
+ * One step for every form: read the fields (from the request, or from the FormData an Astro Action
+ * was given), validate them with the form's zod schema.
+ */
 import type { z } from 'zod';
 import { readFormFields } from './form-body.server.ts';
 import { zodIssues } from './problem.ts';
@@ -20,9 +23,20 @@ export function formErrors(error: z.ZodError): FormErrors {
 export async function parseForm<S extends z.ZodTypeAny>(request: Request, schema: S): Promise<ParsedForm<z.output<S>>> {
   const body = await readFormFields(request);
   if (!body.ok) return { ok: false, response: body.response, errors: {}, raw: {} };
-  const parsed = schema.safeParse(body.value);
-  if (!parsed.success) return { ok: false, errors: formErrors(parsed.error), raw: body.value };
-  return { ok: true, data: parsed.data, raw: body.value };
+  return parseFields(body.value, schema);
+}
+
+/** The text fields of a posted form, as readFormFields gives them (files are left out). */
+export function fieldsOf(form: FormData): Record<string, unknown> {
+  const fields: Record<string, unknown> = {};
+  for (const [name, value] of form) if (typeof value === 'string') fields[name] = value;
+  return fields;
+}
+
+export function parseFields<S extends z.ZodTypeAny>(fields: Record<string, unknown>, schema: S): ParsedForm<z.output<S>> {
+  const parsed = schema.safeParse(fields);
+  if (!parsed.success) return { ok: false, errors: formErrors(parsed.error), raw: fields };
+  return { ok: true, data: parsed.data, raw: fields };
 }
 
 /** A submitted field as text for refilling the form (never a password). */

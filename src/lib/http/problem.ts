@@ -1,5 +1,11 @@
-/** JSON responses with one shape for errors: `{ error, field?, issues? }` and the right status. */
+/**
+ * JSON responses with one shape for errors: `{ error, field?, issues? }` and the right status, and
+ * the one result every step of a route returns (`Checked`): its value, or the Response to send.
+ */
 import type { ZodError } from 'zod';
+
+/** What a route step gives back: the value to go on with, or the answer (4xx/5xx) to send as it is. */
+export type Checked<T> = { ok: true; value: T } | { ok: false; response: Response };
 
 export interface FieldIssue {
   path: string;

@@ -31,6 +31,9 @@ export const DESIGN_LIMITS = {
   },
 } as const;
 
+/** Largest design, as JSON text, the API reads (POST /api/layout and POST /api/export). */
+export const DESIGN_JSON_MAX_BYTES = 64 * 1024;
+
 /** Side dot and inlay frets, common practice: 3, 5, 7, 9, 12 (double), 15, 17, 19, 21, 24. */
 export const DEFAULT_MARKERS: readonly Marker[] = [
   { fret: 3, kind: 'single' },

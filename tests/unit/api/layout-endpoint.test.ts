@@ -1,16 +1,17 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { fretTableCsv } from '~/lib/export/csv.ts';
+import { expandLayout, type CompactLayout } from '~/lib/geometry/compact-layout.ts';
 import { computeLayout } from '~/lib/geometry/layout.ts';
-import { handleLayoutRequest } from '~/lib/geometry-api/layout-endpoint.server.ts';
+import * as layoutRoute from '~/pages/api/layout.ts';
 import { invalidFieldArbitrary } from '../geometry/design-arbitraries.ts';
 import { designInput, validDesign, withField } from '../../support/design-builders.ts';
+import { callRoute } from '../../support/route-call.ts';
 
-const URL_BASE = 'http://127.0.0.1:4321/api/layout';
 const FAN = designInput({ strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8 });
 
-function post(body: BodyInit, headers: Record<string, string> = { 'content-type': 'application/json' }, url = URL_BASE) {
-  return handleLayoutRequest(new Request(url, { method: 'POST', headers, body }));
+function post(body: string | Uint8Array, headers: Record<string, string> = { 'content-type': 'application/json' }, path = '/api/layout') {
+  return callRoute(layoutRoute.POST, { method: 'POST', path, headers, body });
 }
 
 async function errorBody(response: Response): Promise<{ error: string; field?: string; issues?: { path: string; message: string }[] }> {
@@ -19,8 +20,17 @@ async function errorBody(response: Response): Promise<{ error: string; field?: s
 }
 
 describe('POST /api/layout handler', () => {
-  it('returns the layout as JSON', async () => {
+  it('returns the compact layout (docs/api.md), which expands to what the geometry module computed', async () => {
     const response = await post(JSON.stringify(FAN));
+    expect(response.status).toBe(200);
+    expect(response.headers.get('content-type')).toBe('application/json; charset=utf-8');
+    const compact = (await response.json()) as CompactLayout;
+    expect(compact.frets).toHaveLength(FAN.frets as number);
+    expect(JSON.parse(JSON.stringify(expandLayout(compact)))).toEqual(JSON.parse(JSON.stringify(computeLayout(validDesign(FAN)))));
+  });
+
+  it('returns the full layout for ?full=1, as the geometry module computed it', async () => {
+    const response = await post(JSON.stringify(FAN), { 'content-type': 'application/json' }, '/api/layout?full=1');
     expect(response.status).toBe(200);
     expect(response.headers.get('content-type')).toBe('application/json; charset=utf-8');
     expect(await response.json()).toEqual(JSON.parse(JSON.stringify(computeLayout(validDesign(FAN)))));
@@ -29,7 +39,7 @@ describe('POST /api/layout handler', () => {
   it('returns the fret table CSV for ?format=csv and for Accept: text/csv', async () => {
     const expected = fretTableCsv(computeLayout(validDesign(FAN)));
     for (const response of [
-      await post(JSON.stringify(FAN), { 'content-type': 'application/json' }, `${URL_BASE}?format=csv`),
+      await post(JSON.stringify(FAN), { 'content-type': 'application/json' }, '/api/layout?format=csv'),
       await post(JSON.stringify(FAN), { 'content-type': 'application/json', accept: 'text/csv' }),
     ]) {
       expect(response.status).toBe(200);
@@ -39,13 +49,14 @@ describe('POST /api/layout handler', () => {
   });
 
   it('400 for an unknown format, naming it', async () => {
-    const response = await post(JSON.stringify(FAN), { 'content-type': 'application/json' }, `${URL_BASE}?format=xls`);
+    const response = await post(JSON.stringify(FAN), { 'content-type': 'application/json' }, '/api/layout?format=xls');
     expect(response.status).toBe(400);
     expect((await errorBody(response)).field).toBe('format');
   });
 
   it.each([['text/plain'], ['application/x-www-form-urlencoded'], ['']])('415 for content type %j', async (type) => {
-    const response = await post(JSON.stringify(FAN), type === '' ? {} : { 'content-type': type });
+    // Bytes carry no Content-Type of their own, so '' sends none at all.
+    const response = await post(new TextEncoder().encode(JSON.stringify(FAN)), type === '' ? {} : { 'content-type': type });
     expect(response.status).toBe(415);
     expect((await errorBody(response)).error).toContain('application/json');
   });
@@ -79,10 +90,7 @@ describe('POST /api/layout handler', () => {
     const big = `{"name":"${'x'.repeat(5 * 1024 * 1024)}"}`;
     const declared = await post(big, { 'content-type': 'application/json', 'content-length': String(big.length) });
     expect(declared.status).toBe(413);
-    const stream = new Blob([big]).stream();
-    const streamed = await handleLayoutRequest(
-      new Request(URL_BASE, { method: 'POST', headers: { 'content-type': 'application/json' }, body: stream, duplex: 'half' } as RequestInit),
-    );
+    const streamed = await callRoute(layoutRoute.POST, { method: 'POST', path: '/api/layout', headers: { 'content-type': 'application/json' }, body: new TextEncoder().encode(big) });
     expect(streamed.status).toBe(413);
   });
 
@@ -90,12 +98,6 @@ describe('POST /api/layout handler', () => {
     const padded = JSON.stringify({ ...FAN, name: 'x'.repeat(100) });
     expect(padded.length).toBeLessThan(64 * 1024);
     expect((await post(padded)).status).toBe(200);
-  });
-
-  it('405 for methods other than POST', async () => {
-    const response = await handleLayoutRequest(new Request(URL_BASE, { method: 'GET' }));
-    expect(response.status).toBe(405);
-    expect(response.headers.get('allow')).toBe('POST');
   });
 
   it('property: random invalid designs get 400 naming the field (fast-check)', async () => {

@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { handleScalaRequest } from '~/lib/geometry-api/scala-endpoint.server.ts';
+import * as scalaRoute from '~/pages/api/scala.ts';
+import { callRoute } from '../../support/route-call.ts';
 
-function post(body: BodyInit, type = 'text/plain') {
-  return handleScalaRequest(
-    new Request('http://127.0.0.1:4321/api/scala', { method: 'POST', headers: { 'content-type': type }, body }),
-  );
+function post(body: string | Uint8Array, type = 'text/plain') {
+  return callRoute(scalaRoute.POST, { method: 'POST', path: '/api/scala', headers: { 'content-type': type }, body });
 }
 
 describe('POST /api/scala handler', () => {

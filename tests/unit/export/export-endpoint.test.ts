@@ -3,18 +3,13 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runKerfline } from '~/lib/cli/run-kerfline.server.ts';
-import { handleExportRequest } from '~/lib/export/export-endpoint.server.ts';
+import * as exportRoute from '~/pages/api/export.ts';
+import { callRoute } from '../../support/route-call.ts';
 import { exportFileName } from '~/lib/export/file-name.ts';
 import sevenStringFan from '../../../src/lib/boards/demo/seven-string-fan.json';
 
 function post(query: string, body: unknown, type = 'application/json'): Promise<Response> {
-  return handleExportRequest(
-    new Request(`http://127.0.0.1/api/export${query}`, {
-      method: 'POST',
-      headers: { 'content-type': type },
-      body: typeof body === 'string' ? body : JSON.stringify(body),
-    }),
-  );
+  return callRoute(exportRoute.POST, { method: 'POST', path: `/api/export${query}`, headers: { 'content-type': type }, body: typeof body === 'string' ? body : JSON.stringify(body) });
 }
 
 describe('POST /api/export', () => {

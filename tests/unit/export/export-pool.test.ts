@@ -8,14 +8,15 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { handleExportRequest } from '~/lib/export/export-endpoint.server.ts';
+import { designExportResponse } from '~/lib/export/design-export.server.ts';
 import { EXPORT_POOL } from '~/lib/export/export-limits.ts';
 import { createExportPool, defaultPoolSettings, type ExportPool, type ExportPoolSettings } from '~/lib/export/worker/export-pool.server.ts';
 import { runExport } from '~/lib/export/worker/run-export.server.ts';
+import { validateExportOptions } from '~/lib/schemas/export-options.ts';
 import { designOf } from '../../support/design-builders.ts';
 
 /** The heaviest paper template the caps allow: the largest design on 200 Letter pages. */
-const HEAVIEST = { design: designOf({ strings: 16, frets: 36, scale: { treble: 5000, bass: 5000 }, stringSpacing: { nut: 500, bridge: 500 } }), query: '?format=pdf&paper=letter&overlap=99.9' };
+const HEAVIEST = { design: designOf({ strings: 16, frets: 36, scale: { treble: 5000, bass: 5000 }, stringSpacing: { nut: 500, bridge: 500 } }), query: { format: 'pdf', paper: 'letter', overlap: '99.9' } };
 
 const pools: ExportPool[] = [];
 function pool(settings: Partial<ExportPoolSettings>): ExportPool {
@@ -27,14 +28,11 @@ afterEach(async () => {
   await Promise.all(pools.splice(0).map((p) => p.close()));
 });
 
+/** The export POST /api/export answers for the heaviest design, run on `target`. */
 function heavyExport(target: ExportPool, signal?: AbortSignal): Promise<Response> {
-  const request = new Request(`http://127.0.0.1/api/export${HEAVIEST.query}`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify(HEAVIEST.design),
-    ...(signal ? { signal } : {}),
-  });
-  return handleExportRequest(request, target);
+  const options = validateExportOptions(HEAVIEST.query);
+  if (!options.ok) throw new Error('the heaviest export options do not validate');
+  return designExportResponse(HEAVIEST.design, options.options, {}, signal, target);
 }
 
 /** Waits (yielding to the event loop) until `ready` holds; bounded by the test's own timeout. */

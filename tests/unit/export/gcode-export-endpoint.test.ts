@@ -3,13 +3,14 @@
  * function, and 4xx answers naming the option (a cutter wider than the slot is refused).
  */
 import { describe, expect, it } from 'vitest';
-import { handleExportRequest } from '~/lib/export/export-endpoint.server.ts';
+import * as exportRoute from '~/pages/api/export.ts';
+import { callRoute } from '../../support/route-call.ts';
 import { exportFileName } from '~/lib/export/file-name.ts';
 import sevenStringFan from '../../../src/lib/boards/demo/seven-string-fan.json';
 import { pageText, readPdf } from '../../support/pdf-readback.ts';
 
 function post(query: string, body: unknown = sevenStringFan): Promise<Response> {
-  return handleExportRequest(new Request(`http://127.0.0.1/api/export${query}`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) }));
+  return callRoute(exportRoute.POST, { method: 'POST', path: `/api/export${query}`, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
 }
 
 describe('POST /api/export for the slot toolpath, cut list and cut sheet', () => {

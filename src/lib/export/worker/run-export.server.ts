@@ -5,12 +5,12 @@
  */
 import type { ExportFile } from '../export-design.server.ts';
 import { EXPORT_POOL } from '../export-limits.ts';
-import { problem } from '~/lib/http/problem.ts';
+import { problem, type Checked } from '~/lib/http/problem.ts';
 import { serverError } from '~/lib/http/server-error.server.ts';
 import type { ExportJob } from './export-job.server.ts';
 import { exportPool, type ExportPool, type PoolOutcome } from './export-pool.server.ts';
 
-export type ExportRun = { ok: true; file: ExportFile } | { ok: false; response: Response };
+export type ExportRun = Checked<ExportFile>;
 
 /** Runs `job` in `pool` (the server's own by default); `signal` is the request's. */
 export async function runExport(job: ExportJob, signal: AbortSignal | undefined, pool?: ExportPool): Promise<ExportRun> {
@@ -22,7 +22,7 @@ export async function runExport(job: ExportJob, signal: AbortSignal | undefined,
   } catch (error) {
     return { ok: false, response: serverError('The export', error) };
   }
-  if (outcome.ok) return { ok: true, file: outcome.file };
+  if (outcome.ok) return { ok: true, value: outcome.file };
   const seconds = EXPORT_POOL.retryAfterSeconds;
   const limitSeconds = Math.round(target.settings.jobTimeoutMs / 1000);
   switch (outcome.reason) {

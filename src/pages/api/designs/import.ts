@@ -1,9 +1,11 @@
 import type { APIRoute } from 'astro';
 import { readBoardFile } from '~/lib/boards/board-file.ts';
-import { checkDesign, requireBoardsUser } from '~/lib/boards/board-responses.server.ts';
+import { checkDesign } from '~/lib/boards/board-responses.server.ts';
+import { CAN } from '~/lib/auth/index.server.ts';
+import { requireRole } from '~/lib/http/require-role.ts';
 import { createDesign, freeBoardName } from '~/lib/db/designs.server.ts';
 import { readBytes } from '~/lib/http/body.server.ts';
-import { invalid, json, problem } from '~/lib/http/problem.ts';
+import { invalid, json, problem, type Checked } from '~/lib/http/problem.ts';
 import { BOARD_FILE_MAX_BYTES } from '~/lib/schemas/board.ts';
 
 export const prerender = false;
@@ -17,7 +19,7 @@ const MULTIPART_OVERHEAD = 8 * 1024;
  * and never takes the name of one the shop has (it appends " (2)", " (3)", …).
  */
 export const POST: APIRoute = async ({ locals, request }) => {
-  const guard = requireBoardsUser(locals.user);
+  const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
   const text = await fileText(request);
   if (!text.ok) return text.response;
@@ -33,8 +35,8 @@ export const POST: APIRoute = async ({ locals, request }) => {
   const design = checkDesign(file.file.design, file.designPrefix);
   if (!design.ok) return invalid(design.issues);
   // An imported board never takes the name of one the shop has: it becomes "name (2)" and so on.
-  const name = await freeBoardName(guard.user.shopId, design.design.name);
-  const created = await createDesign(guard.user, {
+  const name = await freeBoardName(guard.value.shopId, design.design.name);
+  const created = await createDesign(guard.value, {
     design: { ...design.design, name },
     instrumentType: file.file.instrumentType,
     clientName: file.file.clientName,
@@ -43,9 +45,7 @@ export const POST: APIRoute = async ({ locals, request }) => {
   return json(created, 201, { location: `/api/designs/${created.id}` });
 };
 
-type FileText = { ok: true; value: string } | { ok: false; response: Response };
-
-async function fileText(request: Request): Promise<FileText> {
+async function fileText(request: Request): Promise<Checked<string>> {
   const multipart = (request.headers.get('content-type') ?? '').toLowerCase().startsWith('multipart/form-data');
   const limit = BOARD_FILE_MAX_BYTES + (multipart ? MULTIPART_OVERHEAD : 0);
   const bytes = await readBytes(request, { maxBytes: limit, types: ['application/json', 'multipart/form-data'] });

@@ -1,5 +1,7 @@
 import type { APIRoute } from 'astro';
-import { checkDesign, requireBoardsUser } from '~/lib/boards/board-responses.server.ts';
+import { checkDesign } from '~/lib/boards/board-responses.server.ts';
+import { CAN } from '~/lib/auth/index.server.ts';
+import { requireRole } from '~/lib/http/require-role.ts';
 import { createDesign, listDesigns } from '~/lib/db/designs.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { invalid, json, zodIssues } from '~/lib/http/problem.ts';
@@ -9,21 +11,21 @@ export const prerender = false;
 
 /** GET /api/designs?q=&status=&instrument=&units=&sort=&dir=&page=&pageSize= : one page of boards. */
 export const GET: APIRoute = async ({ locals, url }) => {
-  const guard = requireBoardsUser(locals.user);
+  const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
   const query = boardListQuerySchema.safeParse(Object.fromEntries(url.searchParams));
   if (!query.success) return invalid(zodIssues(query.error));
-  return json(await listDesigns(guard.user.shopId, query.data));
+  return json(await listDesigns(guard.value.shopId, query.data));
 };
 
 /** POST /api/designs {design, instrumentType?, clientName?, note?}: a new board at revision 1. */
 export const POST: APIRoute = async ({ locals, request }) => {
-  const guard = requireBoardsUser(locals.user);
+  const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
   const input = await readValidJson(request, BOARD_FILE_MAX_BYTES, boardCreateSchema);
   if (!input.ok) return input.response;
   const design = checkDesign(input.value.design, 'design');
   if (!design.ok) return invalid(design.issues);
-  const created = await createDesign(guard.user, { ...input.value, design: design.design });
+  const created = await createDesign(guard.value, { ...input.value, design: design.design });
   return json(created, 201, { location: `/api/designs/${created.id}` });
 };

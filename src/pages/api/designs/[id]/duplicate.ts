@@ -9,7 +9,7 @@ export const prerender = false;
 export const POST: APIRoute = async ({ locals, params }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;
-  const { user, id } = target;
+  const { user, id } = target.value;
   const copy = await duplicateDesign(user, id);
   return copy ? json(copy, 201, { location: `/api/designs/${copy.id}` }) : boardNotFound();
 };

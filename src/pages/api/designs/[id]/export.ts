@@ -25,10 +25,10 @@ export const GET: APIRoute = ({ locals, params, url, request }) => answerOrServe
   const { revision: revisionParam, ...query } = Object.fromEntries(url.searchParams);
   const found = await requestedBoard(locals.user, params.id, revisionParam);
   if (!found.ok) return found.response;
-  const { user } = found;
+  const { user, revision: asked } = found.value;
   const options = validateExportOptions({ format: 'json', ...query });
   if (!options.ok) return invalid(options.issues);
-  const board = found.revision === undefined ? await exportRevision(user, found.board.id) : found.board;
+  const board = asked === undefined ? await exportRevision(user, found.value.board.id) : found.value.board;
   if (!board || board.revision === null) return boardNotFound();
   const revision = board.revision;
 

@@ -1,5 +1,6 @@
 import type { APIRoute } from 'astro';
-import { CAN, requireRole } from '~/lib/auth/index.server.ts';
+import { CAN } from '~/lib/auth/index.server.ts';
+import { requireRole } from '~/lib/http/require-role.ts';
 import { createProof, listDesignProofs } from '~/lib/proofs/proofs.server.ts';
 import { inMinutes } from '~/lib/accounts/limits.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
@@ -18,7 +19,7 @@ export const GET: APIRoute = async ({ params, locals }) => {
   const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
   const id = parseRecordId(params.id);
-  const list = id !== null ? await listDesignProofs(guard.user.shopId, id, new Date()) : null;
+  const list = id !== null ? await listDesignProofs(guard.value.shopId, id, new Date()) : null;
   return list ? json({ proofs: list }) : problem(404, NO_DESIGN);
 };
 
@@ -35,10 +36,10 @@ export const POST: APIRoute = async ({ params, request, locals }) => {
   const parsed = await readValidJson(request, BODY_MAX_BYTES, createProofSchema);
   if (!parsed.ok) return parsed.response;
   const now = new Date();
-  const mail = await limitMail('proof', { userId: guard.user.id, shopId: guard.user.shopId }, now);
+  const mail = await limitMail('proof', { userId: guard.value.id, shopId: guard.value.shopId }, now);
   if (!mail.ok) {
     return problem(429, `This shop has sent as many proofs as it may for now; try again ${inMinutes(mail.retryAfterSeconds)}`, {}, { 'retry-after': String(mail.retryAfterSeconds) });
   }
-  const created = await createProof(guard.user, id, parsed.value, now);
+  const created = await createProof(guard.value, id, parsed.value, now);
   return created ? json(created, 201) : problem(404, NO_DESIGN);
 };

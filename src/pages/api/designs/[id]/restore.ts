@@ -15,7 +15,7 @@ export const prerender = false;
 export const POST: APIRoute = async ({ locals, params, request }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;
-  const { user, id } = target;
+  const { user, id } = target.value;
   const input = await readValidJson(request, 4096, boardRestoreSchema);
   if (!input.ok) return input.response;
   return writeResponse(await restoreRevision(user, id, input.value.revision, input.value.version, input.value.confirmApprovalChange));

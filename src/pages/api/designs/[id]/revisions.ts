@@ -11,7 +11,7 @@ export const prerender = false;
 export const GET: APIRoute = async ({ locals, params }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;
-  const { user, id } = target;
+  const { user, id } = target.value;
   const revisions = await listRevisions(user.shopId, id);
   return revisions ? json({ items: revisions }) : boardNotFound();
 };
@@ -24,7 +24,7 @@ export const GET: APIRoute = async ({ locals, params }) => {
 export const POST: APIRoute = async ({ locals, params, request }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;
-  const { user, id } = target;
+  const { user, id } = target.value;
   const input = await readValidJson(request, 4096, boardSaveRevisionSchema);
   if (!input.ok) return input.response;
   return writeResponse(await saveRevision(user, id, input.value.version, input.value.note));

@@ -12,7 +12,7 @@ export const prerender = false;
 export const GET: APIRoute = async ({ locals, params, url }) => {
   const found = await requestedBoard(locals.user, params.id, url.searchParams.get('revision'));
   if (!found.ok) return found.response;
-  return new Response(boardThumbnailSvg(computeLayout(storedDesign(found.board.design))), {
+  return new Response(boardThumbnailSvg(computeLayout(storedDesign(found.value.board.design))), {
     headers: { 'content-type': 'image/svg+xml' },
   });
 };

@@ -1,5 +1,6 @@
 import type { APIRoute } from 'astro';
-import { CAN, requireRole } from '~/lib/auth/index.server.ts';
+import { CAN } from '~/lib/auth/index.server.ts';
+import { requireRole } from '~/lib/http/require-role.ts';
 import { revokeProof } from '~/lib/proofs/proofs.server.ts';
 import { json, problem } from '~/lib/http/problem.ts';
 import { parseRecordId } from '~/lib/http/record-id.ts';
@@ -12,7 +13,7 @@ export const POST: APIRoute = async ({ params, locals }) => {
   if (!guard.ok) return guard.response;
   const id = parseRecordId(params.proofId);
   if (id === null) return problem(404, 'No such proof in your shop');
-  const result = await revokeProof(guard.user.shopId, id, new Date());
+  const result = await revokeProof(guard.value.shopId, id, new Date());
   if (result.ok) return json({ proof: result.proof });
   return result.reason === 'answered'
     ? problem(409, 'The client has already answered this proof; an answer is kept, not revoked')

@@ -11,7 +11,7 @@ export const prerender = false;
 /** GET /api/designs/{id}[?revision=N]: the board with its current (or the named) revision's design. */
 export const GET: APIRoute = async ({ locals, params, url }) => {
   const found = await requestedBoard(locals.user, params.id, url.searchParams.get('revision'));
-  return found.ok ? json(found.board) : found.response;
+  return found.ok ? json(found.value.board) : found.response;
 };
 
 /**
@@ -21,7 +21,7 @@ export const GET: APIRoute = async ({ locals, params, url }) => {
 export const PATCH: APIRoute = async ({ locals, params, request }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;
-  const { user, id } = target;
+  const { user, id } = target.value;
   const input = await readValidJson(request, BOARD_FILE_MAX_BYTES, boardUpdateSchema);
   if (!input.ok) return input.response;
   let design: Design | undefined;
