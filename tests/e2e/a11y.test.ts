@@ -53,7 +53,7 @@ async function sweep(page: Page, label: string, path: string | null, ready?: (pa
   if (ready) await ready(page);
   const summary = await axeSummary(page);
   summaries[label] = summary.byImpact;
-  expect(summary.blocking, `${label} (${path ?? page.url()})`).toEqual([]);
+  expect(summary.blocking.join('\n'), `${label} (${path ?? page.url()})`).toBe('');
 }
 
 type Who = 'signed out' | 'owner' | 'builder' | 'client';

@@ -40,7 +40,7 @@ export function CutListTable({ design, layout, stockLength }: { design: Design; 
       <p className="text-xs text-ink-soft">
         Wire = arc over the {design.radius.nut === 0 ? 'flat top (the slot length)' : 'radiused top'} + 2 × {formatLength(list.endAllowance, u, true)} end allowance.
       </p>
-      <div className="max-h-64 overflow-auto">
+      <div className="max-h-64 overflow-auto" tabIndex={0} role="region" aria-label="Cut list table (scrolls)">
         <table className="w-full border-collapse font-mono text-xs">
           <caption className="sr-only">Cut list: slot, arc and wire length per fret, in {u}</caption>
           <thead>
