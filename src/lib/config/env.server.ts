@@ -19,6 +19,12 @@ const envSchema = z.object({
   OUTBOX_DIR: z.string().default('.data/outbox'),
   /** Multiplies every rate limit budget; only for a load-test server (docs/operations.md). */
   RATE_LIMIT_SCALE: z.coerce.number().positive().max(1_000_000).default(1),
+  /** The payment service's secret API key; without it (and the webhook secret) deposits are off. */
+  PAYMENTS_SECRET_KEY: z.string().trim().default(''),
+  /** The secret the payment service signs webhooks with (its endpoint's signing secret). */
+  PAYMENTS_WEBHOOK_SECRET: z.string().trim().default(''),
+  /** Where the payment SDK sends its calls; `npm start` and the tests point it at the local fake. */
+  PAYMENTS_API_URL: z.string().url().default('https://api.stripe.com'),
 });
 
 export interface AppConfig {
@@ -30,6 +36,33 @@ export interface AppConfig {
   outboxDir: string;
   /** Factor on every rate limit budget's points (1 in normal use). */
   rateLimitScale: number;
+  /** Null when deposits are off: no secret key or no webhook secret. */
+  payments: PaymentSettings | null;
+}
+
+export interface PaymentSettings {
+  secretKey: string;
+  webhookSecret: string;
+  /** The SDK's `host`, `port` and `protocol`, from PAYMENTS_API_URL. */
+  apiHost: string;
+  apiPort: number;
+  apiProtocol: 'http' | 'https';
+}
+
+function paymentSettings(env: z.infer<typeof envSchema>): PaymentSettings | null {
+  if (!env.PAYMENTS_SECRET_KEY || !env.PAYMENTS_WEBHOOK_SECRET) return null;
+  const url = new URL(env.PAYMENTS_API_URL);
+  const protocol = url.protocol === 'http:' ? 'http' : url.protocol === 'https:' ? 'https' : null;
+  if (!protocol) throw new Error('Configuration: PAYMENTS_API_URL must start with https:// (or http:// for a local fake)');
+  const loopback = url.hostname === '127.0.0.1' || url.hostname === 'localhost' || url.hostname === '[::1]';
+  if (protocol === 'http' && !loopback) throw new Error('Configuration: PAYMENTS_API_URL may use http:// only on this machine (127.0.0.1)');
+  return {
+    secretKey: env.PAYMENTS_SECRET_KEY,
+    webhookSecret: env.PAYMENTS_WEBHOOK_SECRET,
+    apiHost: url.hostname.replace(/^\[|\]$/g, ''),
+    apiPort: url.port ? Number(url.port) : protocol === 'https' ? 443 : 80,
+    apiProtocol: protocol,
+  };
 }
 
 let cached: AppConfig | undefined;
@@ -52,6 +85,7 @@ export function config(): AppConfig {
     mode: parsed.data.KERFLINE_MODE,
     outboxDir: parsed.data.OUTBOX_DIR,
     rateLimitScale: parsed.data.RATE_LIMIT_SCALE,
+    payments: paymentSettings(parsed.data),
   };
   return cached;
 }
