@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm test: installs what it needs, starts a throwaway MariaDB and fake SMTP on free loopback
+# npm test: installs what it needs, starts a throwaway MariaDB, fake SMTP and fake payment service on free loopback
 # ports (never the start command's data), then runs type checks, unit and integration tests,
 # the import-boundary lint, builds the app and runs the browser tests against the built server,
 # then the cluster suite on a throwaway three-node Galera cluster (scripts/test-cluster.sh).

@@ -1,6 +1,8 @@
 # The throwaway services scripts/test.sh and scripts/bench.sh run against: a MariaDB with its own
-# data directory, the fake SMTP and the built server, each on a free loopback port (never the
-# start command's data), all torn down on exit. Source common.sh and build.sh first.
+# data directory, the fake SMTP, the fake payment service and the built server, each on a free
+# loopback port (never the start command's data), all torn down on exit. Source common.sh and
+# build.sh first.
+source scripts/lib/payments.sh
 
 # Makes the work directory ($work), exports where every service listens and sets the exit trap.
 # $1 names the run ("test", "bench"): the work directory and the database, user and password.
@@ -17,6 +19,8 @@ throwaway_env() {
   export APP_ORIGIN="http://127.0.0.1:$PORT"
   export TEST_APP_URL="$APP_ORIGIN"
   export KERFLINE_MODE=demo
+  # The tests drive the fake payment service themselves: never a real service's key from outside.
+  unset PAYMENTS_SECRET_KEY PAYMENTS_WEBHOOK_SECRET PAYMENTS_API_URL
   pids=()
   trap throwaway_cleanup EXIT
   trap 'exit 130' INT
@@ -30,13 +34,15 @@ throwaway_cleanup() {
   rm -rf "$work"
 }
 
-# Starts MariaDB, creates, migrates and seeds the demo database, then starts the fake SMTP.
+# Starts MariaDB, creates, migrates and seeds the demo database, then starts the fake SMTP and
+# the fake payment service (PAYMENTS_API_URL and its secrets are exported for the tests).
 # Returns non-zero (the reason printed above) when the database could not be prepared.
 start_throwaway_services() {
   say "throwaway MariaDB on 127.0.0.1:$DB_PORT"
   bash scripts/db/mariadb.sh start && bash scripts/db/mariadb.sh create-app-db \
     && node_modules/.bin/tsx scripts/db/setup.ts --seed || return 1
   node_modules/.bin/tsx scripts/mail/fake-smtp.ts >/dev/null & pids+=($!)
+  start_fake_payments_unless_configured "$(free_port)" >/dev/null || return 1
 }
 
 # Starts the built server (log in $work/server.log) and waits for it; on no answer within 30 s,

@@ -74,6 +74,7 @@ async function answerPay(fake: FakePayments, method: string, id: string, body: s
 }
 
 async function answerControl(fake: FakePayments, method: string, path: string, response: ServerResponse): Promise<void> {
+  if (method === 'GET' && path === '/_fake/health') return sendJson(response, 200, { ok: true });
   if (method === 'GET' && path === '/_fake/events') return sendJson(response, 200, fake.events.log);
   if (method === 'GET' && path === '/_fake/sessions') return sendJson(response, 200, [...fake.records.sessions.values()]);
   if (method === 'POST' && path === '/_fake/hold') {
