@@ -15,6 +15,7 @@ import { ROUTE_BUDGETS, reserveFor, type Budget } from '~/lib/http/rate-budgets.
 import { consumeEach, type Counter } from '~/lib/http/rate-limit.server.ts';
 import { limitedRouteFor } from '~/lib/http/route-budgets.ts';
 import { isSameOriginRequest } from '~/lib/http/same-origin.ts';
+import { PAYMENT_WEBHOOK_PATH } from '~/lib/payments/webhook-path.ts';
 import { DYNAMIC_RESPONSE_HEADERS, withSecurityHeaders } from '~/lib/http/security-headers.ts';
 
 const DB_DOWN_MESSAGE = 'The database is not answering right now; nothing was changed. Try again in a moment.';
@@ -22,6 +23,8 @@ const DB_DOWN_MESSAGE = 'The database is not answering right now; nothing was ch
 const headers = defineMiddleware(async (_context, next) => withSecurityHeaders(await next(), DYNAMIC_RESPONSE_HEADERS));
 
 const sameOrigin = defineMiddleware((context, next) => {
+  // The payment service's webhooks come from its servers, not a browser: the route checks their signature.
+  if (context.request.method === 'POST' && context.url.pathname === PAYMENT_WEBHOOK_PATH) return next();
   // Only APP_ORIGIN: the request URL's own origin is built from an untrusted Host header.
   if (!isSameOriginRequest(context.request, [config().appOrigin])) {
     return problem(403, 'Cross-site request refused: the Origin header must be this site');

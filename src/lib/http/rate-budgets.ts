@@ -61,8 +61,8 @@ export const SIGN_IN_DELAY = {
 } as const;
 
 /**
- * CPU-heavy public routes (src/lib/http/route-budgets.ts says which paths), per client address
- * and, when signed in, per user. Scripts call POST /api/layout and /api/scala in bulk and Boards
+ * CPU-heavy public routes, the public proof page and the public payment routes
+ * (src/lib/http/route-budgets.ts says which paths), per client address and, when signed in, per user. Scripts call POST /api/layout and /api/scala in bulk and Boards
  * shows a thumbnail per row, hence their larger budgets; PDFs cost the most.
  */
 export const ROUTE_BUDGETS = {
@@ -75,6 +75,10 @@ export const ROUTE_BUDGETS = {
   'index-template': { perAddress: { points: 60, seconds: MINUTE }, perUser: { points: 60, seconds: MINUTE } },
   /** The public proof page (/p/{token}). Links carry 128 random bits: this keeps load off the database. */
   'proof-page': { perAddress: { points: 120, seconds: MINUTE }, perUser: { points: 120, seconds: MINUTE } },
+  /** A client starting a deposit payment: each one asks the payment service for a pay page. */
+  'deposit-checkout': { perAddress: { points: 20, seconds: MINUTE }, perUser: { points: 20, seconds: MINUTE } },
+  /** The payment service's webhooks (signed; it sends from a few addresses, in bursts after an outage). */
+  'payment-webhook': { perAddress: { points: 600, seconds: MINUTE }, perUser: { points: 600, seconds: MINUTE } },
 } as const satisfies Record<string, { perAddress: Budget; perUser: Budget }>;
 
 export type RouteBudgetName = keyof typeof ROUTE_BUDGETS;

@@ -1,9 +1,10 @@
 /**
  * Which requests count against which route budget (the numbers are ROUTE_BUDGETS in
- * rate-budgets.ts): the public routes that cost real CPU (geometry, PDFs, SVG drawings) and the
- * public proof page. Middleware counts each matching request per client address and, when signed
+ * rate-budgets.ts): the public routes that cost real CPU (geometry, PDFs, SVG drawings), the
+ * public proof page, and the public payment routes (a client's deposit checkout, the service's webhooks). Middleware counts each matching request per client address and, when signed
  * in, per user, before the route runs.
  */
+import { PAYMENT_WEBHOOK_PATH } from '~/lib/payments/webhook-path.ts';
 import { PROOF_PAGE_HEADERS } from '~/lib/proofs/proof-page-headers.ts';
 import type { RouteBudgetName } from './rate-budgets.ts';
 
@@ -30,6 +31,8 @@ const ENTRIES: readonly Entry[] = [
   { method: 'GET', path: new RegExp(`^/api/templates/${ID}/label$`), budget: 'template-label', needsDatabase: true },
   { method: 'GET', path: new RegExp(`^/api/templates/${ID}/index-template$`), budget: 'index-template', needsDatabase: true },
   { method: 'GET', path: new RegExp(`^/p/${ID}$`), budget: 'proof-page', needsDatabase: true, headers: PROOF_PAGE_HEADERS },
+  { method: 'POST', path: new RegExp(`^/api/p/${ID}/deposit-checkout$`), budget: 'deposit-checkout', needsDatabase: true },
+  { method: 'POST', path: new RegExp(`^${PAYMENT_WEBHOOK_PATH}$`), budget: 'payment-webhook', needsDatabase: true },
 ];
 
 /**

@@ -14,6 +14,8 @@ describe('route budgets: which requests count', () => {
       ['GET', '/api/templates/3/label', 'template-label', 'src/pages/api/templates/[id]/label.ts'],
       ['GET', '/api/templates/3/index-template', 'index-template', 'src/pages/api/templates/[id]/index-template.ts'],
       ['GET', '/p/AAAAAAAAAAAAAAAAAAAAAA', 'proof-page', 'src/pages/p/[token].astro'],
+      ['POST', '/api/p/AAAAAAAAAAAAAAAAAAAAAA/deposit-checkout', 'deposit-checkout', 'src/pages/api/p/[token]/deposit-checkout.ts'],
+      ['POST', '/api/payments/webhook', 'payment-webhook', 'src/pages/api/payments/webhook.ts'],
     ];
     for (const [method, path, budget, file] of cases) {
       expect(limitedRouteFor(method, path)?.budget, `${method} ${path}`).toBe(budget);
