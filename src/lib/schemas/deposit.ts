@@ -71,4 +71,6 @@ export interface DepositSummary {
   refundedMinor: number;
   /** Refunds asked for whose confirmation has not arrived yet. */
   refundPendingMinor: number;
+  /** Payments the service confirmed in another currency than the one asked (never added in). */
+  otherPayments: { minor: number; currency: string }[];
 }

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { minorFromText } from '~/lib/payments/amount-text.ts';
 import { formatMoney, isCurrencyCode, minorDigits, sumMinor } from '~/lib/payments/money.ts';
 import { depositInputSchema, refundInputSchema } from '~/lib/schemas/deposit.ts';
 
@@ -47,5 +48,24 @@ describe('deposit and refund input', () => {
     expect(fieldOf(depositInputSchema.safeParse({ amountMinor: 100, description: 'x'.repeat(201) }))).toBe('description');
     expect(fieldOf(refundInputSchema.safeParse({ amountMinor: 0 }))).toBe('amountMinor');
     expect(refundInputSchema.parse({})).toEqual({});
+  });
+});
+
+describe('an amount typed by the builder, read as minor units', () => {
+  it('counts the digits exactly for the currency', () => {
+    expect(minorFromText('500', 'EUR')).toEqual({ ok: true, minor: 50_000 });
+    expect(minorFromText('1250.5', 'EUR')).toEqual({ ok: true, minor: 125_050 });
+    expect(minorFromText('1 250,50', 'EUR')).toEqual({ ok: true, minor: 125_050 });
+    // 0.29 * 100 is 28.999999999999996 as a float; the digit count gives 29.
+    expect(minorFromText('0.29', 'USD')).toEqual({ ok: true, minor: 29 });
+    expect(minorFromText('30000', 'JPY')).toEqual({ ok: true, minor: 30_000 });
+    expect(minorFromText('1.234', 'KWD')).toEqual({ ok: true, minor: 1_234 });
+  });
+
+  it('refuses what is not an amount, or has more decimals than the currency', () => {
+    expect(minorFromText('-5', 'EUR').ok).toBe(false);
+    expect(minorFromText('5e3', 'EUR').ok).toBe(false);
+    expect(minorFromText('1.005', 'EUR').ok).toBe(false);
+    expect(minorFromText('10.5', 'JPY').ok).toBe(false);
   });
 });
