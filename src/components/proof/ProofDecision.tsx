@@ -1,14 +1,18 @@
 /**
  * The client's two answers on a proof: approve (typed name and a ticked confirmation) or request
  * changes (typed name and a comment). Posts JSON to `action`, then reloads so the page shows the
- * recorded answer.
+ * recorded answer; after an approval of a proof with a deposit it goes on to the payment
+ * service's pay page instead (the approval is recorded first and stands either way).
  */
 import { useState, type SubmitEvent } from 'react';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
+import { startCheckout } from '~/lib/payments/go-to-checkout.ts';
 import { PROOF_LIMITS } from '~/lib/schemas/proof.ts';
 
 interface Props {
   action: string;
+  /** Set when the proof asks for a deposit: where to get the pay page after approving. */
+  checkoutAfterApproval?: string | undefined;
 }
 
 interface Failure {
@@ -39,7 +43,7 @@ function FieldError({ failure, field }: { failure: Failure | null; field: string
 const inputClass = 'mt-1 block w-full rounded border border-paper-line bg-white px-2 py-1';
 const buttonClass = 'rounded px-3 py-1.5 font-semibold text-white disabled:opacity-50';
 
-export default function ProofDecision({ action }: Props) {
+export default function ProofDecision({ action, checkoutAfterApproval }: Props) {
   const hydrated = useHydrated();
   const [busy, setBusy] = useState(false);
   const [approveFailure, setApproveFailure] = useState<Failure | null>(null);
@@ -58,6 +62,14 @@ export default function ProofDecision({ action }: Props) {
       setFailure(failure);
       setBusy(false);
       return;
+    }
+    if (checkoutAfterApproval && body.decision === 'approved') {
+      const started = await startCheckout(checkoutAfterApproval);
+      // When the pay page cannot be had now, the reloaded page offers "Pay the deposit".
+      if (started.ok) {
+        window.location.assign(started.url);
+        return;
+      }
     }
     window.location.reload();
   }
