@@ -1,7 +1,7 @@
 /**
  * Boards speed figures, measured over HTTP against a running server:
- *   - save latency p95: PATCH /api/designs/{id} with a changed design (a new revision each time);
- *   - list latency p95: GET /api/designs filtered, searched and sorted, with 1,000 boards in the shop.
+ *   - save latency p95: PATCH /api/boards/{id} with a changed design (a new revision each time);
+ *   - list latency p95: GET /api/boards filtered, searched and sorted, with 1,000 boards in the shop.
  * Works in a throwaway shop it creates and deletes. Prints one JSON line per figure (bench/README.md).
  * Environment: BASE_URL = the running server, DATABASE_URL = its database (`npm run bench` sets both).
  */
@@ -9,7 +9,7 @@ import { eq } from 'drizzle-orm';
 import { newToken, sha256Hex, SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { closeDb, db } from '~/lib/db/client.server.ts';
 import { newUserId } from '~/lib/db/ids.server.ts';
-import { designRevisions, designs, sessions, shops, users } from '~/lib/db/schema.ts';
+import { boardRevisions, boards, sessions, shops, users } from '~/lib/db/schema.ts';
 import { toMm } from '~/lib/format/units.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { INSTRUMENT_TYPES } from '~/lib/schemas/board.ts';
@@ -49,7 +49,7 @@ async function throwawayShop(): Promise<{ shopId: number; userId: string; cookie
   return { shopId: shop!.id, userId, cookie: `${SESSION_COOKIE}=${token}` };
 }
 
-/** 1,000 boards built from the demo designs, spread over instruments and names, one revision each. */
+/** 1,000 boards built from the demo boards, spread over instruments and names, one revision each. */
 async function fillShop(shopId: number, userId: string): Promise<void> {
   for (let start = 0; start < BOARDS; start += INSERT_BATCH) {
     const rows = Array.from({ length: Math.min(INSERT_BATCH, BOARDS - start) }, (_, k) => {
@@ -70,8 +70,8 @@ async function fillShop(shopId: number, userId: string): Promise<void> {
     });
     await db().transaction(async (tx) => {
       for (const { named, row } of rows) {
-        const [head] = await tx.insert(designs).values(row).$returningId();
-        await tx.insert(designRevisions).values({ designId: head!.id, revision: 1, data: named, authorId: userId });
+        const [head] = await tx.insert(boards).values(row).$returningId();
+        await tx.insert(boardRevisions).values({ boardId: head!.id, revision: 1, data: named, authorId: userId });
       }
     });
   }
@@ -87,14 +87,14 @@ async function timed(request: () => Promise<Response>): Promise<{ ms: number; re
 async function benchSaves(cookie: string): Promise<number[]> {
   const headers = { cookie, origin: BASE_URL, 'content-type': 'application/json' };
   const { design } = DEMO_DESIGNS[0]!;
-  const created = await fetch(`${BASE_URL}/api/designs`, { method: 'POST', headers, body: JSON.stringify({ design }) });
+  const created = await fetch(`${BASE_URL}/api/boards`, { method: 'POST', headers, body: JSON.stringify({ design }) });
   if (created.status !== 201) throw new Error(`could not create the bench board: HTTP ${created.status}`);
   let { id, version } = (await created.json()) as { id: number; version: number };
   const times: number[] = [];
   for (let i = 0; i < WARM_UP + SAMPLES; i++) {
     // A different design every time, so every save writes a new revision.
     const body = JSON.stringify({ version, design: { ...design, perpendicularFret: (i % 2) + 7, endExtension: 6 + i / 1000 } });
-    const { ms, response } = await timed(() => fetch(`${BASE_URL}/api/designs/${id}`, { method: 'PATCH', headers, body }));
+    const { ms, response } = await timed(() => fetch(`${BASE_URL}/api/boards/${id}`, { method: 'PATCH', headers, body }));
     if (response.status !== 200) throw new Error(`save answered HTTP ${response.status}`);
     version += 1;
     if (i >= WARM_UP) times.push(ms);
@@ -103,7 +103,7 @@ async function benchSaves(cookie: string): Promise<number[]> {
 }
 
 async function benchList(cookie: string): Promise<number[]> {
-  const path = '/api/designs?q=Bench%20board&instrument=guitar&status=active&sort=scale&dir=desc&page=2&pageSize=25';
+  const path = '/api/boards?q=Bench%20board&instrument=guitar&status=active&sort=scale&dir=desc&page=2&pageSize=25';
   const times: number[] = [];
   for (let i = 0; i < WARM_UP + SAMPLES; i++) {
     const { ms, response } = await timed(() => fetch(`${BASE_URL}${path}`, { headers: { cookie } }));

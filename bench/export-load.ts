@@ -1,7 +1,7 @@
 /**
  * Issue 15 under load, against the built server: 20 concurrent requests for the heaviest paper
  * template the caps allow (the largest design on 200 Letter pages), and meanwhile, one after
- * another, GET /api/health and a Boards list (GET /api/designs). Figures: health and list p95
+ * another, GET /api/health and a Boards list (GET /api/boards). Figures: health and list p95
  * during the exports (goal < 200 ms each), the server's peak RSS sampled from /proc during them
  * (worker threads share the process, so this is all of it; goal < 1 GiB), and how the 20 were
  * answered (200, 503 queue full, ...). Exports still unfinished after EXPORT_WINDOW_S are
@@ -62,7 +62,7 @@ async function timedGet(path: string, cookie?: string): Promise<number> {
 }
 
 const builder = await newShopUser('builder', 'Bench export load shop');
-const LIST_PATH = '/api/designs?sort=scale&dir=desc';
+const LIST_PATH = '/api/boards?sort=scale&dir=desc';
 const pid = serverPid();
 
 const baseline: number[] = [];

@@ -1,7 +1,7 @@
 /**
  * Boards list latency as a shop grows: 100, 1,000 and 10,000 boards. In a throwaway shop it
  * creates (and deletes) it bulk-inserts rows directly (multi-row INSERTs: heads, then one
- * revision each), then times sequential GET /api/designs requests at each size: the default first
+ * revision each), then times sequential GET /api/boards requests at each size: the default first
  * page, and search + instrument filter + sort by scale, page 2. Prints p95s and p50s, and the
  * ratio of the 10,000-board p95 to the 100-board p95 (both in this run).
  * Environment: BASE_URL and DATABASE_URL (`npm run bench` sets both).
@@ -10,7 +10,7 @@ import { eq, sql } from 'drizzle-orm';
 import { newToken, sha256Hex, SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { closeDb, db } from '~/lib/db/client.server.ts';
 import { newUserId } from '~/lib/db/ids.server.ts';
-import { designs, sessions, shops, users } from '~/lib/db/schema.ts';
+import { boards, sessions, shops, users } from '~/lib/db/schema.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { INSTRUMENT_TYPES } from '~/lib/schemas/board.ts';
 import { baseUrl, reportFigure } from './lib/figure.ts';
@@ -23,8 +23,8 @@ const SAMPLES = 100;
 const LIST_GOAL_MS = 100;
 
 const QUERIES = {
-  'first page, newest first': '/api/designs',
-  'search + filter + sort by scale, page 2': '/api/designs?q=board&instrument=guitar&status=active&sort=scale&dir=desc&page=2&pageSize=25',
+  'first page, newest first': '/api/boards',
+  'search + filter + sort by scale, page 2': '/api/boards?q=board&instrument=guitar&status=active&sort=scale&dir=desc&page=2&pageSize=25',
 } as const;
 
 function percentile(values: number[], p: number): number {
@@ -60,12 +60,12 @@ async function addBoards(shopId: number, userId: string, from: number, to: numbe
         updatedBy: userId,
       };
     });
-    await db().insert(designs).values(rows);
+    await db().insert(boards).values(rows);
   }
   const data = JSON.stringify(DEMO_DESIGNS[0]!.design);
-  await db().execute(sql`INSERT INTO design_revisions (design_id, revision, data, author_id)
-    SELECT d.id, 1, ${data}, ${userId} FROM designs d
-    WHERE d.shop_id = ${shopId} AND NOT EXISTS (SELECT 1 FROM design_revisions r WHERE r.design_id = d.id)`);
+  await db().execute(sql`INSERT INTO board_revisions (board_id, revision, data, author_id)
+    SELECT d.id, 1, ${data}, ${userId} FROM boards d
+    WHERE d.shop_id = ${shopId} AND NOT EXISTS (SELECT 1 FROM board_revisions r WHERE r.board_id = d.id)`);
 }
 
 async function latencies(path: string, cookie: string): Promise<number[]> {
@@ -90,7 +90,7 @@ async function main(): Promise<void> {
     for (const size of SIZES) {
       await addBoards(shop.shopId, shop.userId, boards, size);
       boards = size;
-      await db().execute(sql`ANALYZE TABLE designs`);
+      await db().execute(sql`ANALYZE TABLE boards`);
       for (const [label, path] of Object.entries(QUERIES)) {
         const times = await latencies(path, shop.cookie);
         const p95 = percentile(times, 95);

@@ -1,5 +1,5 @@
 /**
- * Every request passes here: security headers and `Cache-Control: no-store`, the same-origin
+ * Every request passes here: security headers and `Cache-Control: no-store`, a 308 for renamed API paths, the same-origin
  * (CSRF) check, the size of form posts to Astro Actions, the signed-in user, the route budgets of CPU-heavy public routes, and a 503
  * instead of a 500 when the database is down (rate limit counters live there too). Roles are
  * checked again in each route.
@@ -11,6 +11,7 @@ import { isDbUnavailable } from '~/lib/db/db-errors.ts';
 import { clientIp } from '~/lib/http/client-ip.ts';
 import { actionBodyRefusal } from '~/lib/http/action-body.ts';
 import { problem } from '~/lib/http/problem.ts';
+import { renamedPath } from '~/lib/http/renamed-routes.ts';
 import { ROUTE_BUDGETS, reserveFor, type Budget } from '~/lib/http/rate-budgets.ts';
 import { consumeEach, type Counter } from '~/lib/http/rate-limit.server.ts';
 import { limitedRouteFor } from '~/lib/http/route-budgets.ts';
@@ -21,6 +22,12 @@ import { DYNAMIC_RESPONSE_HEADERS, withSecurityHeaders } from '~/lib/http/securi
 const DB_DOWN_MESSAGE = 'The database is not answering right now; nothing was changed. Try again in a moment.';
 
 const headers = defineMiddleware(async (_context, next) => withSecurityHeaders(await next(), DYNAMIC_RESPONSE_HEADERS));
+
+/** Old API paths answer 308 to their new name (lib/http/renamed-routes.ts); nothing runs for them. */
+const renamedRoutes = defineMiddleware((context, next) => {
+  const to = renamedPath(context.url);
+  return to === null ? next() : new Response(null, { status: 308, headers: { location: to } });
+});
 
 const sameOrigin = defineMiddleware((context, next) => {
   // The payment service's webhooks come from its servers, not a browser: the route checks their signature.
@@ -84,4 +91,4 @@ const databaseDown = defineMiddleware(async (context, next) => {
   }
 });
 
-export const onRequest = sequence(headers, sameOrigin, actionBodies, databaseDown, session, routeBudgets);
+export const onRequest = sequence(headers, renamedRoutes, sameOrigin, actionBodies, databaseDown, session, routeBudgets);

@@ -60,7 +60,7 @@ function send(method: string, path: string, body?: string): Promise<Response> {
 }
 
 async function newBoard(name: string): Promise<{ id: number; version: number }> {
-  const created = await send('POST', '/api/designs', JSON.stringify({ design: markedDesign(name) }));
+  const created = await send('POST', '/api/boards', JSON.stringify({ design: markedDesign(name) }));
   expect(created.status).toBe(201);
   return (await created.json()) as { id: number; version: number };
 }
@@ -73,7 +73,7 @@ async function saveWorker(worker: number): Promise<void> {
   for (let n = 0; running; n++) {
     const marker = `Fault board ${worker} save ${n}`;
     try {
-      const response = await send('PATCH', `/api/designs/${id}`, saveBody(version, marker));
+      const response = await send('PATCH', `/api/boards/${id}`, saveBody(version, marker));
       const text = await response.text();
       if (response.status === 200) {
         const saved = acknowledgement(id, marker, text);
@@ -94,7 +94,7 @@ async function exportWorker(worker: number): Promise<void> {
   const { id } = await newBoard(`Export board ${worker}`);
   while (running) {
     try {
-      const response = await send('GET', `/api/designs/${id}/export?format=pdf`);
+      const response = await send('GET', `/api/boards/${id}/export?format=pdf`);
       await response.arrayBuffer();
       count(response.status, response.status === 200);
     } catch {
@@ -108,10 +108,10 @@ async function exportWorker(worker: number): Promise<void> {
 async function missingOnNode(n: NodeNumber, saves: readonly AcknowledgedSave[]): Promise<string[]> {
   const connection = await nodeConnection(n);
   try {
-    const ids = [...new Set(saves.map((s) => s.designId))];
-    const [rows] = await connection.query('SELECT design_id AS designId, revision, JSON_UNQUOTE(JSON_EXTRACT(data, "$.name")) AS name FROM design_revisions WHERE design_id IN (?)', [ids]);
-    const stored = new Map((rows as { designId: number; revision: number; name: string }[]).map((r) => [`${r.designId}/${r.revision}`, r.name]));
-    return saves.filter((s) => stored.get(`${s.designId}/${s.revision}`) !== s.marker).map((s) => `node ${n} lacks ${s.marker} (board ${s.designId} revision ${s.revision})`);
+    const ids = [...new Set(saves.map((s) => s.boardId))];
+    const [rows] = await connection.query('SELECT board_id AS boardId, revision, JSON_UNQUOTE(JSON_EXTRACT(data, "$.name")) AS name FROM board_revisions WHERE board_id IN (?)', [ids]);
+    const stored = new Map((rows as { boardId: number; revision: number; name: string }[]).map((r) => [`${r.boardId}/${r.revision}`, r.name]));
+    return saves.filter((s) => stored.get(`${s.boardId}/${s.revision}`) !== s.marker).map((s) => `node ${n} lacks ${s.marker} (board ${s.boardId} revision ${s.revision})`);
   } finally {
     await connection.end();
   }
@@ -172,12 +172,12 @@ describe('faults under load through HAProxy', () => {
     await Promise.all([galeraNode('kill', 2), galeraNode('kill', 3)]);
     await waitUntil('node 1 leaves the primary component', async () => (await clusterStatus(1)) === 'non-Primary', 60_000);
     const survivor = await nodeConnection(1);
-    const write = survivor.query('UPDATE designs SET version = version WHERE id = 0').then(() => 'written', (e: { code?: string }) => e.code ?? 'error');
+    const write = survivor.query('UPDATE boards SET version = version WHERE id = 0').then(() => 'written', (e: { code?: string }) => e.code ?? 'error');
     expect(await write, 'the lone survivor refuses writes').toBe('ER_UNKNOWN_COM_ERROR');
     await survivor.end();
     let refused: Response | undefined;
     await waitUntil('the app answers 503', async () => {
-      refused = await send('PATCH', `/api/designs/0`, saveBody(1, 'refused')).catch(() => undefined);
+      refused = await send('PATCH', `/api/boards/0`, saveBody(1, 'refused')).catch(() => undefined);
       return refused?.status === 503;
     }, 30_000);
     expect(refused!.headers.get('retry-after'), '503 says when to try again').toMatch(/^\d+$/);

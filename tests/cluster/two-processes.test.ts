@@ -46,7 +46,7 @@ function send(url: string, method: string, path: string, body?: string): Promise
 }
 
 async function newBoard(url: string, name: string): Promise<{ id: number; version: number }> {
-  const created = await send(url, 'POST', '/api/designs', JSON.stringify({ design: markedDesign(name) }));
+  const created = await send(url, 'POST', '/api/boards', JSON.stringify({ design: markedDesign(name) }));
   expect(created.status).toBe(201);
   return (await created.json()) as { id: number; version: number };
 }
@@ -74,16 +74,16 @@ describe('two app processes on one Galera cluster', () => {
 
   it('refuse a stale save through B after a save through A with 409', async () => {
     const board = await newBoard(a.url, 'Two-process board');
-    const first = await send(a.url, 'PATCH', `/api/designs/${board.id}`, saveBody(board.version, 'Saved on A'));
+    const first = await send(a.url, 'PATCH', `/api/boards/${board.id}`, saveBody(board.version, 'Saved on A'));
     expect(first.status).toBe(200);
-    const stale = await send(b.url, 'PATCH', `/api/designs/${board.id}`, saveBody(board.version, 'Stale on B'));
+    const stale = await send(b.url, 'PATCH', `/api/boards/${board.id}`, saveBody(board.version, 'Stale on B'));
     expect(stale.status).toBe(409);
     expect(await stale.json()).toMatchObject({ current: { design: { name: 'Saved on A' } } });
   });
 
   it('open on B a proof link made on A', async () => {
     const board = await newBoard(a.url, 'Proof board');
-    const made = await send(a.url, 'POST', `/api/designs/${board.id}/proofs`, JSON.stringify({ clientName: 'Ines Calloway', clientEmail: 'ines@test.example' }));
+    const made = await send(a.url, 'POST', `/api/boards/${board.id}/proofs`, JSON.stringify({ clientName: 'Ines Calloway', clientEmail: 'ines@test.example' }));
     expect(made.status).toBe(201);
     const { link } = (await made.json()) as { link: string };
     const page = await fetch(`${b.url}${new URL(link).pathname}`);
@@ -112,7 +112,7 @@ describe('two app processes on one Galera cluster', () => {
     let version = board.version;
     for (let round = 0; round < CONFLICT_ROUNDS; round++) {
       const markers = [`Round ${round} via A`, `Round ${round} via B`];
-      const answers = await Promise.all([a, b].map((s, i) => send(s.url, 'PATCH', `/api/designs/${board.id}`, saveBody(version, markers[i]!))));
+      const answers = await Promise.all([a, b].map((s, i) => send(s.url, 'PATCH', `/api/boards/${board.id}`, saveBody(version, markers[i]!))));
       const statuses = answers.map((r) => r.status);
       expect([...statuses].sort(), `round ${round}: ${statuses.join(', ')}`).toEqual([200, 409]);
       const winner = statuses.indexOf(200);

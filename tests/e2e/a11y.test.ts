@@ -31,8 +31,8 @@ beforeAll(async () => {
   owner = await signInAs('owner@wrenfield.example');
   builder = await signInAs('builder@wrenfield.example');
   client = await signInAs('client@wrenfield.example');
-  const designId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
-  rows = await shopRows(builder.shopId, builder.id, client.email, 'Axe sweep board', designId);
+  const boardId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+  rows = await shopRows(builder.shopId, builder.id, client.email, 'Axe sweep board', boardId);
 });
 afterAll(async () => {
   mkdirSync(ARTIFACTS_DIR, { recursive: true });
@@ -96,16 +96,16 @@ const PAGES: Record<Who, SweptPage[]> = {
     { label: 'a template', path: () => `/templates/${rows.templateId}` },
     { label: 'members', path: () => '/members' },
     { label: 'account', path: () => '/account' },
-    { label: 'editor', path: () => `/layout?design=${rows.designId}`, ready: waitForDrawing },
+    { label: 'editor', path: () => `/layout?board=${rows.boardId}`, ready: waitForDrawing },
   ],
   builder: [
     { label: 'boards', path: () => '/boards', ready: boardsReady },
     { label: 'template shelf', path: () => '/templates' },
     { label: 'account', path: () => '/account' },
-    { label: 'proofs of a board', path: () => `/boards/${rows.designId}/proofs` },
-    { label: 'template check', path: () => `/boards/${rows.designId}/check` },
-    { label: 'editor', path: () => `/layout?design=${rows.designId}`, ready: waitForDrawing },
-    ...EDITOR_TABS.map((tab) => ({ label: `editor (${tab.name})`, path: () => `/layout?design=${rows.designId}`, ready: waitForDrawing, tab })),
+    { label: 'proofs of a board', path: () => `/boards/${rows.boardId}/proofs` },
+    { label: 'template check', path: () => `/boards/${rows.boardId}/check` },
+    { label: 'editor', path: () => `/layout?board=${rows.boardId}`, ready: waitForDrawing },
+    ...EDITOR_TABS.map((tab) => ({ label: `editor (${tab.name})`, path: () => `/layout?board=${rows.boardId}`, ready: waitForDrawing, tab })),
   ],
   client: [
     { label: 'shared with me', path: () => '/shared' },
@@ -193,7 +193,7 @@ describe('contrast and names', () => {
 describe('keyboard', () => {
   it('the editor\'s panel tabs follow the WAI-ARIA tabs pattern: roving tabindex, Left/Right/Home/End, aria-selected, aria-controls', async () => {
     const page = await (await contextAs(builder)).newPage();
-    await page.goto(`${BASE_URL}/layout?design=${rows.designId}`, { waitUntil: 'networkidle' });
+    await page.goto(`${BASE_URL}/layout?board=${rows.boardId}`, { waitUntil: 'networkidle' });
     await waitForDrawing(page);
     const list = page.getByRole('tablist', { name: 'Panels' });
     const tabs = list.getByRole('tab');

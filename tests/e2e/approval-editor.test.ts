@@ -32,7 +32,7 @@ describe('an approved board in the editor', () => {
   it('asks before the first change, warns after it, and every export names the new revision', async () => {
     const name = `Approved fan ${Date.now()}`;
     const design = { ...structuredClone(DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan')!.design), name };
-    const board = await api<BoardDetail>('/api/designs', 'POST', { design, clientName: 'Ines Calloway' });
+    const board = await api<BoardDetail>('/api/boards', 'POST', { design, clientName: 'Ines Calloway' });
     const proof = await createProof(builder, board.id, { clientName: 'Ines Calloway', clientEmail: `ines-${Date.now()}@wrenfield.example`, message: '', expiresInDays: 30 }, new Date());
     const token = proof!.link.slice(proof!.link.lastIndexOf('/') + 1);
     expect((await decideProof({ token }, { decision: 'approved', name: 'Ines', confirmed: true }, new Date())).ok).toBe(true);
@@ -40,7 +40,7 @@ describe('an approved board in the editor', () => {
     const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
     await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
     const page = await context.newPage();
-    await page.goto(`${BASE_URL}/layout?design=${board.id}`, { waitUntil: 'networkidle' });
+    await page.goto(`${BASE_URL}/layout?board=${board.id}`, { waitUntil: 'networkidle' });
     await page.getByText('Approved by the client: revision 1').waitFor();
 
     // The first change away from the approved layout waits for the builder's answer.
@@ -49,7 +49,7 @@ describe('an approved board in the editor', () => {
     await question.waitFor();
     await question.getByText(/this change will need a new proof/).waitFor();
     await saveScreenshot(page, 'approval-question');
-    expect((await api<BoardDetail>(`/api/designs/${board.id}`)).design).toMatchObject({ perpendicularFret: 8 });
+    expect((await api<BoardDetail>(`/api/boards/${board.id}`)).design).toMatchObject({ perpendicularFret: 8 });
     await question.getByRole('button', { name: 'Undo my change' }).click();
     await expect.poll(() => perpendicular(page).inputValue()).toBe('8');
     expect(await question.count()).toBe(0);
@@ -59,8 +59,8 @@ describe('an approved board in the editor', () => {
     await question.getByRole('button', { name: 'Keep my change (needs a new proof)' }).click();
     await page.getByText('Changed since approval.').waitFor();
     await page.locator('[data-board-status="changed_since_approval"]').waitFor();
-    await expect.poll(async () => (await api<BoardDetail>(`/api/designs/${board.id}`)).design).toMatchObject({ perpendicularFret: 7 });
-    const list = await api<BoardList>(`/api/designs?q=${encodeURIComponent(name)}`);
+    await expect.poll(async () => (await api<BoardDetail>(`/api/boards/${board.id}`)).design).toMatchObject({ perpendicularFret: 7 });
+    const list = await api<BoardList>(`/api/boards?q=${encodeURIComponent(name)}`);
     expect(list.items.map((b) => b.status)).toEqual(['changed_since_approval']);
 
     // The Export panel says so, and the PDF it downloads is revision 2, made for the export.
@@ -70,7 +70,7 @@ describe('an approved board in the editor', () => {
     await page.getByRole('button', { name: 'Download Paper template (PDF)' }).click();
     const file = await download;
     expect(file.suggestedFilename()).toBe(`${name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-r2-paper-template.pdf`);
-    const revisions = await api<{ items: { revision: number; reason: string }[] }>(`/api/designs/${board.id}/revisions`);
+    const revisions = await api<{ items: { revision: number; reason: string }[] }>(`/api/boards/${board.id}/revisions`);
     expect(revisions.items.map((r) => [r.revision, r.reason])).toEqual([[2, 'export'], [1, 'created']]);
     await saveScreenshot(page, 'approval-changed-export');
     await context.close();

@@ -38,7 +38,7 @@ const savedBadge = (page: Page) => page.getByRole('status').filter({ hasText: /^
 const keptGroup = (page: Page) => page.getByRole('group', { name: 'Where this design is kept' });
 
 function boardIdIn(url: string): number {
-  return Number(new URL(url).searchParams.get('design'));
+  return Number(new URL(url).searchParams.get('board'));
 }
 
 describe('Layout editor and Boards in Chromium (built server)', () => {
@@ -54,10 +54,10 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     expect((await readScene(page)).frets.length).toBe(24);
 
     await page.getByRole('button', { name: 'Save to Boards' }).click();
-    await page.waitForURL(/\/layout\?design=\d+$/);
+    await page.waitForURL(/\/layout\?board=\d+$/);
     const id = boardIdIn(page.url());
     await savedBadge(page).waitFor();
-    const first = await api<BoardDetail>(`/api/designs/${id}`);
+    const first = await api<BoardDetail>(`/api/boards/${id}`);
     expect(first).toMatchObject({ name, currentRevision: 1, status: 'draft', design: { strings: 7, scale: { treble: 648, bass: 686 }, perpendicularFret: 8, frets: 24 } });
 
     // Found in Boards by search, and opened from there.
@@ -68,7 +68,7 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     await row.waitFor();
     expect(await row.locator('[data-label="status"]').textContent()).toBe('Draft');
     await row.getByRole('link', { name: `Open ${name}` }).click();
-    await page.waitForURL(`${BASE_URL}/layout?design=${id}`);
+    await page.waitForURL(`${BASE_URL}/layout?board=${id}`);
     await expect(page.getByLabel('Design name').inputValue()).resolves.toBe(name);
     await savedBadge(page).waitFor();
 
@@ -103,7 +103,7 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     await history.getByRole('button', { name: 'Restore revision 1' }).click();
     await keptGroup(page).filter({ hasText: 'Revision 1' }).waitFor();
     await expect(page.getByLabel(/^Perpendicular fret/).inputValue()).resolves.toBe('8');
-    const restored = await api<BoardDetail>(`/api/designs/${id}`);
+    const restored = await api<BoardDetail>(`/api/boards/${id}`);
     expect(restored).toMatchObject({ currentRevision: 2, workingRevision: 1 });
     expect(restored.design).toEqual(first.design);
     await savedBadge(page).waitFor();
@@ -112,21 +112,21 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     await page.goto(`${BASE_URL}/boards?q=${encodeURIComponent(name)}`);
     await row.getByRole('button', { name: `Archive ${name}` }).click();
     await page.getByText('No boards match these filters.').waitFor();
-    expect((await api<BoardDetail>(`/api/designs/${id}`)).status).toBe('archived');
-    expect((await api<{ items: unknown[] }>(`/api/designs/${id}/revisions`)).items.length).toBe(2);
+    expect((await api<BoardDetail>(`/api/boards/${id}`)).status).toBe('archived');
+    expect((await api<{ items: unknown[] }>(`/api/boards/${id}/revisions`)).items.length).toBe(2);
     await context.close();
   });
 
   it('a save that lost a race keeps the edit, shows what changed, and saves it as a copy', async () => {
     const design = { ...structuredClone(DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan')!.design), name: `Raced seven ${Date.now()}` };
-    const board = await api<BoardDetail>('/api/designs', 'POST', { design });
+    const board = await api<BoardDetail>('/api/boards', 'POST', { design });
     const context = await signedInContext(builder);
     const page = await context.newPage();
-    await page.goto(`${BASE_URL}/layout?design=${board.id}`, { waitUntil: 'networkidle' });
+    await page.goto(`${BASE_URL}/layout?board=${board.id}`, { waitUntil: 'networkidle' });
     await savedBadge(page).waitFor();
 
     // Someone else saves first (as a second session would).
-    await api(`/api/designs/${board.id}`, 'PATCH', { version: board.version, design: { ...design, perpendicularFret: 7 } });
+    await api(`/api/boards/${board.id}`, 'PATCH', { version: board.version, design: { ...design, perpendicularFret: 7 } });
     await page.getByLabel(/^String spacing at the nut/).fill('42');
 
     const notice = page.getByRole('alert').filter({ hasText: 'This board was saved elsewhere while you edited it' });
@@ -137,12 +137,12 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     await saveScreenshot(page, 'boards-editor-conflict');
 
     await notice.getByRole('button', { name: 'Save mine as a copy' }).click();
-    await page.waitForURL((url) => url.searchParams.get('design') !== String(board.id));
+    await page.waitForURL((url) => url.searchParams.get('board') !== String(board.id));
     await savedBadge(page).waitFor();
-    const copy = await api<BoardDetail>(`/api/designs/${boardIdIn(page.url())}`);
+    const copy = await api<BoardDetail>(`/api/boards/${boardIdIn(page.url())}`);
     expect(copy.design).toMatchObject({ stringSpacing: { nut: 42 }, perpendicularFret: 8 });
     // Both edits are kept: the other save stays on the original board.
-    expect((await api<BoardDetail>(`/api/designs/${board.id}`)).design).toMatchObject({ stringSpacing: { nut: 41 }, perpendicularFret: 7 });
+    expect((await api<BoardDetail>(`/api/boards/${board.id}`)).design).toMatchObject({ stringSpacing: { nut: 41 }, perpendicularFret: 7 });
     expect(await notice.count()).toBe(0);
     await context.close();
   });
@@ -161,8 +161,8 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
     await page.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
     await keptGroup(page).getByText('Scratch design, kept in this browser only').waitFor();
     expect(await page.getByRole('button', { name: 'Save to Boards' }).count()).toBe(0);
-    const [someBoard] = (await api<{ items: BoardDetail[] }>('/api/designs?pageSize=1')).items;
-    const response = await page.goto(`${BASE_URL}/layout?design=${someBoard!.id}`);
+    const [someBoard] = (await api<{ items: BoardDetail[] }>('/api/boards?pageSize=1')).items;
+    const response = await page.goto(`${BASE_URL}/layout?board=${someBoard!.id}`);
     expect(response?.status()).toBe(403);
     await context.close();
   });

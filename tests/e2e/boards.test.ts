@@ -24,7 +24,7 @@ const api = signedInApi(() => builder);
 describe('Boards page in Chromium (built server)', () => {
   it('finds a saved fanned 7-string by search, shows its history, restores revision 1 and archives it', async () => {
     const design = { ...structuredClone(DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan')!.design), name: `Fanned seven ${Date.now()}` };
-    const board = await api<BoardDetail>('/api/designs', 'POST', { design, clientName: 'Ines Calloway', instrumentType: 'guitar' });
+    const board = await api<BoardDetail>('/api/boards', 'POST', { design, clientName: 'Ines Calloway', instrumentType: 'guitar' });
 
     const context = await browser.newContext();
     await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
@@ -36,14 +36,14 @@ describe('Boards page in Chromium (built server)', () => {
     await page.waitForFunction((name) => new URL(location.href).searchParams.get('q') === name, design.name);
     await page.waitForFunction(() => document.querySelectorAll('tbody tr').length === 1 && !document.querySelector('table[aria-busy="true"]'));
     await row.waitFor();
-    await expect(row.getByRole('link', { name: `Open ${design.name}` }).getAttribute('href')).resolves.toBe(`/layout?design=${board.id}`);
-    await expect(row.getByRole('link', { name: `Export JSON of ${design.name}` }).getAttribute('href')).resolves.toBe(`/api/designs/${board.id}/export?format=json`);
+    await expect(row.getByRole('link', { name: `Open ${design.name}` }).getAttribute('href')).resolves.toBe(`/layout?board=${board.id}`);
+    await expect(row.getByRole('link', { name: `Export JSON of ${design.name}` }).getAttribute('href')).resolves.toBe(`/api/boards/${board.id}/export?format=json`);
     const drawing = row.getByRole('img', { name: `Drawing of ${design.name}` });
     await drawing.waitFor();
     await page.waitForFunction((img) => (img as HTMLImageElement).complete && (img as HTMLImageElement).naturalWidth > 0, await drawing.elementHandle());
 
     // A second revision saved elsewhere (as the editor will), then the page is reloaded from its URL.
-    await api(`/api/designs/${board.id}`, 'PATCH', { version: board.version, design: { ...design, perpendicularFret: 7 }, note: 'Perpendicular at 7', saveRevision: true });
+    await api(`/api/boards/${board.id}`, 'PATCH', { version: board.version, design: { ...design, perpendicularFret: 7 }, note: 'Perpendicular at 7', saveRevision: true });
     await page.reload();
     await row.waitFor();
     await row.getByRole('button', { name: `History of ${design.name}` }).click();
@@ -53,19 +53,19 @@ describe('Boards page in Chromium (built server)', () => {
     await history.getByRole('button', { name: 'Restore revision 1' }).click();
     // Restore makes revision 1 the working copy again; no new revision is made.
     await history.getByRole('listitem').filter({ hasText: '#1' }).getByText('working copy').waitFor();
-    const restored = await api<BoardDetail>(`/api/designs/${board.id}`);
+    const restored = await api<BoardDetail>(`/api/boards/${board.id}`);
     expect(restored).toMatchObject({ currentRevision: 2, workingRevision: 1, design });
     await saveScreenshot(page, 'boards-history');
 
     await page.getByRole('button', { name: 'Close history' }).click();
     await row.getByRole('button', { name: `Archive ${design.name}` }).click();
     await page.getByText('No boards match these filters.').waitFor();
-    expect((await api<BoardDetail>(`/api/designs/${board.id}`)).status).toBe('archived');
+    expect((await api<BoardDetail>(`/api/boards/${board.id}`)).status).toBe('archived');
     // Undo right away brings it back; archiving again leaves it to the Archived filter.
     const undo = page.getByRole('status').filter({ hasText: `Archived “${design.name}”` });
     await undo.getByRole('button', { name: 'Undo' }).click();
     await row.getByRole('button', { name: `Archive ${design.name}` }).waitFor();
-    expect((await api<BoardDetail>(`/api/designs/${board.id}`)).status).not.toBe('archived');
+    expect((await api<BoardDetail>(`/api/boards/${board.id}`)).status).not.toBe('archived');
     expect(await undo.count()).toBe(0);
     await row.getByRole('button', { name: `Archive ${design.name}` }).click();
     await page.getByText('No boards match these filters.').waitFor();

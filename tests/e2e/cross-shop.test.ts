@@ -6,7 +6,7 @@
  */
 import { eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { designs, fretWires, proofs, shops, templates, users } from '~/lib/db/schema.ts';
+import { boards, fretWires, proofs, shops, templates, users } from '~/lib/db/schema.ts';
 import { DEMO_SHOP_NAME } from '~/lib/db/seed/demo-shop.server.ts';
 import { ROUTE_CASES } from '../route-matrix/index.ts';
 import type { MatrixIds, RouteCase } from '../route-matrix/types.ts';
@@ -33,7 +33,7 @@ const refusedToOthers = (c: RouteCase) => {
 async function demoShopTexts(shopId: number): Promise<string[]> {
   const [shop] = await db().select({ name: shops.name }).from(shops).where(eq(shops.id, shopId));
   const people = await db().select({ email: users.email, name: users.displayName }).from(users).where(eq(users.shopId, shopId));
-  const boards = await db().select({ name: designs.name, client: designs.clientName }).from(designs).where(eq(designs.shopId, shopId));
+  const boardRows = await db().select({ name: boards.name, client: boards.clientName }).from(boards).where(eq(boards.shopId, shopId));
   const shelf = await db()
     .select({ name: templates.name, material: templates.material, place: templates.storagePlace, notes: templates.notes })
     .from(templates)
@@ -42,7 +42,7 @@ async function demoShopTexts(shopId: number): Promise<string[]> {
     .select({ client: proofs.clientName, email: proofs.clientEmail, message: proofs.message })
     .from(proofs)
     .where(inArray(proofs.shopId, [shopId]));
-  const texts = [shop?.name, ...people.flatMap((p) => [p.email, p.name]), ...boards.flatMap((b) => [b.name, b.client])];
+  const texts = [shop?.name, ...people.flatMap((p) => [p.email, p.name]), ...boardRows.flatMap((b) => [b.name, b.client])];
   texts.push(...shelf.flatMap((t) => [t.name, t.material, t.place, t.notes]), ...links.flatMap((l) => [l.client, l.email, l.message]));
   return [...new Set(texts.filter((t): t is string => typeof t === 'string' && t.trim().length >= MIN_SECRET_CHARS))];
 }
@@ -50,10 +50,10 @@ async function demoShopTexts(shopId: number): Promise<string[]> {
 beforeAll(async () => {
   const [demoShop] = await db().select({ id: shops.id }).from(shops).where(eq(shops.name, DEMO_SHOP_NAME));
   const [builder] = await db().select({ id: users.id }).from(users).where(eq(users.email, 'builder@wrenfield.example'));
-  const designId = await ensureDesign(demoShop!.id, builder!.id, 'Seven-string', 'seven-string-fan');
-  demoRows = await shopRows(demoShop!.id, builder!.id, 'client@wrenfield.example', 'Cross-shop board', designId);
+  const boardId = await ensureDesign(demoShop!.id, builder!.id, 'Seven-string', 'seven-string-fan');
+  demoRows = await shopRows(demoShop!.id, builder!.id, 'client@wrenfield.example', 'Cross-shop board', boardId);
   const [wire] = await db().select({ id: fretWires.id }).from(fretWires).where(eq(fretWires.shopId, demoShop!.id)).limit(1);
-  ids = { designId, templateId: demoRows.templateId, wireId: wire!.id, proofToken: demoRows.proofToken, demoBuilderId: builder!.id };
+  ids = { boardId, templateId: demoRows.templateId, wireId: wire!.id, proofToken: demoRows.proofToken, demoBuilderId: builder!.id };
   otherOwner = await newShopUser('owner', 'Cross-shop visitor shop');
   secrets = await demoShopTexts(demoShop!.id);
 });

@@ -8,7 +8,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL } from '../support/browser.ts';
 import { acknowledgedSaveProblems, acknowledgement, saveBody, type AcknowledgedSave } from '../support/acknowledged-saves.ts';
-import { fixtureDesign, insertDesign } from '../support/designs.ts';
+import { fixtureDesign, insertBoard } from '../support/designs.ts';
 import { newShopUser, signInAs, type TestUser } from '../support/sessions.ts';
 import { closeDb, databaseCommand, startDatabase } from '../support/test-db.ts';
 
@@ -128,7 +128,7 @@ describe('MariaDB stops while requests are in flight, then comes back', () => {
 });
 
 interface SaveAttempt {
-  designId: number;
+  boardId: number;
   marker: string;
   status: number;
   contentType: string;
@@ -139,25 +139,25 @@ interface SaveAttempt {
  * Saves one board again and again, each over the version the last 200 named, until `stop()`;
  * a 409 (a save whose answer was lost but whose write went through) hands over the current version.
  */
-async function keepSaving(writer: TestUser, designId: number, stop: () => boolean, attempts: SaveAttempt[], acknowledged: AcknowledgedSave[]): Promise<void> {
+async function keepSaving(writer: TestUser, boardId: number, stop: () => boolean, attempts: SaveAttempt[], acknowledged: AcknowledgedSave[]): Promise<void> {
   let version = 1;
   for (let sequence = 1; !stop(); sequence++) {
-    const marker = `Fault board ${designId} save ${sequence}`;
+    const marker = `Fault board ${boardId} save ${sequence}`;
     let attempt: SaveAttempt;
     try {
-      const response = await fetch(`${BASE_URL}/api/designs/${designId}`, {
+      const response = await fetch(`${BASE_URL}/api/boards/${boardId}`, {
         method: 'PATCH',
         headers: { 'content-type': 'application/json', origin: BASE_URL, cookie: writer.cookie },
         body: saveBody(version, marker),
         signal: AbortSignal.timeout(5000),
       });
-      attempt = { designId, marker, status: response.status, contentType: response.headers.get('content-type') ?? '', body: await response.text() };
+      attempt = { boardId, marker, status: response.status, contentType: response.headers.get('content-type') ?? '', body: await response.text() };
     } catch (error) {
-      attempt = { designId, marker, status: 0, contentType: '', body: String(error) };
+      attempt = { boardId, marker, status: 0, contentType: '', body: String(error) };
     }
     attempts.push(attempt);
     if (attempt.status === 200) {
-      const save = acknowledgement(designId, marker, attempt.body);
+      const save = acknowledgement(boardId, marker, attempt.body);
       acknowledged.push(save);
       version = save.version;
     } else if (attempt.status === 409) {
@@ -172,12 +172,12 @@ async function keepSaving(writer: TestUser, designId: number, stop: () => boolea
 describe('Boards saves in flight while MariaDB stops and starts again', () => {
   it('acknowledges only stored saves, answers the others 503 with a clear message, and saves again after recovery', async () => {
     const writer = await newShopUser('builder', 'Database fault shop');
-    const boards = await Promise.all([1, 2, 3].map((i) => insertDesign(writer.shopId, writer.id, { ...fixtureDesign('seven-string-fan'), name: `Fault board ${i}` })));
+    const boards = await Promise.all([1, 2, 3].map((i) => insertBoard(writer.shopId, writer.id, { ...fixtureDesign('seven-string-fan'), name: `Fault board ${i}` })));
     const attempts: SaveAttempt[] = [];
     const acknowledged: AcknowledgedSave[] = [];
     let done = false;
     const savers = boards.map((id) => keepSaving(writer, id, () => done, attempts, acknowledged));
-    const acknowledgedFor = (id: number) => acknowledged.filter((s) => s.designId === id).length;
+    const acknowledgedFor = (id: number) => acknowledged.filter((s) => s.boardId === id).length;
 
     expect(await waitFor(async () => boards.every((id) => acknowledgedFor(id) >= 2), 10), 'saves go through before the fault').toBe(true);
     await databaseCommand('stop');

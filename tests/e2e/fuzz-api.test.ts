@@ -255,7 +255,7 @@ function signedInRequestFor(route: ApiRoute): fc.Arbitrary<SignedInRequest> {
 function idFor(route: ApiRoute, param: string, rows: ShopRows): string {
   if (param === 'token') return rows.proofToken;
   if (param === 'proofId') return String(rows.proofId);
-  return String(route.file.includes('/templates/') ? rows.templateId : rows.designId);
+  return String(route.file.includes('/templates/') ? rows.templateId : rows.boardId);
 }
 
 interface SignedInActor {
@@ -341,8 +341,8 @@ describe('uploads (.scl, fret measurements CSV, board JSON import) on the built 
   const uploads: Upload[] = [
     { label: '.scl (POST /api/scala)', path: () => '/api/scala', type: 'text/plain', limitBytes: 64 * 1024 },
     { label: 'measurements CSV (POST /api/templates/{id}/checks)', path: () => `/api/templates/${builder().rows[0].templateId}/checks?units=mm&tolerance=0.1`, type: 'text/csv', limitBytes: 64 * 1024 },
-    { label: 'board JSON import (POST /api/designs/import)', path: () => '/api/designs/import', type: 'application/json', limitBytes: 256 * 1024 },
-    { label: 'board JSON import as a form file', path: () => '/api/designs/import', type: 'multipart/form-data; boundary=kerfline-upload', limitBytes: 256 * 1024 + 8 * 1024 },
+    { label: 'board JSON import (POST /api/boards/import)', path: () => '/api/boards/import', type: 'application/json', limitBytes: 256 * 1024 },
+    { label: 'board JSON import as a form file', path: () => '/api/boards/import', type: 'multipart/form-data; boundary=kerfline-upload', limitBytes: 256 * 1024 + 8 * 1024 },
   ];
 
   async function post(upload: Upload, type: string, payload: BodyInit): Promise<Response> {
@@ -384,7 +384,7 @@ describe('uploads (.scl, fret measurements CSV, board JSON import) on the built 
     const send = (file: Blob) => {
       const form = new FormData();
       form.set('file', file, 'board.json');
-      return fetch(new URL('/api/designs/import', target.url), { method: 'POST', headers: { origin: BASE_URL, cookie: builder().user.cookie }, body: form });
+      return fetch(new URL('/api/boards/import', target.url), { method: 'POST', headers: { origin: BASE_URL, cookie: builder().user.cookie }, body: form });
     };
     const png = await send(new Blob([new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0xff, 0xfe])], { type: 'image/png' }));
     expect(png.status).toBe(400);

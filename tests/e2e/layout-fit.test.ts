@@ -15,14 +15,14 @@ import { closeDb } from '../support/test-db.ts';
 
 let browser: Browser;
 let builder: TestUser;
-let designId: number;
+let boardId: number;
 
 beforeAll(async () => {
   browser = await launchBrowser();
   builder = await signInAs('builder@wrenfield.example');
-  designId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+  boardId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
   // A proof with a long address, so the Proofs panel has a row to fit.
-  await shopRows(builder.shopId, builder.id, 'a-client-with-a-rather-long-address@wrenfield.example', 'Laptop fit', designId);
+  await shopRows(builder.shopId, builder.id, 'a-client-with-a-rather-long-address@wrenfield.example', 'Laptop fit', boardId);
 });
 afterAll(async () => {
   await browser?.close();
@@ -67,7 +67,7 @@ function sidewaysOverflow(page: Page) {
 describe('the Layout editor fits a laptop', () => {
   it('at 1280×720 nothing overflows sideways, and every panel opens beside the drawing with the drawing in view', async () => {
     const page = await builderPage(1280, 720);
-    await page.goto(`${BASE_URL}/layout?design=${designId}`, { waitUntil: 'networkidle' });
+    await page.goto(`${BASE_URL}/layout?board=${boardId}`, { waitUntil: 'networkidle' });
     await waitForDrawing(page);
     expect(await sidewaysOverflow(page)).toEqual([]);
 
@@ -98,7 +98,7 @@ describe('the Layout editor fits a laptop', () => {
   it('at 1920×1080 and 1440×900 nothing overflows sideways either', async () => {
     for (const [width, height] of [[1920, 1080], [1440, 900]] as const) {
       const page = await builderPage(width, height);
-      await page.goto(`${BASE_URL}/layout?design=${designId}`, { waitUntil: 'networkidle' });
+      await page.goto(`${BASE_URL}/layout?board=${boardId}`, { waitUntil: 'networkidle' });
       await waitForDrawing(page);
       for (const name of ['Design', 'Fret table', 'Exports', 'History']) {
         await page.getByRole('tab', { name }).click();

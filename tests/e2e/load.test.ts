@@ -15,7 +15,7 @@ import autocannon from 'autocannon';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { acknowledgedSaveProblems, acknowledgement, saveBody, type AcknowledgedSave } from '../support/acknowledged-saves.ts';
 import { startBuiltServer, type BuiltServer } from '../support/built-server.ts';
-import { fixtureDesign, insertDesign } from '../support/designs.ts';
+import { fixtureDesign, insertBoard } from '../support/designs.ts';
 import { newShopUser, signInAs, type TestUser } from '../support/sessions.ts';
 import { closeDb } from '../support/test-db.ts';
 
@@ -74,10 +74,10 @@ describe(`load: ${CONNECTIONS} connections for ${SECONDS} s each on the built se
     expect(Object.keys(result.statuses)).toEqual(['200']);
   });
 
-  it('the Boards list (GET /api/designs as the demo builder) answers every request with 200', async () => {
+  it('the Boards list (GET /api/boards as the demo builder) answers every request with 200', async () => {
     const result = outcome(
       await autocannon({
-        url: `${BASE_URL}/api/designs?q=a&sort=scale&dir=desc&pageSize=25`,
+        url: `${BASE_URL}/api/boards?q=a&sort=scale&dir=desc&pageSize=25`,
         connections: CONNECTIONS,
         duration: SECONDS,
         headers: { cookie: demoBuilder.cookie },
@@ -88,15 +88,15 @@ describe(`load: ${CONNECTIONS} connections for ${SECONDS} s each on the built se
     expect(Object.keys(result.statuses)).toEqual(['200']);
   });
 
-  it('saves (PATCH /api/designs/{id}, one board per connection): no 5xx, every acknowledged save stored in order', async () => {
+  it('saves (PATCH /api/boards/{id}, one board per connection): no 5xx, every acknowledged save stored in order', async () => {
     const boardIds = await Promise.all(
-      Array.from({ length: CONNECTIONS }, (_, i) => insertDesign(loadBuilder.shopId, loadBuilder.id, { ...fixtureDesign('seven-string-fan'), name: `Load board ${i}` })),
+      Array.from({ length: CONNECTIONS }, (_, i) => insertBoard(loadBuilder.shopId, loadBuilder.id, { ...fixtureDesign('seven-string-fan'), name: `Load board ${i}` })),
     );
     const acknowledged: AcknowledgedSave[] = [];
     let conflicts = 0;
     // One autocannon client per board: each sends its next save only after the answer to the last,
     // over the version that answer named (a 409 would hand over the current version instead).
-    const runs = boardIds.map((designId, connection) => {
+    const runs = boardIds.map((boardId, connection) => {
       let version = 1;
       let sequence = 0;
       let marker = '';
@@ -107,7 +107,7 @@ describe(`load: ${CONNECTIONS} connections for ${SECONDS} s each on the built se
         requests: [
           {
             method: 'PATCH',
-            path: `/api/designs/${designId}`,
+            path: `/api/boards/${boardId}`,
             headers: { 'content-type': 'application/json', origin: BASE_URL, cookie: loadBuilder.cookie },
             setupRequest: (request) => {
               marker = `Load board ${connection} save ${++sequence}`;
@@ -115,7 +115,7 @@ describe(`load: ${CONNECTIONS} connections for ${SECONDS} s each on the built se
             },
             onResponse: (status, body) => {
               if (status === 200) {
-                const save = acknowledgement(designId, marker, body);
+                const save = acknowledgement(boardId, marker, body);
                 acknowledged.push(save);
                 version = save.version;
               } else if (status === 409) {

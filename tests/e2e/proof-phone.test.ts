@@ -18,13 +18,13 @@ const PHONE = { width: 390, height: 844 };
 let browser: Browser;
 let builder: TestUser;
 let client: TestUser;
-let designId: number;
+let boardId: number;
 
 beforeAll(async () => {
   browser = await launchBrowser();
   builder = await signInAs('builder@wrenfield.example');
   client = await signInAs('client@wrenfield.example');
-  designId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+  boardId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
 });
 afterAll(async () => {
   await browser?.close();
@@ -57,7 +57,7 @@ async function expectClientsPage(page: Page): Promise<void> {
 
 describe('the proof page on a phone (390×844)', () => {
   it('from the link: readable with no sideways scroll, and the client approves there', async () => {
-    const rows = await shopRows(builder.shopId, builder.id, `phone-${Date.now()}@wrenfield.example`, 'Phone proof', designId);
+    const rows = await shopRows(builder.shopId, builder.id, `phone-${Date.now()}@wrenfield.example`, 'Phone proof', boardId);
     const context = await browser.newContext({ viewport: PHONE, isMobile: true, hasTouch: true });
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/p/${rows.proofToken}`, { waitUntil: 'networkidle' });
@@ -83,7 +83,7 @@ describe('the proof page on a phone (390×844)', () => {
   });
 
   it('the signed-in client\'s shared proof: the same page, and a request for changes with a message', async () => {
-    const rows = await shopRows(builder.shopId, builder.id, client.email, 'Phone shared proof', designId);
+    const rows = await shopRows(builder.shopId, builder.id, client.email, 'Phone shared proof', boardId);
     const context = await browser.newContext({ viewport: PHONE, isMobile: true, hasTouch: true });
     await context.addCookies([{ name: SESSION_COOKIE, value: client.token, url: BASE_URL }]);
     const page = await context.newPage();

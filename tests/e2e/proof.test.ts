@@ -13,12 +13,12 @@ const DAY_MS = 86_400_000;
 
 let browser: Browser;
 let builder: TestUser;
-let designId: number;
+let boardId: number;
 
 beforeAll(async () => {
   browser = await launchBrowser();
   builder = await signInAs('builder@wrenfield.example');
-  designId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+  boardId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
 });
 afterAll(async () => {
   await browser?.close();
@@ -56,7 +56,7 @@ describe('Proof in Chromium (built server)', () => {
     const builderContext = await browser.newContext();
     await builderContext.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
     const panel = await builderContext.newPage();
-    await panel.goto(`${BASE_URL}/boards/${designId}/proofs`);
+    await panel.goto(`${BASE_URL}/boards/${boardId}/proofs`);
     const email = `client-e2e-${Date.now()}@wrenfield.example`;
     await panel.getByLabel('Client name').fill('Ines Calloway');
     await panel.getByLabel('Client e-mail').fill(email);
@@ -105,7 +105,7 @@ describe('Proof in Chromium (built server)', () => {
     await saveScreenshot(proof, 'proof-view-island');
 
     const html = await proof.content();
-    for (const leak of [`/boards/${designId}`, '/api/designs', 'designId', 'shopId']) expect(html).not.toContain(leak);
+    for (const leak of [`/boards/${boardId}`, '/api/boards', 'boardId', 'shopId']) expect(html).not.toContain(leak);
 
     const approve = proof.getByRole('form', { name: 'Approve' });
     await approve.getByLabel('Your name').fill('Ines Calloway');
@@ -136,7 +136,7 @@ describe('Proof in Chromium (built server)', () => {
 
   it('a signed-in client finds the proof under Shared with me and asks for changes there', async () => {
     const client = await signInAs('client@wrenfield.example');
-    const sent = await createProof(builder, designId, { clientName: 'Ines Calloway', clientEmail: client.email, message: 'Second look', expiresInDays: 30 }, new Date());
+    const sent = await createProof(builder, boardId, { clientName: 'Ines Calloway', clientEmail: client.email, message: 'Second look', expiresInDays: 30 }, new Date());
     const context = await browser.newContext();
     await context.addCookies([{ name: SESSION_COOKIE, value: client.token, url: BASE_URL }]);
     const page = await context.newPage();
@@ -158,8 +158,8 @@ describe('Proof in Chromium (built server)', () => {
 
   it('unknown, expired, revoked and malformed links all get the same 404 page', async () => {
     const input = { clientName: 'C', clientEmail: `gone-${Date.now()}@wrenfield.example`, message: '', expiresInDays: 1 };
-    const expired = await createProof(builder, designId, input, new Date(Date.now() - 2 * DAY_MS));
-    const revoked = await createProof(builder, designId, input, new Date());
+    const expired = await createProof(builder, boardId, input, new Date(Date.now() - 2 * DAY_MS));
+    const revoked = await createProof(builder, boardId, input, new Date());
     await revokeProof(builder.shopId, revoked!.proof.id, new Date());
     const paths = ['/p/AAAAAAAAAAAAAAAAAAAAAA', new URL(expired!.link).pathname, new URL(revoked!.link).pathname, '/p/not-a-token'];
     const answers = [];

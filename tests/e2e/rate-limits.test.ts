@@ -16,7 +16,7 @@ import { MAIL_BUDGETS, ROUTE_BUDGETS, SIGN_IN_BUDGETS } from '~/lib/http/rate-bu
 import { PROOF_SUBJECTS } from '~/lib/proofs/proof-mails.server.ts';
 import { BASE_URL, launchBrowser } from '../support/browser.ts';
 import { startBuiltServer, type BuiltServer } from '../support/built-server.ts';
-import { fixtureDesign, insertDesign } from '../support/designs.ts';
+import { fixtureDesign, insertBoard } from '../support/designs.ts';
 import { uniqueEmail, waitForMail } from '../support/outbox.ts';
 import { newShopUser, type TestUser } from '../support/sessions.ts';
 import { closeDb } from '../support/test-db.ts';
@@ -195,9 +195,9 @@ describe('no mail cannon: proofs and invitations per user and per shop per hour'
 
   it('a shop younger than a day sends its young budget of proofs, then 429 with Retry-After; subjects stay fixed; the panel says when to try again', async () => {
     const builder = await newShopUser('builder', 'Brand New Shop: WIN A PRIZE');
-    const designId = await insertDesign(builder.shopId, builder.id, { ...fixtureDesign('seven-string-fan'), name: 'FREE GUITARS click now' });
+    const boardId = await insertBoard(builder.shopId, builder.id, { ...fixtureDesign('seven-string-fan'), name: 'FREE GUITARS click now' });
     const post = (body: string) =>
-      fetch(`${BASE_URL}/api/designs/${designId}/proofs`, { method: 'POST', headers: { origin: BASE_URL, 'content-type': 'application/json', cookie: builder.cookie }, body });
+      fetch(`${BASE_URL}/api/boards/${boardId}/proofs`, { method: 'POST', headers: { origin: BASE_URL, 'content-type': 'application/json', cookie: builder.cookie }, body });
     const young = MAIL_BUDGETS.proof.young.perUser.points;
     const first = proofFor(0);
     expect((await post(first.body)).status).toBe(201);
@@ -216,7 +216,7 @@ describe('no mail cannon: proofs and invitations per user and per shop per hour'
     const context = await browser.newContext();
     await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
     const panel = await context.newPage();
-    await panel.goto(`${BASE_URL}/boards/${designId}/proofs`);
+    await panel.goto(`${BASE_URL}/boards/${boardId}/proofs`);
     await panel.getByLabel('Client name').fill('Ines Calloway');
     await panel.getByLabel('Client e-mail').fill(uniqueEmail('client'));
     await panel.getByRole('button', { name: 'Send proof of the current revision' }).click();

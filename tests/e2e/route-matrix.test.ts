@@ -32,13 +32,13 @@ async function resolveIds(): Promise<MatrixIds> {
   const [shop] = await db().select({ id: shops.id }).from(shops).where(eq(shops.name, DEMO_SHOP_NAME));
   if (!shop) throw new Error('the demo shop is not seeded');
   const [builder] = await db().select({ id: users.id }).from(users).where(eq(users.email, DEMO_EMAILS.builder));
-  const designId = await ensureDesign(shop.id, builder!.id, 'Seven-string', 'seven-string-fan');
+  const boardId = await ensureDesign(shop.id, builder!.id, 'Seven-string', 'seven-string-fan');
   const [template] = await db().select({ id: templates.id }).from(templates).where(eq(templates.shopId, shop.id)).orderBy(asc(templates.id)).limit(1);
   // Proof links are stored hashed, so none can be read back: this run issues its own.
   const proofToken = newToken();
   await db().insert(proofs).values({
     shopId: shop.id,
-    designId,
+    boardId,
     revision: 1,
     tokenHash: sha256Hex(proofToken),
     clientName: 'Ines Calloway',
@@ -48,7 +48,7 @@ async function resolveIds(): Promise<MatrixIds> {
     createdBy: builder!.id,
   });
   const [wire] = await db().select({ id: fretWires.id }).from(fretWires).where(eq(fretWires.shopId, shop.id)).orderBy(asc(fretWires.id)).limit(1);
-  return { designId, templateId: template?.id ?? MISSING_ID, wireId: wire?.id ?? MISSING_ID, proofToken, demoBuilderId: builder!.id };
+  return { boardId, templateId: template?.id ?? MISSING_ID, wireId: wire?.id ?? MISSING_ID, proofToken, demoBuilderId: builder!.id };
 }
 
 /** A fresh session per request, since some routes (sign-out) end every session of the user. */

@@ -25,8 +25,8 @@ let rows: ShopRows;
 beforeAll(async () => {
   browser = await launchBrowser();
   builder = await signInAs('builder@wrenfield.example');
-  const designId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
-  rows = await shopRows(builder.shopId, builder.id, 'client@wrenfield.example', 'Screenshot proof', designId);
+  const boardId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+  rows = await shopRows(builder.shopId, builder.id, 'client@wrenfield.example', 'Screenshot proof', boardId);
   mkdirSync(OUT, { recursive: true });
 });
 afterAll(async () => {
@@ -53,7 +53,7 @@ describe('screenshots for the README', () => {
       const context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
       await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
       const page = await context.newPage();
-      await page.goto(`${BASE_URL}/layout?design=${rows.designId}`, { waitUntil: 'networkidle' });
+      await page.goto(`${BASE_URL}/layout?board=${rows.boardId}`, { waitUntil: 'networkidle' });
       await waitForDrawing(page);
       await shoot(page, `editor-${label}`, size);
 

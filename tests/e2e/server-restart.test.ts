@@ -39,7 +39,7 @@ async function signIn(url: string, email: string): Promise<string> {
 }
 
 async function save(url: string, cookie: string, id: number, version: number, marker: string): Promise<AcknowledgedSave> {
-  const response = await fetch(`${url}/api/designs/${id}`, {
+  const response = await fetch(`${url}/api/boards/${id}`, {
     method: 'PATCH',
     headers: { 'content-type': 'application/json', origin: url, cookie },
     body: saveBody(version, marker),
@@ -54,7 +54,7 @@ describe('the built server is stopped and started between writes', () => {
     server = await startBuiltServer();
     const { url, port } = server;
     const cookie = await signIn(url, builder.email);
-    const created = await fetch(`${url}/api/designs`, {
+    const created = await fetch(`${url}/api/boards`, {
       method: 'POST',
       headers: { 'content-type': 'application/json', origin: url, cookie },
       body: JSON.stringify({ design: markedDesign('Restart board') }),
@@ -75,7 +75,7 @@ describe('the built server is stopped and started between writes', () => {
 
     const account = await fetch(`${url}/account`, { headers: { cookie }, redirect: 'manual' });
     expect(account.status, 'the session from before the restart is still signed in').toBe(200);
-    const board = await fetch(`${url}/api/designs/${id}`, { headers: { cookie } });
+    const board = await fetch(`${url}/api/boards/${id}`, { headers: { cookie } });
     expect(board.status).toBe(200);
     expect(await board.json()).toMatchObject({ version, revision: acknowledged.at(-1)!.revision, design: { name: 'Restart board before 3' } });
     for (const n of [1, 2]) {

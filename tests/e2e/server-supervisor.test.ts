@@ -10,7 +10,7 @@ import { once } from 'node:events';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { acknowledgedSaveProblems, acknowledgement, markedDesign, saveBody, type AcknowledgedSave } from '../support/acknowledged-saves.ts';
 import { freePort } from '../support/free-port.ts';
-import { insertDesign } from '../support/designs.ts';
+import { insertBoard } from '../support/designs.ts';
 import { newShopUser, type TestUser } from '../support/sessions.ts';
 import { closeDb } from '../support/test-db.ts';
 
@@ -68,7 +68,7 @@ describe('the supervisor of `npm start` brings a killed web server back', () => 
     expect(firstPid).toBeGreaterThan(0);
 
     const boardIds = await Promise.all(
-      Array.from({ length: CONNECTIONS }, (_, i) => insertDesign(builder.shopId, builder.id, { ...markedDesign(`Supervised board ${i}`) })),
+      Array.from({ length: CONNECTIONS }, (_, i) => insertBoard(builder.shopId, builder.id, { ...markedDesign(`Supervised board ${i}`) })),
     );
     const acknowledged: AcknowledgedSave[] = [];
     let killed = false;
@@ -81,7 +81,7 @@ describe('the supervisor of `npm start` brings a killed web server back', () => 
       for (let n = 0; n < MAX_REQUESTS_PER_CONNECTION && afterRestart[connection]! < SAVES_AFTER_RESTART; n++) {
         const marker = `Supervised board ${connection} save ${n}`;
         try {
-          const response = await fetch(`${url}/api/designs/${id}`, {
+          const response = await fetch(`${url}/api/boards/${id}`, {
             method: 'PATCH',
             headers: { 'content-type': 'application/json', origin: url, cookie: builder.cookie },
             body: saveBody(version, marker),

@@ -6,7 +6,7 @@ import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createDesign } from '~/lib/db/designs.server.ts';
+import { createBoard } from '~/lib/boards/boards.server.ts';
 import { newToken } from '~/lib/auth/index.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
@@ -15,15 +15,15 @@ import { closeDb } from '../support/test-db.ts';
 
 let browser: Browser;
 let builder: TestUser;
-let designName: string;
+let boardName: string;
 
 beforeAll(async () => {
   browser = await launchBrowser();
   builder = await signInAs('builder@wrenfield.example');
   // A saved board on the builder's shop, saved through the designs module.
   const preset = DEMO_DESIGNS.find((d) => d.id === 'classical-650')!.design;
-  designName = `Classical for the shelf test ${newToken().slice(0, 6)}`;
-  await createDesign({ id: builder.id, shopId: builder.shopId }, { design: { ...preset, name: designName }, instrumentType: 'classical', clientName: '', note: '' });
+  boardName = `Classical for the shelf test ${newToken().slice(0, 6)}`;
+  await createBoard({ id: builder.id, shopId: builder.shopId }, { design: { ...preset, name: boardName }, instrumentType: 'classical', clientName: '', note: '' });
 });
 
 afterAll(async () => {
@@ -46,12 +46,12 @@ describe('Template shelf and Template check in Chromium', () => {
 
     await page.goto(`${BASE_URL}/templates`);
     await expect(page.getByRole('heading', { name: 'Template shelf', level: 1 }).count()).resolves.toBe(1);
-    await page.getByLabel('Design', { exact: true }).selectOption({ label: `${designName} (rev. 1)` });
+    await page.getByLabel('Design', { exact: true }).selectOption({ label: `${boardName} (rev. 1)` });
     await page.getByLabel("Jig key width (design's units)").fill('0.5');
     await page.getByLabel('Material').fill('6 mm aluminium');
     await page.getByRole('button', { name: 'Add template' }).click();
     await page.waitForURL(/\/templates\/\d+$/);
-    await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(designName);
+    await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(boardName);
 
     // The label form opens the PDF in a new tab; fetch the same URL with the page's session.
     await page.getByLabel('Label size').selectOption('62x29');
@@ -75,9 +75,9 @@ describe('Template shelf and Template check in Chromium', () => {
 
     await page.getByRole('button', { name: 'Save check' }).click();
     await page.getByText('Saved on the template.').waitFor();
-    await page.goto(`${BASE_URL}/templates?q=${encodeURIComponent(designName)}`);
-    await expect(page.getByLabel('Search').inputValue()).resolves.toBe(designName);
-    const row = page.getByRole('row').filter({ hasText: designName });
+    await page.goto(`${BASE_URL}/templates?q=${encodeURIComponent(boardName)}`);
+    await expect(page.getByLabel('Search').inputValue()).resolves.toBe(boardName);
+    const row = page.getByRole('row').filter({ hasText: boardName });
     await row.getByText('Fail').waitFor();
     await context.close();
   });

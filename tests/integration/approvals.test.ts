@@ -8,16 +8,16 @@ import { eq } from 'drizzle-orm';
 import DxfParser from 'dxf-parser';
 import { PDFDocument } from 'pdf-lib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { designs, shops } from '~/lib/db/schema.ts';
+import { boards, shops } from '~/lib/db/schema.ts';
 import { createProof, decideProof } from '~/lib/proofs/proofs.server.ts';
 import type { BoardDetail, BoardList, BoardRevision } from '~/lib/schemas/board.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
-import * as listRoute from '~/pages/api/designs/index.ts';
-import * as boardRoute from '~/pages/api/designs/[id]/index.ts';
-import * as exportRoute from '~/pages/api/designs/[id]/export.ts';
-import * as restoreRoute from '~/pages/api/designs/[id]/restore.ts';
-import * as revisionsRoute from '~/pages/api/designs/[id]/revisions.ts';
+import * as listRoute from '~/pages/api/boards/index.ts';
+import * as boardRoute from '~/pages/api/boards/[id]/index.ts';
+import * as exportRoute from '~/pages/api/boards/[id]/export.ts';
+import * as restoreRoute from '~/pages/api/boards/[id]/restore.ts';
+import * as revisionsRoute from '~/pages/api/boards/[id]/revisions.ts';
 import { dxfComments } from '../support/dxf-comments.ts';
 import { pageText } from '../support/pdf-readback.ts';
 import { callRoute } from '../support/route-call.ts';
@@ -41,30 +41,30 @@ const params = (id: number) => ({ id: String(id) });
 let names = 0;
 
 async function newBoard(): Promise<BoardDetail> {
-  const response = await callRoute(listRoute.POST, { method: 'POST', path: '/api/designs', user: builder, body: { design: { ...fan(), name: `Approval test ${Date.now()} ${++names}` } } });
+  const response = await callRoute(listRoute.POST, { method: 'POST', path: '/api/boards', user: builder, body: { design: { ...fan(), name: `Approval test ${Date.now()} ${++names}` } } });
   expect(response.status).toBe(201);
   return (await response.json()) as BoardDetail;
 }
 
 function patch(user: TestUser, id: number, body: Record<string, unknown>): Promise<Response> {
-  return callRoute(boardRoute.PATCH, { method: 'PATCH', path: `/api/designs/${id}`, user, params: params(id), body });
+  return callRoute(boardRoute.PATCH, { method: 'PATCH', path: `/api/boards/${id}`, user, params: params(id), body });
 }
 
 async function read(id: number): Promise<BoardDetail> {
-  return (await (await callRoute(boardRoute.GET, { path: `/api/designs/${id}`, user: builder, params: params(id) })).json()) as BoardDetail;
+  return (await (await callRoute(boardRoute.GET, { path: `/api/boards/${id}`, user: builder, params: params(id) })).json()) as BoardDetail;
 }
 
 function restore(id: number, body: Record<string, unknown>): Promise<Response> {
-  return callRoute(restoreRoute.POST, { method: 'POST', path: `/api/designs/${id}/restore`, user: builder, params: params(id), body });
+  return callRoute(restoreRoute.POST, { method: 'POST', path: `/api/boards/${id}/restore`, user: builder, params: params(id), body });
 }
 
 async function revisions(id: number): Promise<BoardRevision[]> {
-  const response = await callRoute(revisionsRoute.GET, { path: `/api/designs/${id}/revisions`, user: builder, params: params(id) });
+  const response = await callRoute(revisionsRoute.GET, { path: `/api/boards/${id}/revisions`, user: builder, params: params(id) });
   return ((await response.json()) as { items: BoardRevision[] }).items;
 }
 
 function exported(id: number, query: string): Promise<Response> {
-  return callRoute(exportRoute.GET, { path: `/api/designs/${id}/export?${query}`, user: builder, params: params(id) });
+  return callRoute(exportRoute.GET, { path: `/api/boards/${id}/export?${query}`, user: builder, params: params(id) });
 }
 
 /** Sends a proof of the board as it is and records the client's answer. */
@@ -77,7 +77,7 @@ async function answer(id: number, decision: 'approved' | 'changes_requested'): P
 }
 
 async function statusOf(id: number): Promise<string> {
-  const [row] = await db().select({ status: designs.status }).from(designs).where(eq(designs.id, id));
+  const [row] = await db().select({ status: boards.status }).from(boards).where(eq(boards.id, id));
   return row!.status;
 }
 
@@ -106,9 +106,9 @@ describe('an approval belongs to one layout', () => {
 
     // Further edits need no confirmation: the board already differs from the approved layout.
     expect((await patch(builder, board.id, { version: changed.version, design: { ...edit, frets: 22, markers: [] } })).status).toBe(200);
-    const list = await callRoute(listRoute.GET, { path: `/api/designs?q=${encodeURIComponent(approved.name)}&status=changed_since_approval`, user: builder });
+    const list = await callRoute(listRoute.GET, { path: `/api/boards?q=${encodeURIComponent(approved.name)}&status=changed_since_approval`, user: builder });
     expect(((await list.json()) as BoardList).items.map((b) => [b.id, b.status])).toEqual([[board.id, 'changed_since_approval']]);
-    const approvedList = await callRoute(listRoute.GET, { path: `/api/designs?q=${encodeURIComponent(approved.name)}&status=approved`, user: builder });
+    const approvedList = await callRoute(listRoute.GET, { path: `/api/boards?q=${encodeURIComponent(approved.name)}&status=approved`, user: builder });
     expect(((await approvedList.json()) as BoardList).items).toEqual([]);
   });
 
@@ -179,11 +179,11 @@ describe('revisions are checkpoints', () => {
   it('"save revision" keeps the working copy once, with its note; saving again makes nothing new', async () => {
     const board = await newBoard();
     const edited = (await (await patch(builder, board.id, { version: 1, design: { ...(board.design as Design), frets: 22, markers: [] } })).json()) as BoardDetail;
-    const save = (note: string) => callRoute(revisionsRoute.POST, { method: 'POST', path: `/api/designs/${board.id}/revisions`, user: builder, params: params(board.id), body: { version: edited.version, note } });
+    const save = (note: string) => callRoute(revisionsRoute.POST, { method: 'POST', path: `/api/boards/${board.id}/revisions`, user: builder, params: params(board.id), body: { version: edited.version, note } });
     expect(await (await save('22 frets for the client')).json()).toMatchObject({ revision: 2, workingRevision: 2, version: edited.version });
     expect(await (await save('again')).json()).toMatchObject({ revision: 2 });
     expect((await revisions(board.id)).map((r) => [r.revision, r.note, r.reason])).toEqual([[2, '22 frets for the client', 'saved'], [1, '', 'created']]);
-    const bad = await callRoute(revisionsRoute.POST, { method: 'POST', path: `/api/designs/${board.id}/revisions`, user: builder, params: params(board.id), body: { note: 'x'.repeat(501) } });
+    const bad = await callRoute(revisionsRoute.POST, { method: 'POST', path: `/api/boards/${board.id}/revisions`, user: builder, params: params(board.id), body: { note: 'x'.repeat(501) } });
     expect(bad.status).toBe(400);
     expect(await bad.json()).toMatchObject({ field: 'note' });
   });

@@ -82,7 +82,7 @@ describe('npm run backup, then npm run restore into an empty data directory', ()
     mariadb('start');
     restored = await mysql.createConnection({ host: '127.0.0.1', port: Number(restoredEnv.DB_PORT), user, password, database, timezone: 'Z' });
     const tables = await tableNames(getPool());
-    expect(tables).toEqual(expect.arrayContaining(['users', 'shops', 'sessions', 'designs']));
+    expect(tables).toEqual(expect.arrayContaining(['users', 'shops', 'sessions', 'boards']));
     expect(await tableNames(restored)).toEqual(tables);
     const nonEmpty: string[] = [];
     for (const table of tables) {

@@ -1,19 +1,19 @@
 import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { designRevisions, designs } from '~/lib/db/schema.ts';
+import { boardRevisions, boards } from '~/lib/db/schema.ts';
 import { FRET_TABLE_HEADER } from '~/lib/export/csv.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail, BoardList, BoardRevision } from '~/lib/schemas/board.ts';
 import type { Design } from '~/lib/schemas/design.ts';
-import * as listRoute from '~/pages/api/designs/index.ts';
-import * as boardRoute from '~/pages/api/designs/[id]/index.ts';
-import * as archiveRoute from '~/pages/api/designs/[id]/archive.ts';
-import * as duplicateRoute from '~/pages/api/designs/[id]/duplicate.ts';
-import * as exportRoute from '~/pages/api/designs/[id]/export.ts';
-import * as restoreRoute from '~/pages/api/designs/[id]/restore.ts';
-import * as revisionsRoute from '~/pages/api/designs/[id]/revisions.ts';
-import * as thumbnailRoute from '~/pages/api/designs/[id]/thumbnail.svg.ts';
-import * as importRoute from '~/pages/api/designs/import.ts';
+import * as listRoute from '~/pages/api/boards/index.ts';
+import * as boardRoute from '~/pages/api/boards/[id]/index.ts';
+import * as archiveRoute from '~/pages/api/boards/[id]/archive.ts';
+import * as duplicateRoute from '~/pages/api/boards/[id]/duplicate.ts';
+import * as exportRoute from '~/pages/api/boards/[id]/export.ts';
+import * as restoreRoute from '~/pages/api/boards/[id]/restore.ts';
+import * as revisionsRoute from '~/pages/api/boards/[id]/revisions.ts';
+import * as thumbnailRoute from '~/pages/api/boards/[id]/thumbnail.svg.ts';
+import * as importRoute from '~/pages/api/boards/import.ts';
 import { callRoute } from '../support/route-call.ts';
 import { addShopUser, newShopUser, type TestUser } from '../support/sessions.ts';
 import { closeDb, db } from '../support/test-db.ts';
@@ -40,36 +40,36 @@ beforeAll(async () => {
 afterAll(() => closeDb());
 
 async function create(user: TestUser, body: Record<string, unknown>): Promise<BoardDetail> {
-  const response = await callRoute(listRoute.POST, { method: 'POST', path: '/api/designs', user, body });
+  const response = await callRoute(listRoute.POST, { method: 'POST', path: '/api/boards', user, body });
   expect(response.status).toBe(201);
   return (await response.json()) as BoardDetail;
 }
 
 async function patch(user: TestUser, id: number, body: Record<string, unknown>): Promise<Response> {
-  return callRoute(boardRoute.PATCH, { method: 'PATCH', path: `/api/designs/${id}`, user, params: { id: String(id) }, body });
+  return callRoute(boardRoute.PATCH, { method: 'PATCH', path: `/api/boards/${id}`, user, params: { id: String(id) }, body });
 }
 
 async function revisions(user: TestUser, id: number): Promise<BoardRevision[]> {
-  const response = await callRoute(revisionsRoute.GET, { path: `/api/designs/${id}/revisions`, user, params: { id: String(id) } });
+  const response = await callRoute(revisionsRoute.GET, { path: `/api/boards/${id}/revisions`, user, params: { id: String(id) } });
   expect(response.status).toBe(200);
   return ((await response.json()) as { items: BoardRevision[] }).items;
 }
 
 async function rowCounts(shopId: number): Promise<{ boards: number; revisions: number }> {
-  const [boards] = await db().select({ n: count() }).from(designs).where(eq(designs.shopId, shopId));
+  const [boardCount] = await db().select({ n: count() }).from(boards).where(eq(boards.shopId, shopId));
   const [revs] = await db()
     .select({ n: count() })
-    .from(designRevisions)
-    .innerJoin(designs, eq(designs.id, designRevisions.designId))
-    .where(eq(designs.shopId, shopId));
-  return { boards: boards!.n, revisions: revs!.n };
+    .from(boardRevisions)
+    .innerJoin(boards, eq(boards.id, boardRevisions.boardId))
+    .where(eq(boards.shopId, shopId));
+  return { boards: boardCount!.n, revisions: revs!.n };
 }
 
-describe('POST /api/designs and GET /api/designs/{id}', () => {
+describe('POST /api/boards and GET /api/boards/{id}', () => {
   it('saves a new board at revision 1 and reads it back with its design', async () => {
     const created = await create(builder, { design: fan(), instrumentType: 'guitar', clientName: 'Ines Calloway' });
     expect(created).toMatchObject({ name: fan().name, units: 'mm', status: 'draft', currentRevision: 1, revision: 1, version: 1, trebleScaleMm: 648, bassScaleMm: 686 });
-    const read = await callRoute(boardRoute.GET, { path: `/api/designs/${created.id}`, user: owner, params: { id: String(created.id) } });
+    const read = await callRoute(boardRoute.GET, { path: `/api/boards/${created.id}`, user: owner, params: { id: String(created.id) } });
     expect(read.status).toBe(200);
     expect(((await read.json()) as BoardDetail).design).toEqual(fan());
   });
@@ -82,14 +82,14 @@ describe('POST /api/designs and GET /api/designs/{id}', () => {
   it('rejects an invalid design with 400 naming the field, and writes nothing', async () => {
     const before = await rowCounts(builder.shopId);
     const bad = { ...fan(), scale: { treble: -1, bass: 686 } };
-    const response = await callRoute(listRoute.POST, { method: 'POST', path: '/api/designs', user: builder, body: { design: bad } });
+    const response = await callRoute(listRoute.POST, { method: 'POST', path: '/api/boards', user: builder, body: { design: bad } });
     expect(response.status).toBe(400);
     expect(await response.json()).toMatchObject({ field: 'design.scale.treble' });
     expect(await rowCounts(builder.shopId)).toEqual(before);
   });
 
   it('rejects an unknown instrument type with 400 naming the field', async () => {
-    const response = await callRoute(listRoute.POST, { method: 'POST', path: '/api/designs', user: builder, body: { design: fan(), instrumentType: 'harp' } });
+    const response = await callRoute(listRoute.POST, { method: 'POST', path: '/api/boards', user: builder, body: { design: fan(), instrumentType: 'harp' } });
     expect(response.status).toBe(400);
     expect(await response.json()).toMatchObject({ field: 'instrumentType' });
   });
@@ -97,14 +97,14 @@ describe('POST /api/designs and GET /api/designs/{id}', () => {
   it('reads an older revision with ?revision=N and 404s a revision that does not exist', async () => {
     const board = await create(builder, { design: fan() });
     await patch(builder, board.id, { version: 1, design: { ...fan(), frets: 22, markers: [] } });
-    const old = await callRoute(boardRoute.GET, { path: `/api/designs/${board.id}?revision=1`, user: builder, params: { id: String(board.id) } });
+    const old = await callRoute(boardRoute.GET, { path: `/api/boards/${board.id}?revision=1`, user: builder, params: { id: String(board.id) } });
     expect(((await old.json()) as BoardDetail).design).toMatchObject({ frets: 24 });
-    const missing = await callRoute(boardRoute.GET, { path: `/api/designs/${board.id}?revision=9`, user: builder, params: { id: String(board.id) } });
+    const missing = await callRoute(boardRoute.GET, { path: `/api/boards/${board.id}?revision=9`, user: builder, params: { id: String(board.id) } });
     expect(missing.status).toBe(404);
   });
 });
 
-describe('PATCH /api/designs/{id}', () => {
+describe('PATCH /api/boards/{id}', () => {
   it('autosave changes the working copy only; saveRevision keeps it as a new revision and the old one unchanged', async () => {
     const board = await create(builder, { design: fan() });
     const changed = { ...fan(), perpendicularFret: 7 };
@@ -157,7 +157,7 @@ describe('PATCH /api/designs/{id}', () => {
     expect(response.status).toBe(400);
     expect(await response.json()).toMatchObject({ field: 'design.frets' });
     expect(await revisions(builder, board.id)).toHaveLength(1);
-    const read = await callRoute(boardRoute.GET, { path: `/api/designs/${board.id}`, user: builder, params: { id: String(board.id) } });
+    const read = await callRoute(boardRoute.GET, { path: `/api/boards/${board.id}`, user: builder, params: { id: String(board.id) } });
     expect(await read.json()).toMatchObject({ version: 1, currentRevision: 1 });
   });
 
@@ -172,7 +172,7 @@ describe('PATCH /api/designs/{id}', () => {
 describe('duplicate, restore, archive', () => {
   it('duplicates the current revision into a new board named "Copy of …"', async () => {
     const board = await create(builder, { design: fan(), clientName: 'Ines Calloway' });
-    const response = await callRoute(duplicateRoute.POST, { method: 'POST', path: `/api/designs/${board.id}/duplicate`, user: builder, params: { id: String(board.id) } });
+    const response = await callRoute(duplicateRoute.POST, { method: 'POST', path: `/api/boards/${board.id}/duplicate`, user: builder, params: { id: String(board.id) } });
     expect(response.status).toBe(201);
     const copy = (await response.json()) as BoardDetail;
     expect(copy.id).not.toBe(board.id);
@@ -184,7 +184,7 @@ describe('duplicate, restore, archive', () => {
     const board = await create(builder, { design: fan() });
     await patch(builder, board.id, { version: 1, design: { ...fan(), perpendicularFret: 5 }, saveRevision: true });
     const call = (body: unknown) =>
-      callRoute(restoreRoute.POST, { method: 'POST', path: `/api/designs/${board.id}/restore`, user: builder, params: { id: String(board.id) }, body });
+      callRoute(restoreRoute.POST, { method: 'POST', path: `/api/boards/${board.id}/restore`, user: builder, params: { id: String(board.id) }, body });
     expect((await call({ revision: 1, version: 1 })).status).toBe(409);
     expect((await call({ revision: 7, version: 2 })).status).toBe(404);
     const restored = await call({ revision: 1, version: 2 });
@@ -198,9 +198,9 @@ describe('duplicate, restore, archive', () => {
     const name = `Archive me ${Date.now()}`;
     const board = await create(builder, { design: { ...fan(), name } });
     const archive = (archived: boolean) =>
-      callRoute(archiveRoute.POST, { method: 'POST', path: `/api/designs/${board.id}/archive`, user: builder, params: { id: String(board.id) }, body: { archived } });
+      callRoute(archiveRoute.POST, { method: 'POST', path: `/api/boards/${board.id}/archive`, user: builder, params: { id: String(board.id) }, body: { archived } });
     const list = async (status: string) => {
-      const response = await callRoute(listRoute.GET, { path: `/api/designs?q=${encodeURIComponent(name)}&status=${status}`, user: builder });
+      const response = await callRoute(listRoute.GET, { path: `/api/boards?q=${encodeURIComponent(name)}&status=${status}`, user: builder });
       return ((await response.json()) as BoardList).items.map((i) => i.id);
     };
     expect(await (await archive(true)).json()).toMatchObject({ status: 'archived' });
@@ -212,22 +212,22 @@ describe('duplicate, restore, archive', () => {
   });
 });
 
-describe('GET /api/designs (search, filters, sort, pages)', () => {
+describe('GET /api/boards (search, filters, sort, pages)', () => {
   let shopBuilder: TestUser;
   beforeAll(async () => {
     shopBuilder = await newShopUser('builder');
-    const boards: [string, string, string][] = [
+    const rows: [string, string, string][] = [
       ['seven-string-fan', 'guitar', 'Ines Calloway'],
       ['short-scale-bass', 'bass', 'Rafe Dunmore'],
       ['classical-650', 'classical', ''],
       ['mandolin', 'mandolin', 'Ines Calloway'],
       ['tenor-ukulele', 'ukulele', 'Rafe Dunmore'],
     ];
-    for (const [id, instrumentType, clientName] of boards) await create(shopBuilder, { design: demo(id), instrumentType, clientName });
+    for (const [id, instrumentType, clientName] of rows) await create(shopBuilder, { design: demo(id), instrumentType, clientName });
   });
 
   async function list(query: string): Promise<BoardList> {
-    const response = await callRoute(listRoute.GET, { path: `/api/designs?${query}`, user: shopBuilder });
+    const response = await callRoute(listRoute.GET, { path: `/api/boards?${query}`, user: shopBuilder });
     expect(response.status).toBe(200);
     return (await response.json()) as BoardList;
   }
@@ -263,7 +263,7 @@ describe('GET /api/designs (search, filters, sort, pages)', () => {
 
   it('refuses pageSize over 100 and an unknown sort with 400 naming the field', async () => {
     for (const [query, field] of [['pageSize=101', 'pageSize'], ['sort=colour', 'sort'], ['status=gone', 'status']]) {
-      const response = await callRoute(listRoute.GET, { path: `/api/designs?${query}`, user: shopBuilder });
+      const response = await callRoute(listRoute.GET, { path: `/api/boards?${query}`, user: shopBuilder });
       expect(response.status).toBe(400);
       expect(await response.json()).toMatchObject({ field });
     }
@@ -271,7 +271,7 @@ describe('GET /api/designs (search, filters, sort, pages)', () => {
 
   it('filters by status', async () => {
     const [bass] = (await list('instrument=bass')).items;
-    await db().update(designs).set({ status: 'approved' }).where(eq(designs.id, bass!.id));
+    await db().update(boards).set({ status: 'approved' }).where(eq(boards.id, bass!.id));
     expect((await list('status=approved')).items.map((i) => i.id)).toEqual([bass!.id]);
     expect((await list('status=draft')).total).toBe(4);
   });
@@ -280,16 +280,16 @@ describe('GET /api/designs (search, filters, sort, pages)', () => {
 describe('import and export', () => {
   it('exports the board file as JSON and imports it as a new board (never overwriting)', async () => {
     const board = await create(builder, { design: fan(), clientName: 'Ines Calloway', instrumentType: 'guitar' });
-    const exported = await callRoute(exportRoute.GET, { path: `/api/designs/${board.id}/export?format=json`, user: builder, params: { id: String(board.id) } });
+    const exported = await callRoute(exportRoute.GET, { path: `/api/boards/${board.id}/export?format=json`, user: builder, params: { id: String(board.id) } });
     expect(exported.status).toBe(200);
     expect(exported.headers.get('content-disposition')).toMatch(/attachment; filename=".+-r1-board\.json"/);
     const text = await exported.text();
-    const imported = await callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: builder, body: text, headers: { 'content-type': 'application/json' } });
+    const imported = await callRoute(importRoute.POST, { method: 'POST', path: '/api/boards/import', user: builder, body: text, headers: { 'content-type': 'application/json' } });
     expect(imported.status).toBe(201);
     const copy = (await imported.json()) as BoardDetail;
     expect(copy.id).not.toBe(board.id);
     // The shop has a board of that name already: the import takes the next free "(n)".
-    const taken = await callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: builder, body: text, headers: { 'content-type': 'application/json' } });
+    const taken = await callRoute(importRoute.POST, { method: 'POST', path: '/api/boards/import', user: builder, body: text, headers: { 'content-type': 'application/json' } });
     const third = (await taken.json()) as BoardDetail;
     const numberOf = (n: string) => Number(/ \((\d+)\)$/.exec(n)?.[1]);
     expect(copy.name.startsWith(`${fan().name} (`)).toBe(true);
@@ -304,20 +304,20 @@ describe('import and export', () => {
     await create(builder, { design: { ...fan(), name } });
     await create(builder, { design: { ...fan(), name: `50%Xoff ${name.slice(8)} (2)` } });
     const send = () =>
-      callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: builder, body: JSON.stringify({ ...fan(), name }), headers: { 'content-type': 'application/json' } });
+      callRoute(importRoute.POST, { method: 'POST', path: '/api/boards/import', user: builder, body: JSON.stringify({ ...fan(), name }), headers: { 'content-type': 'application/json' } });
     const first = (await (await send()).json()) as BoardDetail;
     const second = (await (await send()).json()) as BoardDetail;
     expect([first.name, second.name]).toEqual([`${name} (2)`, `${name} (3)`]);
     expect((first.design as { name: string }).name).toBe(first.name);
     // Another shop's names do not count.
-    const other = (await (await callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: otherOwner, body: JSON.stringify({ ...fan(), name }), headers: { 'content-type': 'application/json' } })).json()) as BoardDetail;
+    const other = (await (await callRoute(importRoute.POST, { method: 'POST', path: '/api/boards/import', user: otherOwner, body: JSON.stringify({ ...fan(), name }), headers: { 'content-type': 'application/json' } })).json()) as BoardDetail;
     expect(other.name).toBe(name);
   });
 
   it('imports a bare design uploaded as a multipart file', async () => {
     const form = new FormData();
     form.set('file', new Blob([JSON.stringify(demo('tenor-ukulele'))], { type: 'application/json' }), 'uke.json');
-    const response = await callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: builder, body: form });
+    const response = await callRoute(importRoute.POST, { method: 'POST', path: '/api/boards/import', user: builder, body: form });
     expect(response.status).toBe(201);
     expect(await response.json()).toMatchObject({ units: 'in', design: demo('tenor-ukulele') });
   });
@@ -325,7 +325,7 @@ describe('import and export', () => {
   it('refuses a bad file with a clear 4xx and writes nothing', async () => {
     const before = await rowCounts(builder.shopId);
     const send = (body: string) =>
-      callRoute(importRoute.POST, { method: 'POST', path: '/api/designs/import', user: builder, body, headers: { 'content-type': 'application/json' } });
+      callRoute(importRoute.POST, { method: 'POST', path: '/api/boards/import', user: builder, body, headers: { 'content-type': 'application/json' } });
     const notJson = await send('{ not json');
     expect(notJson.status).toBe(400);
     expect(await notJson.json()).toMatchObject({ field: 'file' });
@@ -342,7 +342,7 @@ describe('import and export', () => {
     const board = await create(builder, { design: fan() });
     await patch(builder, board.id, { version: 1, design: { ...fan(), frets: 20, markers: [] } });
     const csv = async (query: string) => {
-      const response = await callRoute(exportRoute.GET, { path: `/api/designs/${board.id}/export?${query}`, user: builder, params: { id: String(board.id) } });
+      const response = await callRoute(exportRoute.GET, { path: `/api/boards/${board.id}/export?${query}`, user: builder, params: { id: String(board.id) } });
       expect(response.headers.get('content-type')).toMatch(/^text\/csv/);
       return (await response.text()).trim().split('\n');
     };
@@ -357,7 +357,7 @@ describe('import and export', () => {
   it('exports the paper template (PDF) and slot paths (DXF, SVG) of a saved revision through the export engine', async () => {
     const board = await create(builder, { design: fan() });
     const download = async (query: string) => {
-      const response = await callRoute(exportRoute.GET, { path: `/api/designs/${board.id}/export?${query}`, user: builder, params: { id: String(board.id) } });
+      const response = await callRoute(exportRoute.GET, { path: `/api/boards/${board.id}/export?${query}`, user: builder, params: { id: String(board.id) } });
       expect(response.status).toBe(200);
       return { type: response.headers.get('content-type'), disposition: response.headers.get('content-disposition'), bytes: new Uint8Array(await response.arrayBuffer()) };
     };
@@ -375,17 +375,17 @@ describe('import and export', () => {
   it('refuses an unknown export format or option with 400 naming it', async () => {
     const board = await create(builder, { design: fan() });
     for (const [query, field] of [['format=doc', 'format'], ['format=pdf&paper=napkin', 'paper'], ['format=pdf&revision=zero', 'revision']]) {
-      const response = await callRoute(exportRoute.GET, { path: `/api/designs/${board.id}/export?${query}`, user: builder, params: { id: String(board.id) } });
+      const response = await callRoute(exportRoute.GET, { path: `/api/boards/${board.id}/export?${query}`, user: builder, params: { id: String(board.id) } });
       expect(response.status).toBe(400);
       expect(await response.json()).toMatchObject({ field });
     }
   });
 });
 
-describe('GET /api/designs/{id}/thumbnail.svg', () => {
+describe('GET /api/boards/{id}/thumbnail.svg', () => {
   it('draws the board outline and one line per fret', async () => {
     const board = await create(builder, { design: fan() });
-    const response = await callRoute(thumbnailRoute.GET, { path: `/api/designs/${board.id}/thumbnail.svg?revision=1`, user: builder, params: { id: String(board.id) } });
+    const response = await callRoute(thumbnailRoute.GET, { path: `/api/boards/${board.id}/thumbnail.svg?revision=1`, user: builder, params: { id: String(board.id) } });
     expect(response.headers.get('content-type')).toBe('image/svg+xml');
     const svg = await response.text();
     expect(svg.startsWith('<svg')).toBe(true);
@@ -405,17 +405,17 @@ describe('roles and shop isolation', () => {
     const id = String(board.id);
     const params = { id };
     return [
-      ['GET list', listRoute.GET, { path: '/api/designs' }],
-      ['POST create', listRoute.POST, { method: 'POST', path: '/api/designs', body: { design: fan() } }],
-      ['POST import', importRoute.POST, { method: 'POST', path: '/api/designs/import', body: fan() }],
-      ['GET read', boardRoute.GET, { path: `/api/designs/${id}`, params }],
-      ['PATCH update', boardRoute.PATCH, { method: 'PATCH', path: `/api/designs/${id}`, params, body: { version: 1, design: { ...fan(), frets: 22, markers: [] } } }],
-      ['POST duplicate', duplicateRoute.POST, { method: 'POST', path: `/api/designs/${id}/duplicate`, params }],
-      ['GET revisions', revisionsRoute.GET, { path: `/api/designs/${id}/revisions`, params }],
-      ['POST restore', restoreRoute.POST, { method: 'POST', path: `/api/designs/${id}/restore`, params, body: { revision: 1, version: 1 } }],
-      ['POST archive', archiveRoute.POST, { method: 'POST', path: `/api/designs/${id}/archive`, params, body: { archived: true } }],
-      ['GET export', exportRoute.GET, { path: `/api/designs/${id}/export?format=json`, params }],
-      ['GET thumbnail', thumbnailRoute.GET, { path: `/api/designs/${id}/thumbnail.svg`, params }],
+      ['GET list', listRoute.GET, { path: '/api/boards' }],
+      ['POST create', listRoute.POST, { method: 'POST', path: '/api/boards', body: { design: fan() } }],
+      ['POST import', importRoute.POST, { method: 'POST', path: '/api/boards/import', body: fan() }],
+      ['GET read', boardRoute.GET, { path: `/api/boards/${id}`, params }],
+      ['PATCH update', boardRoute.PATCH, { method: 'PATCH', path: `/api/boards/${id}`, params, body: { version: 1, design: { ...fan(), frets: 22, markers: [] } } }],
+      ['POST duplicate', duplicateRoute.POST, { method: 'POST', path: `/api/boards/${id}/duplicate`, params }],
+      ['GET revisions', revisionsRoute.GET, { path: `/api/boards/${id}/revisions`, params }],
+      ['POST restore', restoreRoute.POST, { method: 'POST', path: `/api/boards/${id}/restore`, params, body: { revision: 1, version: 1 } }],
+      ['POST archive', archiveRoute.POST, { method: 'POST', path: `/api/boards/${id}/archive`, params, body: { archived: true } }],
+      ['GET export', exportRoute.GET, { path: `/api/boards/${id}/export?format=json`, params }],
+      ['GET thumbnail', thumbnailRoute.GET, { path: `/api/boards/${id}/thumbnail.svg`, params }],
     ] as const;
   };
 
@@ -425,12 +425,12 @@ describe('roles and shop isolation', () => {
       const response = await callRoute(route, { ...call, user: otherOwner });
       expect({ label, status: response.status }).toEqual({ label, status: 404 });
     }
-    const read = await callRoute(boardRoute.GET, { path: `/api/designs/${board.id}`, user: builder, params: { id: String(board.id) } });
+    const read = await callRoute(boardRoute.GET, { path: `/api/boards/${board.id}`, user: builder, params: { id: String(board.id) } });
     expect(await read.json()).toMatchObject({ version: 1, currentRevision: 1, status: 'draft' });
   });
 
   it("never lists another shop's boards", async () => {
-    const response = await callRoute(listRoute.GET, { path: `/api/designs?q=${encodeURIComponent(fan().name)}&pageSize=100`, user: otherOwner });
+    const response = await callRoute(listRoute.GET, { path: `/api/boards?q=${encodeURIComponent(fan().name)}&pageSize=100`, user: otherOwner });
     expect(((await response.json()) as BoardList).total).toBe(0);
   });
 
@@ -443,7 +443,7 @@ describe('roles and shop isolation', () => {
   });
 
   it('answers 404 to a malformed id', async () => {
-    const response = await callRoute(boardRoute.GET, { path: '/api/designs/abc', user: builder, params: { id: 'abc' } });
+    const response = await callRoute(boardRoute.GET, { path: '/api/boards/abc', user: builder, params: { id: 'abc' } });
     expect(response.status).toBe(404);
   });
 });

@@ -7,8 +7,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { exportPool } from '~/lib/export/worker/export-pool.server.ts';
 import { DESIGN_LIMITS } from '~/lib/schemas/design.ts';
-import * as boardsListRoute from '~/pages/api/designs/index.ts';
-import * as savedExportRoute from '~/pages/api/designs/[id]/export.ts';
+import * as boardsListRoute from '~/pages/api/boards/index.ts';
+import * as savedExportRoute from '~/pages/api/boards/[id]/export.ts';
 import * as exportRoute from '~/pages/api/export.ts';
 import * as healthRoute from '~/pages/api/health.ts';
 import { designInput } from '../support/design-builders.ts';
@@ -47,12 +47,12 @@ describe('export caps on the server', () => {
     expect(exportPool().stats()).toEqual(before);
   });
 
-  it('refuses a saved board the same way (GET /api/designs/{id}/export)', async () => {
-    const created = await callRoute(boardsListRoute.POST, { method: 'POST', path: '/api/designs', user: builder, body: { design: largest(DESIGN_LIMITS.mm.length) } });
+  it('refuses a saved board the same way (GET /api/boards/{id}/export)', async () => {
+    const created = await callRoute(boardsListRoute.POST, { method: 'POST', path: '/api/boards', user: builder, body: { design: largest(DESIGN_LIMITS.mm.length) } });
     expect(created.status).toBe(201);
     const { id } = (await created.json()) as { id: number };
     const before = exportPool().stats();
-    const response = await callRoute(savedExportRoute.GET, { path: `/api/designs/${id}/export?format=pdf&paper=a4&overlap=50`, user: builder, params: { id: String(id) } });
+    const response = await callRoute(savedExportRoute.GET, { path: `/api/boards/${id}/export?format=pdf&paper=a4&overlap=50`, user: builder, params: { id: String(id) } });
     expect(response.status).toBe(422);
     expect(await response.json()).toMatchObject({ field: 'paper' });
     expect(exportPool().stats()).toEqual(before);
@@ -75,7 +75,7 @@ describe('the server keeps answering during the heaviest allowed export', () => 
     expect(pool.stats().running).toBe(1);
 
     const health = await callRoute(healthRoute.GET, { path: '/api/health' });
-    const list = await callRoute(boardsListRoute.GET, { path: '/api/designs', user: builder });
+    const list = await callRoute(boardsListRoute.GET, { path: '/api/boards', user: builder });
     // Both answered while the worker was still building the file.
     expect(pool.stats().running).toBe(1);
     expect(finished).toBe(false);

@@ -5,16 +5,16 @@
  */
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { designRevisions, designs, fretWires, shops } from '~/lib/db/schema.ts';
+import { boardRevisions, boards, fretWires, shops } from '~/lib/db/schema.ts';
 import { DEMO_SHOP_NAME, seedDemoShop } from '~/lib/db/seed/demo-shop.server.ts';
 import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server.ts';
 import type { FretWire } from '~/lib/schemas/fret-wire.ts';
 import * as collection from '~/pages/api/fret-wire/index.ts';
 import * as one from '~/pages/api/fret-wire/[id]/index.ts';
-import * as boardExport from '~/pages/api/designs/[id]/export.ts';
+import * as boardExport from '~/pages/api/boards/[id]/export.ts';
 import { callRoute } from '../support/route-call.ts';
 import { addShopUser, newShopUser, type TestUser } from '../support/sessions.ts';
-import { fixtureDesign, insertDesign } from '../support/designs.ts';
+import { fixtureDesign, insertBoard } from '../support/designs.ts';
 import { closeDb, db } from '../support/test-db.ts';
 
 afterAll(() => closeDb());
@@ -97,16 +97,16 @@ describe('the Fret wire list', () => {
 
   it("a saved board's cut list counts stock lengths of the wire it names", async () => {
     const saved = (await (await create(owner, { ...wire, name: 'Cut list wire' })).json()) as FretWire;
-    const id = await insertDesign(owner.shopId, owner.id, { ...fixtureDesign('seven-string-fan'), wire: { id: saved.id } });
-    const response = await callRoute(boardExport.GET, { path: `/api/designs/${id}/export?format=cutlist`, params: { id: String(id) }, user: builder });
+    const id = await insertBoard(owner.shopId, owner.id, { ...fixtureDesign('seven-string-fan'), wire: { id: saved.id } });
+    const response = await callRoute(boardExport.GET, { path: `/api/boards/${id}/export?format=cutlist`, params: { id: String(id) }, user: builder });
     expect(response.status).toBe(200);
     const text = await response.text();
     expect(text).toMatch(/^# stock pieces of 610 mm: \d+ /m);
     // Another shop's board naming this wire gets no stock count from it.
-    const foreign = await insertDesign(other.shopId, other.id, { ...fixtureDesign('seven-string-fan'), wire: { id: saved.id } });
-    const theirs = await callRoute(boardExport.GET, { path: `/api/designs/${foreign}/export?format=cutlist`, params: { id: String(foreign) }, user: other });
+    const foreign = await insertBoard(other.shopId, other.id, { ...fixtureDesign('seven-string-fan'), wire: { id: saved.id } });
+    const theirs = await callRoute(boardExport.GET, { path: `/api/boards/${foreign}/export?format=cutlist`, params: { id: String(foreign) }, user: other });
     expect(await theirs.text()).toMatch(/^# stock pieces: no stock length/m);
-    await db().delete(designRevisions).where(eq(designRevisions.designId, foreign));
-    await db().delete(designs).where(eq(designs.id, foreign));
+    await db().delete(boardRevisions).where(eq(boardRevisions.boardId, foreign));
+    await db().delete(boards).where(eq(boards.id, foreign));
   });
 });

@@ -8,8 +8,8 @@ import { startPasswordReset } from '~/lib/accounts/password-reset.server.ts';
 import { shops } from '~/lib/db/schema.ts';
 import { MAIL_BUDGETS, YOUNG_SHOP_SECONDS } from '~/lib/http/rate-budgets.ts';
 import { isYoungShop, limitMail } from '~/lib/mail/mail-budgets.server.ts';
-import * as designProofsRoute from '~/pages/api/designs/[id]/proofs.ts';
-import { fixtureDesign, insertDesign } from '../support/designs.ts';
+import * as designProofsRoute from '~/pages/api/boards/[id]/proofs.ts';
+import { fixtureDesign, insertBoard } from '../support/designs.ts';
 import { mailsTo, uniqueEmail } from '../support/outbox.ts';
 import { callRoute } from '../support/route-call.ts';
 import { addShopUser, newShopUser, type TestUser } from '../support/sessions.ts';
@@ -56,17 +56,17 @@ describe('mail budgets per user and per shop', () => {
     expect((await limitMail('proof', { userId: third.id, shopId: third.shopId }, new Date())).ok).toBe(false);
   });
 
-  it('POST /api/designs/{id}/proofs: 429 with Retry-After and a "try again" message once the budget is used; nothing is stored', async () => {
+  it('POST /api/boards/{id}/proofs: 429 with Retry-After and a "try again" message once the budget is used; nothing is stored', async () => {
     const builder = await newShopUser('builder');
-    const designId = await insertDesign(builder.shopId, builder.id, fixtureDesign('mandolin'));
+    const boardId = await insertBoard(builder.shopId, builder.id, fixtureDesign('mandolin'));
     const post = () =>
-      callRoute(designProofsRoute.POST, { method: 'POST', path: `/api/designs/${designId}/proofs`, user: builder, params: { id: String(designId) }, body: { clientName: 'Ines', clientEmail: uniqueEmail('c') } });
+      callRoute(designProofsRoute.POST, { method: 'POST', path: `/api/boards/${boardId}/proofs`, user: builder, params: { id: String(boardId) }, body: { clientName: 'Ines', clientEmail: uniqueEmail('c') } });
     for (let i = 0; i < MAIL_BUDGETS.proof.young.perUser.points; i++) expect((await post()).status).toBe(201);
     const refused = await post();
     expect(refused.status).toBe(429);
     expect(Number(refused.headers.get('retry-after'))).toBeGreaterThan(0);
     expect(((await refused.json()) as { error: string }).error).toMatch(/try again in \d+ minutes?/);
-    const listed = await callRoute(designProofsRoute.GET, { path: `/api/designs/${designId}/proofs`, user: builder, params: { id: String(designId) } });
+    const listed = await callRoute(designProofsRoute.GET, { path: `/api/boards/${boardId}/proofs`, user: builder, params: { id: String(boardId) } });
     expect(((await listed.json()) as { proofs: unknown[] }).proofs).toHaveLength(MAIL_BUDGETS.proof.young.perUser.points);
   });
 

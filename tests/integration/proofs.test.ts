@@ -3,15 +3,15 @@ import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sha256Hex } from '~/lib/auth/index.server.ts';
 import { setShopTimeZone } from '~/lib/accounts/users.server.ts';
 import { createProof, decideProof, listDesignProofs, listSharedWith, openProof, revokeProof } from '~/lib/proofs/proofs.server.ts';
-import { designs, proofs, shops } from '~/lib/db/schema.ts';
+import { boards, proofs, shops } from '~/lib/db/schema.ts';
 import { seedDemoProof } from '~/lib/db/seed/demo-proof.server.ts';
 import { decisionAnswer } from '~/lib/proofs/proof-answers.server.ts';
 import { PROOF_LIMITS, type CreatedProof } from '~/lib/schemas/proof.ts';
-import * as designProofsRoute from '~/pages/api/designs/[id]/proofs.ts';
+import * as designProofsRoute from '~/pages/api/boards/[id]/proofs.ts';
 import * as tokenDecisionRoute from '~/pages/api/p/[token]/decision.ts';
 import * as revokeRoute from '~/pages/api/proofs/[proofId]/revoke.ts';
 import * as sharedDecisionRoute from '~/pages/api/shared/[proofId]/decision.ts';
-import { addRevision, fixtureDesign, insertDesign } from '../support/designs.ts';
+import { addRevision, fixtureDesign, insertBoard } from '../support/designs.ts';
 import { linkIn, waitForMail } from '../support/outbox.ts';
 import { callRoute } from '../support/route-call.ts';
 import { addShopUser, newShopUser, type TestUser } from '../support/sessions.ts';
@@ -24,7 +24,7 @@ let builder: TestUser;
 let owner: TestUser;
 let client: TestUser;
 let otherOwner: TestUser;
-let designId: number;
+let boardId: number;
 
 beforeAll(async () => {
   builder = await newShopUser('builder');
@@ -34,7 +34,7 @@ beforeAll(async () => {
   owner = await addShopUser(builder.shopId, 'owner');
   client = await addShopUser(builder.shopId, 'client');
   otherOwner = await newShopUser('owner');
-  designId = await insertDesign(builder.shopId, builder.id, fixtureDesign('seven-string-fan'));
+  boardId = await insertBoard(builder.shopId, builder.id, fixtureDesign('seven-string-fan'));
 });
 afterAll(() => closeDb());
 
@@ -54,22 +54,22 @@ function tokenOf(link: string): string {
 }
 
 async function postProof(user: TestUser | null, id: number | string, body: unknown): Promise<Response> {
-  return callRoute(designProofsRoute.POST, { method: 'POST', path: `/api/designs/${id}/proofs`, user, params: { id: String(id) }, body });
+  return callRoute(designProofsRoute.POST, { method: 'POST', path: `/api/boards/${id}/proofs`, user, params: { id: String(id) }, body });
 }
 
 function decide(token: string, body: unknown, clientAddress = '192.0.2.10'): Promise<Response> {
   return callRoute(tokenDecisionRoute.POST, { method: 'POST', path: `/api/p/${token}/decision`, params: { token }, body, clientAddress });
 }
 
-async function designStatus(id: number): Promise<string> {
-  const [row] = await db().select({ status: designs.status }).from(designs).where(eq(designs.id, id));
+async function boardStatus(id: number): Promise<string> {
+  const [row] = await db().select({ status: boards.status }).from(boards).where(eq(boards.id, id));
   return row!.status;
 }
 
 describe('creating a proof', () => {
   it('pins the current revision, stores only the token hash, marks the design shared and e-mails the link', async () => {
     const email = clientEmail();
-    const result = await created(await postProof(builder, designId, { clientName: 'Ines Calloway', clientEmail: email, message: 'Fan as discussed.' }));
+    const result = await created(await postProof(builder, boardId, { clientName: 'Ines Calloway', clientEmail: email, message: 'Fan as discussed.' }));
     expect(result.link).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/p\/[A-Za-z0-9_-]{22}$/);
     expect(result.mailed).toBe(true);
     expect(result.proof).toMatchObject({ revision: 1, state: 'open', clientEmail: email, decision: null });
@@ -80,7 +80,7 @@ describe('creating a proof', () => {
     const [row] = await db().select().from(proofs).where(eq(proofs.id, result.proof.id));
     expect(row!.tokenHash).toBe(sha256Hex(token));
     expect(JSON.stringify(row)).not.toContain(token);
-    expect(await designStatus(designId)).toBe('shared');
+    expect(await boardStatus(boardId)).toBe('shared');
 
     const mail = await waitForMail(email, /./);
     expect(linkIn(mail, '/p/').url).toBe(result.link);
@@ -90,7 +90,7 @@ describe('creating a proof', () => {
   it('e-mails write dates as people do, in the shop time zone (Pacific/Auckland is UTC+13 in December, tz database)', async () => {
     const shop = await newShopUser('builder', 'Time zone test shop');
     await setShopTimeZone(shop.shopId, 'Pacific/Auckland');
-    const boardId = await insertDesign(shop.shopId, shop.id, fixtureDesign('seven-string-fan'));
+    const boardId = await insertBoard(shop.shopId, shop.id, fixtureDesign('seven-string-fan'));
     const email = clientEmail();
     // Sent 2026-12-03 11:30 UTC for 2 days: the link ends 2026-12-05 11:30 UTC, 00:30 on the 6th in Auckland.
     const sent = new Date('2026-12-03T11:30:00Z');
@@ -112,7 +112,7 @@ describe('creating a proof', () => {
       [{ clientName: '', clientEmail: clientEmail() }, 'clientName'],
       [{ clientName: 'A', clientEmail: clientEmail(), message: 'x'.repeat(PROOF_LIMITS.messageMaxChars + 1) }, 'message'],
     ] as const) {
-      const response = await postProof(builder, designId, body);
+      const response = await postProof(builder, boardId, body);
       expect(response.status).toBe(400);
       expect(((await response.json()) as { field: string }).field).toBe(field);
     }
@@ -120,28 +120,28 @@ describe('creating a proof', () => {
 
   it('is for builders and owners of the design\'s own shop: 401, 403, 404 otherwise', async () => {
     const body = { clientName: 'A', clientEmail: clientEmail() };
-    expect((await postProof(null, designId, body)).status).toBe(401);
-    expect((await postProof(client, designId, body)).status).toBe(403);
-    expect((await postProof(otherOwner, designId, body)).status).toBe(404);
+    expect((await postProof(null, boardId, body)).status).toBe(401);
+    expect((await postProof(client, boardId, body)).status).toBe(403);
+    expect((await postProof(otherOwner, boardId, body)).status).toBe(404);
     expect((await postProof(owner, 'abc', body)).status).toBe(404);
-    expect((await postProof(owner, designId, body)).status).toBe(201);
-    const list = await callRoute(designProofsRoute.GET, { path: `/api/designs/${designId}/proofs`, user: otherOwner, params: { id: String(designId) } });
+    expect((await postProof(owner, boardId, body)).status).toBe(201);
+    const list = await callRoute(designProofsRoute.GET, { path: `/api/boards/${boardId}/proofs`, user: otherOwner, params: { id: String(boardId) } });
     expect(list.status).toBe(404);
   });
 
   it('reads ids strictly, as every route does: "7e0", "07" or " 7" name no design (404), though Number() would say 7', async () => {
-    for (const raw of [`${designId}e0`, `0${designId}`, ` ${designId}`, `${designId}.0`]) {
-      const list = await callRoute(designProofsRoute.GET, { path: `/api/designs/${encodeURIComponent(raw)}/proofs`, user: owner, params: { id: raw } });
+    for (const raw of [`${boardId}e0`, `0${boardId}`, ` ${boardId}`, `${boardId}.0`]) {
+      const list = await callRoute(designProofsRoute.GET, { path: `/api/boards/${encodeURIComponent(raw)}/proofs`, user: owner, params: { id: raw } });
       expect(list.status, raw).toBe(404);
     }
-    const plain = await callRoute(designProofsRoute.GET, { path: `/api/designs/${designId}/proofs`, user: owner, params: { id: String(designId) } });
+    const plain = await callRoute(designProofsRoute.GET, { path: `/api/boards/${boardId}/proofs`, user: owner, params: { id: String(boardId) } });
     expect(plain.status).toBe(200);
   });
 });
 
 describe('opening a proof', () => {
   it('shows the pinned revision and says when a newer one exists', async () => {
-    const id = await insertDesign(builder.shopId, builder.id, fixtureDesign('classical-650'));
+    const id = await insertBoard(builder.shopId, builder.id, fixtureDesign('classical-650'));
     const result = await createProof(builder, id, { clientName: 'C', clientEmail: clientEmail(), message: 'Hello', expiresInDays: 30 }, T0);
     const token = tokenOf(result!.link);
     const first = await openProof({ token }, new Date(T0.getTime() + 1000));
@@ -151,20 +151,20 @@ describe('opening a proof', () => {
     await addRevision(id, builder.id, { ...fixtureDesign('classical-650'), name: 'Renamed', scale: { treble: 640, bass: 640 } });
     const later = await openProof({ token }, new Date(T0.getTime() + 2000));
     expect(later).toMatchObject({ revision: 1, newerRevisionExists: true });
-    expect(later!.designName).toBe(first!.designName);
+    expect(later!.boardName).toBe(first!.boardName);
     expect(later!.design.scale.treble).toBe(650);
   });
 });
 
 describe('answering a proof', () => {
   it('approve: records name, time and revision, sets the design approved, e-mails the builder; a second answer is 409', async () => {
-    const id = await insertDesign(builder.shopId, builder.id, fixtureDesign('mandolin'));
+    const id = await insertBoard(builder.shopId, builder.id, fixtureDesign('mandolin'));
     const result = await created(await postProof(builder, id, { clientName: 'Ines', clientEmail: clientEmail() }));
     const token = tokenOf(result.link);
 
     const response = await decide(token, { decision: 'approved', name: 'Ines Calloway', confirmed: true });
     expect(response.status).toBe(200);
-    expect(await designStatus(id)).toBe('approved');
+    expect(await boardStatus(id)).toBe('approved');
     const [row] = await db().select().from(proofs).where(eq(proofs.id, result.proof.id));
     expect(row).toMatchObject({ decision: 'approved', decidedName: 'Ines Calloway', revision: 1 });
     expect(row!.decidedAt).toBeInstanceOf(Date);
@@ -180,7 +180,7 @@ describe('answering a proof', () => {
   });
 
   it('approve needs the confirmation ticked and a name (400 naming the field)', async () => {
-    const result = await created(await postProof(builder, designId, { clientName: 'Ines', clientEmail: clientEmail() }));
+    const result = await created(await postProof(builder, boardId, { clientName: 'Ines', clientEmail: clientEmail() }));
     const token = tokenOf(result.link);
     const unticked = await decide(token, { decision: 'approved', name: 'Ines', confirmed: false });
     expect(unticked.status).toBe(400);
@@ -190,11 +190,11 @@ describe('answering a proof', () => {
   });
 
   it('request changes: stores the comment, sets the design to changes requested and e-mails the builder', async () => {
-    const id = await insertDesign(builder.shopId, builder.id, fixtureDesign('tenor-ukulele'));
+    const id = await insertBoard(builder.shopId, builder.id, fixtureDesign('tenor-ukulele'));
     const result = await created(await postProof(builder, id, { clientName: 'Rafe', clientEmail: clientEmail() }));
     const response = await decide(tokenOf(result.link), { decision: 'changes_requested', name: 'Rafe Dunmore', comment: 'Please make it 20 frets.' });
     expect(response.status).toBe(200);
-    expect(await designStatus(id)).toBe('changes_requested');
+    expect(await boardStatus(id)).toBe('changes_requested');
     const list = await listDesignProofs(builder.shopId, id, new Date());
     expect(list![0]).toMatchObject({ state: 'changes_requested', decision: { kind: 'changes_requested', name: 'Rafe Dunmore', comment: 'Please make it 20 frets.' } });
     const mail = await waitForMail(builder.email, /./, 5000, (m) => m.text.includes('Please make it 20 frets.'));
@@ -202,7 +202,7 @@ describe('answering a proof', () => {
   });
 
   it('an over-long comment is a 400 naming "comment", and nothing is recorded', async () => {
-    const result = await created(await postProof(builder, designId, { clientName: 'Ines', clientEmail: clientEmail() }));
+    const result = await created(await postProof(builder, boardId, { clientName: 'Ines', clientEmail: clientEmail() }));
     const response = await decide(tokenOf(result.link), { decision: 'changes_requested', name: 'Ines', comment: 'x'.repeat(PROOF_LIMITS.commentMaxChars + 1) });
     expect(response.status).toBe(400);
     expect(((await response.json()) as { field: string }).field).toBe('comment');
@@ -211,19 +211,19 @@ describe('answering a proof', () => {
   });
 
   it('an answer to an older revision is recorded but leaves the design\'s status to the newer proof', async () => {
-    const id = await insertDesign(builder.shopId, builder.id, fixtureDesign('short-scale-bass'));
+    const id = await insertBoard(builder.shopId, builder.id, fixtureDesign('short-scale-bass'));
     const old = await createProof(builder, id, { clientName: 'R', clientEmail: clientEmail(), message: '', expiresInDays: 30 }, new Date());
     await addRevision(id, builder.id, { ...fixtureDesign('short-scale-bass'), frets: 22 });
     await createProof(builder, id, { clientName: 'R', clientEmail: clientEmail(), message: '', expiresInDays: 30 }, new Date());
     const answer = await decideProof({ token: tokenOf(old!.link) }, { decision: 'approved', name: 'R', confirmed: true }, new Date());
     expect(answer.ok).toBe(true);
-    expect(await designStatus(id)).toBe('shared');
+    expect(await boardStatus(id)).toBe('shared');
   });
 });
 
 describe('revoking, expiry and links that do not open', () => {
   it('revoke: the link stops opening and answering (404), the list shows it revoked; other shops get 404', async () => {
-    const result = await created(await postProof(builder, designId, { clientName: 'Ines', clientEmail: clientEmail() }));
+    const result = await created(await postProof(builder, boardId, { clientName: 'Ines', clientEmail: clientEmail() }));
     const token = tokenOf(result.link);
     const path = `/api/proofs/${result.proof.id}/revoke`;
     const params = { proofId: String(result.proof.id) };
@@ -233,24 +233,24 @@ describe('revoking, expiry and links that do not open', () => {
     expect(response.status).toBe(200);
     expect(await openProof({ token }, new Date())).toBeNull();
     expect((await decide(token, { decision: 'approved', name: 'Ines', confirmed: true })).status).toBe(404);
-    const list = await listDesignProofs(builder.shopId, designId, new Date());
+    const list = await listDesignProofs(builder.shopId, boardId, new Date());
     expect(list!.find((p) => p.id === result.proof.id)).toMatchObject({ state: 'revoked', decision: null });
     expect(await revokeProof(otherOwner.shopId, result.proof.id, new Date())).toEqual({ ok: false, reason: 'not_found' });
   });
 
   it('an answered proof is not revoked: 409, and the answer and link stay as they were', async () => {
-    const result = await created(await postProof(builder, designId, { clientName: 'Ines', clientEmail: clientEmail() }));
+    const result = await created(await postProof(builder, boardId, { clientName: 'Ines', clientEmail: clientEmail() }));
     const token = tokenOf(result.link);
     expect((await decide(token, { decision: 'approved', name: 'Ines', confirmed: true })).status).toBe(200);
     const path = `/api/proofs/${result.proof.id}/revoke`;
     const response = await callRoute(revokeRoute.POST, { method: 'POST', path, params: { proofId: String(result.proof.id) }, user: builder });
     expect(response.status).toBe(409);
-    const list = await listDesignProofs(builder.shopId, designId, new Date());
+    const list = await listDesignProofs(builder.shopId, boardId, new Date());
     expect(list!.find((p) => p.id === result.proof.id)).toMatchObject({ state: 'approved', revokedAt: null, decision: { kind: 'approved', name: 'Ines' } });
   });
 
   it('expiry (clock injected): opens until the expiry time, then neither opens nor takes an answer (409)', async () => {
-    const result = await createProof(builder, designId, { clientName: 'C', clientEmail: clientEmail(), message: '', expiresInDays: 2 }, T0);
+    const result = await createProof(builder, boardId, { clientName: 'C', clientEmail: clientEmail(), message: '', expiresInDays: 2 }, T0);
     const token = tokenOf(result!.link);
     const justBefore = new Date(T0.getTime() + 2 * DAY_MS - 1000);
     const justAfter = new Date(T0.getTime() + 2 * DAY_MS + 1000);
@@ -261,14 +261,14 @@ describe('revoking, expiry and links that do not open', () => {
     const late = await answerAt(justAfter);
     expect(late.status).toBe(409);
     expect(((await late.json()) as { error: string }).error).toMatch(/expired/);
-    const list = await listDesignProofs(builder.shopId, designId, justAfter);
+    const list = await listDesignProofs(builder.shopId, boardId, justAfter);
     expect(list!.find((p) => p.id === result!.proof.id)?.state).toBe('expired');
     expect((await answerAt(justBefore)).status).toBe(200);
   });
 
   it('unknown, expired, revoked and malformed tokens get the same 404 answer from the decision route', async () => {
-    const expired = await createProof(builder, designId, { clientName: 'C', clientEmail: clientEmail(), message: '', expiresInDays: 1 }, new Date(Date.now() - 2 * DAY_MS));
-    const revoked = await createProof(builder, designId, { clientName: 'C', clientEmail: clientEmail(), message: '', expiresInDays: 30 }, new Date());
+    const expired = await createProof(builder, boardId, { clientName: 'C', clientEmail: clientEmail(), message: '', expiresInDays: 1 }, new Date(Date.now() - 2 * DAY_MS));
+    const revoked = await createProof(builder, boardId, { clientName: 'C', clientEmail: clientEmail(), message: '', expiresInDays: 30 }, new Date());
     await revokeProof(builder.shopId, revoked!.proof.id, new Date());
     const body = { decision: 'approved', name: 'C', confirmed: true };
     const unknownToken = 'AAAAAAAAAAAAAAAAAAAAAA';
@@ -297,7 +297,7 @@ describe('revoking, expiry and links that do not open', () => {
 
 describe('history, Shared with me and logs', () => {
   it('GET lists the design\'s proofs newest first with state and answers', async () => {
-    const response = await callRoute(designProofsRoute.GET, { path: `/api/designs/${designId}/proofs`, user: owner, params: { id: String(designId) } });
+    const response = await callRoute(designProofsRoute.GET, { path: `/api/boards/${boardId}/proofs`, user: owner, params: { id: String(boardId) } });
     expect(response.status).toBe(200);
     const { proofs: list } = (await response.json()) as { proofs: { createdAt: string; state: string }[] };
     expect(list.length).toBeGreaterThan(3);
@@ -307,12 +307,12 @@ describe('history, Shared with me and logs', () => {
   });
 
   it('a client account sees the proofs sent to its e-mail by its own shop, and can answer them', async () => {
-    const result = await createProof(builder, designId, { clientName: 'Acct', clientEmail: client.email.toUpperCase(), message: '', expiresInDays: 30 }, new Date());
-    const elsewhereDesign = await insertDesign(otherOwner.shopId, otherOwner.id, fixtureDesign('mandolin'));
+    const result = await createProof(builder, boardId, { clientName: 'Acct', clientEmail: client.email.toUpperCase(), message: '', expiresInDays: 30 }, new Date());
+    const elsewhereDesign = await insertBoard(otherOwner.shopId, otherOwner.id, fixtureDesign('mandolin'));
     await createProof(otherOwner, elsewhereDesign, { clientName: 'Acct', clientEmail: client.email, message: '', expiresInDays: 30 }, new Date());
     const shared = await listSharedWith(client.shopId, client.email, new Date());
     expect(shared.map((p) => p.id)).toEqual([result!.proof.id]);
-    expect(shared[0]).toMatchObject({ designName: 'Demo: seven-string multi-scale guitar', state: 'open' });
+    expect(shared[0]).toMatchObject({ boardName: 'Demo: seven-string multi-scale guitar', state: 'open' });
 
     const stranger = await addShopUser(builder.shopId, 'client');
     const params = { proofId: String(result!.proof.id) };
@@ -327,7 +327,7 @@ describe('history, Shared with me and logs', () => {
   it('no link token reaches the console while proofs are created, opened and answered', async () => {
     const spies = (['log', 'info', 'warn', 'error', 'debug'] as const).map((m) => vi.spyOn(console, m));
     try {
-      const result = await created(await postProof(builder, designId, { clientName: 'Log', clientEmail: clientEmail() }));
+      const result = await created(await postProof(builder, boardId, { clientName: 'Log', clientEmail: clientEmail() }));
       const token = tokenOf(result.link);
       await openProof({ token }, new Date());
       await decide(token, { decision: 'approved', name: 'Log', confirmed: true }, '192.0.2.40');
@@ -347,11 +347,11 @@ describe('demo seed step', () => {
     await seedDemoProof({ db: db(), shopId: shopOwner.shopId, people });
     expect(await db().select().from(proofs).where(eq(proofs.shopId, shopOwner.shopId))).toEqual([]);
 
-    const id = await insertDesign(shopOwner.shopId, shopOwner.id, fixtureDesign('seven-string-fan'));
+    const id = await insertBoard(shopOwner.shopId, shopOwner.id, fixtureDesign('seven-string-fan'));
     await seedDemoProof({ db: db(), shopId: shopOwner.shopId, people });
     await seedDemoProof({ db: db(), shopId: shopOwner.shopId, people });
     const rows = await db().select().from(proofs).where(eq(proofs.shopId, shopOwner.shopId));
-    expect(rows.map((r) => [r.designId, r.clientEmail])).toEqual([[id, 'client@wrenfield.example']]);
-    expect(await designStatus(id)).toBe('shared');
+    expect(rows.map((r) => [r.boardId, r.clientEmail])).toEqual([[id, 'client@wrenfield.example']]);
+    expect(await boardStatus(id)).toBe('shared');
   });
 });

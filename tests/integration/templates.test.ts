@@ -4,7 +4,7 @@ import { dxfComments } from '../support/dxf-comments.ts';
 import { pageText } from '../support/pdf-readback.ts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { SessionUser } from '~/lib/auth/index.server.ts';
-import { createDesign, getDesign } from '~/lib/db/designs.server.ts';
+import { createBoard, getBoard } from '~/lib/boards/boards.server.ts';
 import { templateChecks, templates, users } from '~/lib/db/schema.ts';
 import { seedDemoShop } from '~/lib/db/seed/demo-shop.server.ts';
 import { DEMO_SEED_STEPS } from '~/lib/db/seed/steps.server.ts';
@@ -57,7 +57,7 @@ function csvRequest(path: string, csv: string): Request {
 /** Saves a demo design as a new board in `shopId` (through the designs module). */
 async function saveDesign(shopId: number, authorId: string, presetId: string): Promise<number> {
   const design = DEMO_DESIGNS.find((d) => d.id === presetId)!.design;
-  return (await createDesign({ id: authorId, shopId }, { design, instrumentType: 'guitar', clientName: '', note: '' })).id;
+  return (await createBoard({ id: authorId, shopId }, { design, instrumentType: 'guitar', clientName: '', note: '' })).id;
 }
 
 const closedForm = (scale: number, fret: number) => scale * (1 - 2 ** (-fret / 12));
@@ -88,7 +88,7 @@ async function createdTemplate(user: SessionUser, body: unknown): Promise<Templa
 describe('Template shelf API', () => {
   it('creates from typed scale lengths; refuses bad fields with 400 naming the field; clients 403, visitors 401', async () => {
     const t = await createdTemplate(builder, { ...typed, name: 'Typed 635' });
-    expect(t).toMatchObject({ name: 'Typed 635', designId: null, trebleScale: 635, frets: 20, keyWidth: 0.55, condition: 'in_use' });
+    expect(t).toMatchObject({ name: 'Typed 635', boardId: null, trebleScale: 635, frets: 20, keyWidth: 0.55, condition: 'in_use' });
     const bad = await create(builder, { ...typed, name: 'Bad', trebleScale: -1 });
     expect(bad.status).toBe(400);
     expect(await bad.json()).toMatchObject({ field: 'trebleScale' });
@@ -99,13 +99,13 @@ describe('Template shelf API', () => {
   });
 
   it("creates from a design's current revision, copying scale, frets and slot width; another shop's design is 404", async () => {
-    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
-    const t = await createdTemplate(builder, { source: 'design', designId, keyWidth: 0.5 });
-    expect(t).toMatchObject({ designId, revision: 1, name: 'Demo: 650 mm classical guitar', trebleScale: 650, bassScale: 650, frets: 19, slotWidth: 0.55, units: 'mm' });
-    const foreign = await create(otherOwner, { source: 'design', designId, keyWidth: 0.5 });
+    const boardId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const t = await createdTemplate(builder, { source: 'design', boardId, keyWidth: 0.5 });
+    expect(t).toMatchObject({ boardId, revision: 1, name: 'Demo: 650 mm classical guitar', trebleScale: 650, bassScale: 650, frets: 19, slotWidth: 0.55, units: 'mm' });
+    const foreign = await create(otherOwner, { source: 'design', boardId, keyWidth: 0.5 });
     expect(foreign.status).toBe(404);
-    expect(await foreign.json()).toMatchObject({ field: 'designId' });
-    const noRevision = await create(builder, { source: 'design', designId, revision: 9, keyWidth: 0.5 });
+    expect(await foreign.json()).toMatchObject({ field: 'boardId' });
+    const noRevision = await create(builder, { source: 'design', boardId, revision: 9, keyWidth: 0.5 });
     expect(await noRevision.json()).toMatchObject({ field: 'revision' });
   });
 
@@ -243,9 +243,9 @@ describe('adding a template with the check made against its design', () => {
   const named = async (shopId: number, name: string) => db().select().from(templates).where(and(eq(templates.shopId, shopId), eq(templates.name, name)));
 
   it('saves the template and its check together, the check against the chosen revision', async () => {
-    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
-    const t = await createdTemplate(builder, { source: 'design', designId, revision: 1, name: 'Checked on arrival', keyWidth: 0.5, check: checkOf(628.65, 19) });
-    expect(t).toMatchObject({ designId, revision: 1, lastCheckPassed: false });
+    const boardId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const t = await createdTemplate(builder, { source: 'design', boardId, revision: 1, name: 'Checked on arrival', keyWidth: 0.5, check: checkOf(628.65, 19) });
+    expect(t).toMatchObject({ boardId, revision: 1, lastCheckPassed: false });
     expect(t.lastCheckedOn).not.toBeNull();
     const checks = (await (await listChecksRoute(builder, String(t.id))).json()) as { items: { passed: boolean; result: { fits: { scale: { scaleLength: number } }[] } }[] };
     expect(checks.items).toHaveLength(1);
@@ -253,15 +253,15 @@ describe('adding a template with the check made against its design', () => {
   });
 
   it('saves neither when the measurements do not fit the design (400 naming the measurement); another shop is 404', async () => {
-    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const boardId = await saveDesign(builder.shopId, builder.id, 'classical-650');
     const beyond = { units: 'mm', tolerance: 0.1, measurements: [{ fret: 1, fromNut: 36.4 }, { fret: 24, fromNut: 490 }] };
-    const refused = await create(builder, { source: 'design', designId, name: 'Never saved', keyWidth: 0.5, check: beyond });
+    const refused = await create(builder, { source: 'design', boardId, name: 'Never saved', keyWidth: 0.5, check: beyond });
     expect(refused.status).toBe(400);
     expect(await refused.json()).toMatchObject({ field: 'check.measurements.1' });
     expect(await named(builder.shopId, 'Never saved')).toHaveLength(0);
-    const badTolerance = await create(builder, { source: 'design', designId, name: 'Never saved', keyWidth: 0.5, check: { ...checkOf(650, 19), tolerance: -1 } });
+    const badTolerance = await create(builder, { source: 'design', boardId, name: 'Never saved', keyWidth: 0.5, check: { ...checkOf(650, 19), tolerance: -1 } });
     expect(await badTolerance.json()).toMatchObject({ field: 'check.tolerance' });
-    const foreign = await create(otherOwner, { source: 'design', designId, name: 'Never saved', keyWidth: 0.5, check: checkOf(650, 19) });
+    const foreign = await create(otherOwner, { source: 'design', boardId, name: 'Never saved', keyWidth: 0.5, check: checkOf(650, 19) });
     expect(foreign.status).toBe(404);
     expect(await named(otherOwner.shopId, 'Never saved')).toHaveLength(0);
   });
@@ -279,9 +279,9 @@ describe('label and index template downloads', () => {
   });
 
   it("a template made from a saved board names the board revision and its fingerprint on the label, the index template and their file names", async () => {
-    const designId = await saveDesign(builder.shopId, builder.id, 'classical-650');
-    const board = await getDesign(builder.shopId, designId);
-    const t = await createdTemplate(builder, { source: 'design', designId, keyWidth: 0.5, name: 'Classical strip' });
+    const boardId = await saveDesign(builder.shopId, builder.id, 'classical-650');
+    const board = await getBoard(builder.shopId, boardId);
+    const t = await createdTemplate(builder, { source: 'design', boardId, keyWidth: 0.5, name: 'Classical strip' });
     const label = await labelRoute(builder, String(t.id), new URL(`${ORIGIN}/api/templates/${t.id}/label?size=100x50`));
     expect(label.headers.get('content-disposition')).toBe(`inline; filename="classical-strip-${t.id}-r1-label-100x50.pdf"`);
     expect(pageText(new Uint8Array(await label.arrayBuffer()), 1)).toContain(`Board rev 1 · ${board!.fingerprint}`);

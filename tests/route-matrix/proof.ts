@@ -6,15 +6,15 @@ const SIGNED_IN_ONLY = { anonymous: 302, client: 200, builder: 200, owner: 200, 
 
 export const PROOF_ROUTES: readonly RouteCase[] = [
   {
-    file: 'pages/api/designs/[id]/proofs.ts',
+    file: 'pages/api/boards/[id]/proofs.ts',
     method: 'GET',
-    path: (ids) => `/api/designs/${ids.designId}/proofs`,
+    path: (ids) => `/api/boards/${ids.boardId}/proofs`,
     expect: { anonymous: 401, client: 403, builder: 200, owner: 200, otherOwner: 404 },
   },
   {
-    file: 'pages/api/designs/[id]/proofs.ts',
+    file: 'pages/api/boards/[id]/proofs.ts',
     method: 'POST',
-    path: (ids) => `/api/designs/${ids.designId}/proofs`,
+    path: (ids) => `/api/boards/${ids.boardId}/proofs`,
     body: NEW_PROOF,
     expect: { anonymous: 401, client: 403, builder: 201, owner: 201, otherOwner: 404 },
   },
@@ -60,7 +60,7 @@ export const PROOF_ROUTES: readonly RouteCase[] = [
   {
     file: 'pages/boards/[id]/proofs.astro',
     method: 'GET',
-    path: (ids) => `/boards/${ids.designId}/proofs`,
+    path: (ids) => `/boards/${ids.boardId}/proofs`,
     expect: { anonymous: 302, client: 403, builder: 200, owner: 200, otherOwner: 404 },
   },
 ];

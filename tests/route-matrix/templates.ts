@@ -7,12 +7,12 @@ const page = { anonymous: 302, client: 403, builder: 200, owner: 200, otherOwner
 export const TEMPLATE_ROUTES: readonly RouteCase[] = [
   { file: 'pages/templates.astro', method: 'GET', path: '/templates', expect: { ...page, otherOwner: 200 } },
   { file: 'pages/templates/[id].astro', method: 'GET', path: (ids) => `/templates/${ids.templateId}`, expect: page },
-  { file: 'pages/boards/[id]/check.astro', method: 'GET', path: (ids) => `/boards/${ids.designId}/check`, expect: page },
-  { file: 'pages/boards/[id]/check.astro', method: 'GET', path: (ids) => `/boards/${ids.designId}/check?revision=1`, expect: page },
+  { file: 'pages/boards/[id]/check.astro', method: 'GET', path: (ids) => `/boards/${ids.boardId}/check`, expect: page },
+  { file: 'pages/boards/[id]/check.astro', method: 'GET', path: (ids) => `/boards/${ids.boardId}/check?revision=1`, expect: page },
   {
     file: 'pages/boards/[id]/check.astro',
     method: 'GET',
-    path: (ids) => `/boards/${ids.designId}/check?revision=999999`,
+    path: (ids) => `/boards/${ids.boardId}/check?revision=999999`,
     expect: { ...page, builder: 404, owner: 404 },
   },
   { file: 'pages/api/templates/index.ts', method: 'GET', path: '/api/templates?sort=name&dir=asc', expect: { ...shelfOnly, otherOwner: 200 } },
@@ -29,7 +29,7 @@ export const TEMPLATE_ROUTES: readonly RouteCase[] = [
     path: '/api/templates',
     body: (ids: MatrixIds) => ({
       source: 'design',
-      designId: ids.designId,
+      boardId: ids.boardId,
       revision: 1,
       name: 'Route matrix template with a check',
       keyWidth: 0.5,

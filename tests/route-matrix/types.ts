@@ -8,7 +8,7 @@ export type Actor = 'anonymous' | 'client' | 'builder' | 'owner' | 'otherOwner';
 
 /** Ids of the demo shop's rows, so routes with parameters can be called for real. */
 export interface MatrixIds {
-  designId: number;
+  boardId: number;
   templateId: number;
   /** The demo shop's first seeded fret wire. */
   wireId: number;
@@ -18,7 +18,7 @@ export interface MatrixIds {
 }
 
 export interface RouteCase {
-  /** The file under src/pages that serves it, e.g. 'pages/api/designs/[id]/index.ts'. */
+  /** The file under src/pages that serves it, e.g. 'pages/api/boards/[id]/index.ts'. */
   file: string;
   method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
   path: string | ((ids: MatrixIds) => string);

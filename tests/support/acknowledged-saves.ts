@@ -3,12 +3,12 @@
  * the database afterwards, in order: load, fault and restart tests share it.
  */
 import { inArray } from 'drizzle-orm';
-import { designRevisions, designs } from '~/lib/db/schema.ts';
+import { boardRevisions, boards } from '~/lib/db/schema.ts';
 import { fixtureDesign } from './designs.ts';
 import { db } from './test-db.ts';
 
 export interface AcknowledgedSave {
-  designId: number;
+  boardId: number;
   /** Revision and version the 200 answer named. */
   revision: number;
   version: number;
@@ -32,11 +32,11 @@ interface SavedBoard {
   design: { name?: unknown };
 }
 
-/** Reads a 200 answer of PATCH /api/designs/{id} into the ledger entry it acknowledges. */
-export function acknowledgement(designId: number, marker: string, body: string): AcknowledgedSave {
+/** Reads a 200 answer of PATCH /api/boards/{id} into the ledger entry it acknowledges. */
+export function acknowledgement(boardId: number, marker: string, body: string): AcknowledgedSave {
   const saved = JSON.parse(body) as SavedBoard;
   if (saved.design.name !== marker) throw new Error(`save of "${marker}" answered with design "${String(saved.design.name)}"`);
-  return { designId, revision: saved.revision, version: saved.version, marker };
+  return { boardId, revision: saved.revision, version: saved.version, marker };
 }
 
 /**
@@ -46,28 +46,28 @@ export function acknowledgement(designId: number, marker: string, body: string):
  */
 export async function acknowledgedSaveProblems(saves: readonly AcknowledgedSave[]): Promise<string[]> {
   const problems: string[] = [];
-  const ids = [...new Set(saves.map((s) => s.designId))];
+  const ids = [...new Set(saves.map((s) => s.boardId))];
   if (ids.length === 0) return problems;
   const rows = await db()
-    .select({ designId: designRevisions.designId, revision: designRevisions.revision, data: designRevisions.data })
-    .from(designRevisions)
-    .where(inArray(designRevisions.designId, ids));
-  const stored = new Map(rows.map((r) => [`${r.designId}/${r.revision}`, r.data]));
+    .select({ boardId: boardRevisions.boardId, revision: boardRevisions.revision, data: boardRevisions.data })
+    .from(boardRevisions)
+    .where(inArray(boardRevisions.boardId, ids));
+  const stored = new Map(rows.map((r) => [`${r.boardId}/${r.revision}`, r.data]));
   const heads = new Map(
-    (await db().select({ id: designs.id, currentRevision: designs.currentRevision, version: designs.version }).from(designs).where(inArray(designs.id, ids))).map(
+    (await db().select({ id: boards.id, currentRevision: boards.currentRevision, version: boards.version }).from(boards).where(inArray(boards.id, ids))).map(
       (h) => [h.id, h],
     ),
   );
   const last = new Map<number, AcknowledgedSave>();
   for (const save of saves) {
-    const data = stored.get(`${save.designId}/${save.revision}`);
+    const data = stored.get(`${save.boardId}/${save.revision}`);
     const name = (typeof data === 'string' ? (JSON.parse(data) as { name?: unknown }) : (data as { name?: unknown } | undefined))?.name;
-    if (name !== save.marker) problems.push(`board ${save.designId} revision ${save.revision} holds ${JSON.stringify(name)}, acknowledged as "${save.marker}"`);
-    const before = last.get(save.designId);
+    if (name !== save.marker) problems.push(`board ${save.boardId} revision ${save.revision} holds ${JSON.stringify(name)}, acknowledged as "${save.marker}"`);
+    const before = last.get(save.boardId);
     if (before && !(save.revision > before.revision && save.version > before.version)) {
-      problems.push(`board ${save.designId}: "${save.marker}" (revision ${save.revision}) was acknowledged after "${before.marker}" (revision ${before.revision})`);
+      problems.push(`board ${save.boardId}: "${save.marker}" (revision ${save.revision}) was acknowledged after "${before.marker}" (revision ${before.revision})`);
     }
-    last.set(save.designId, save);
+    last.set(save.boardId, save);
   }
   for (const [id, save] of last) {
     const head = heads.get(id);

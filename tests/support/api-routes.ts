@@ -9,7 +9,7 @@ export const HTTP_METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as const;
 export type HttpMethod = (typeof HTTP_METHODS)[number];
 
 export interface ApiRoute {
-  /** e.g. 'src/pages/api/designs/[id]/index.ts' */
+  /** e.g. 'src/pages/api/boards/[id]/index.ts' */
   file: string;
   /** Path segments; dynamic ones as `{ param: 'id', rest: false }`. */
   segments: (string | { param: string; rest: boolean })[];

@@ -1,12 +1,12 @@
 /**
- * Saved designs for tests, saved through the designs module (head row, working copy, revision)
+ * Saved boards for tests, saved through the boards module (head row, working copy, revision)
  * from the demo fixtures in src/lib/boards/demo.
  */
 import { readFileSync } from 'node:fs';
 import { and, asc, eq, like } from 'drizzle-orm';
 import { db } from '~/lib/db/client.server.ts';
-import { createDesign, updateDesign } from '~/lib/db/designs.server.ts';
-import { designs } from '~/lib/db/schema.ts';
+import { createBoard, updateBoard } from '~/lib/boards/boards.server.ts';
+import { boards } from '~/lib/db/schema.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
 
 export type FixtureName = 'seven-string-fan' | 'short-scale-bass' | 'classical-650' | 'mandolin' | 'tenor-ukulele';
@@ -22,16 +22,16 @@ function validated(data: unknown): Design {
   return result.design;
 }
 
-/** Saves a design as a new board with revision 1 (through the designs module) and returns its id. */
-export async function insertDesign(shopId: number, userId: string, data: Record<string, unknown>): Promise<number> {
-  const board = await createDesign({ id: userId, shopId }, { design: validated(data), instrumentType: 'guitar', clientName: '', note: '' });
+/** Saves a design as a new board with revision 1 (through the boards module) and returns its id. */
+export async function insertBoard(shopId: number, userId: string, data: Record<string, unknown>): Promise<number> {
+  const board = await createBoard({ id: userId, shopId }, { design: validated(data), instrumentType: 'guitar', clientName: '', note: '' });
   return board.id;
 }
 
 /** Saves `data` as the board's working copy and keeps it as the next revision; returns its number. */
-export async function addRevision(designId: number, userId: string, data: Record<string, unknown>): Promise<number> {
-  const [head] = await db().select({ shopId: designs.shopId, version: designs.version }).from(designs).where(eq(designs.id, designId));
-  const saved = await updateDesign({ id: userId, shopId: head!.shopId }, designId, {
+export async function addRevision(boardId: number, userId: string, data: Record<string, unknown>): Promise<number> {
+  const [head] = await db().select({ shopId: boards.shopId, version: boards.version }).from(boards).where(eq(boards.id, boardId));
+  const saved = await updateBoard({ id: userId, shopId: head!.shopId }, boardId, {
     version: head!.version,
     design: validated(data),
     note: '',
@@ -45,11 +45,11 @@ export async function addRevision(designId: number, userId: string, data: Record
 /** The shop's design whose name contains `text`, inserting it from `fixture` when missing. */
 export async function ensureDesign(shopId: number, userId: string, text: string, fixture: FixtureName): Promise<number> {
   const [found] = await db()
-    .select({ id: designs.id })
-    .from(designs)
-    .where(and(eq(designs.shopId, shopId), like(designs.name, `%${text}%`)))
+    .select({ id: boards.id })
+    .from(boards)
+    .where(and(eq(boards.shopId, shopId), like(boards.name, `%${text}%`)))
     // The oldest match: the seeded one, not a copy another test made ("Copy of …").
-    .orderBy(asc(designs.id))
+    .orderBy(asc(boards.id))
     .limit(1);
-  return found?.id ?? insertDesign(shopId, userId, fixtureDesign(fixture));
+  return found?.id ?? insertBoard(shopId, userId, fixtureDesign(fixture));
 }

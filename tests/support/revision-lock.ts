@@ -5,12 +5,12 @@
 import type { Connection } from 'mysql2/promise';
 import { getPool } from './test-db.ts';
 
-export async function holdNextRevision(connection: Connection, designId: number, revision: number, authorId: string): Promise<void> {
+export async function holdNextRevision(connection: Connection, boardId: number, revision: number, authorId: string): Promise<void> {
   // Without the foreign key check the blocker takes no lock on the head row, so the save gets past
   // its own lock on that row and stops at the revision insert, after it has begun writing.
   await connection.query('SET SESSION foreign_key_checks = 0');
   await connection.beginTransaction();
-  await connection.execute('INSERT INTO design_revisions (design_id, revision, data, author_id) VALUES (?, ?, ?, ?)', [designId, revision, '{}', authorId]);
+  await connection.execute('INSERT INTO board_revisions (board_id, revision, data, author_id) VALUES (?, ?, ?, ?)', [boardId, revision, '{}', authorId]);
 }
 
 /**
@@ -20,7 +20,7 @@ export async function holdNextRevision(connection: Connection, designId: number,
 export async function waitForLockWait(): Promise<void> {
   for (let i = 0; i < 500; i++) {
     const [rows] = await getPool().query(
-      "SELECT COUNT(*) AS n FROM information_schema.PROCESSLIST WHERE COMMAND = 'Query' AND INFO LIKE 'insert into `design_revisions`%'",
+      "SELECT COUNT(*) AS n FROM information_schema.PROCESSLIST WHERE COMMAND = 'Query' AND INFO LIKE 'insert into `board_revisions`%'",
     );
     if (Number((rows as { n: number }[])[0]?.n) > 0) return;
     await new Promise((resolve) => setTimeout(resolve, 20));

@@ -12,7 +12,7 @@ export const TEST_ORIGIN = 'http://127.0.0.1:4321';
 
 export interface RouteCall {
   method?: string;
-  /** Path and query, e.g. '/api/designs?q=x'. */
+  /** Path and query, e.g. '/api/boards?q=x'. */
   path: string;
   /** The signed-in user; null or left out for a visitor. */
   user?: TestUser | SessionUser | null;

@@ -5,28 +5,28 @@
  */
 import { asc, eq, inArray } from 'drizzle-orm';
 import { newToken, sha256Hex } from '~/lib/auth/index.server.ts';
-import { designs, proofs, templates } from '~/lib/db/schema.ts';
-import { fixtureDesign, insertDesign } from './designs.ts';
+import { boards, proofs, templates } from '~/lib/db/schema.ts';
+import { fixtureDesign, insertBoard } from './designs.ts';
 import { tableCounts } from './table-counts.ts';
 import { db } from './test-db.ts';
 
 export interface ShopRows {
   shopId: number;
-  designId: number;
+  boardId: number;
   templateId: number;
   proofId: number;
   /** The proof link's token (only its hash is stored). */
   proofToken: string;
 }
 
-/** A proof of `designId` revision 1 for `clientEmail`, with a fresh link token. */
-export async function issueProof(shopId: number, designId: number, createdBy: string, clientEmail: string): Promise<{ proofId: number; proofToken: string }> {
+/** A proof of `boardId` revision 1 for `clientEmail`, with a fresh link token. */
+export async function issueProof(shopId: number, boardId: number, createdBy: string, clientEmail: string): Promise<{ proofId: number; proofToken: string }> {
   const proofToken = newToken();
   const [row] = await db()
     .insert(proofs)
     .values({
       shopId,
-      designId,
+      boardId,
       revision: 1,
       tokenHash: sha256Hex(proofToken),
       clientName: 'Ines Calloway',
@@ -50,23 +50,23 @@ async function templateOf(shopId: number, name: string): Promise<number> {
   return row!.id;
 }
 
-/** Rows for a shop: `designId` when given (e.g. a seeded board), otherwise a new board named `name`. */
-export async function shopRows(shopId: number, userId: string, clientEmail: string, name: string, designId?: number): Promise<ShopRows> {
-  const board = designId ?? (await insertDesign(shopId, userId, { ...fixtureDesign('seven-string-fan'), name }));
+/** Rows for a shop: `boardId` when given (e.g. a seeded board), otherwise a new board named `name`. */
+export async function shopRows(shopId: number, userId: string, clientEmail: string, name: string, boardId?: number): Promise<ShopRows> {
+  const board = boardId ?? (await insertBoard(shopId, userId, { ...fixtureDesign('seven-string-fan'), name }));
   const proof = await issueProof(shopId, board, userId, clientEmail);
-  return { shopId, designId: board, templateId: await templateOf(shopId, name), ...proof };
+  return { shopId, boardId: board, templateId: await templateOf(shopId, name), ...proof };
 }
 
 /** Everything a rejected request must leave as it was, for the rows of `shops`. */
 export async function databaseState(shops: readonly ShopRows[]): Promise<unknown> {
-  const designIds = shops.map((s) => s.designId);
+  const boardIds = shops.map((s) => s.boardId);
   const [counts, boardRows, templateRows, proofRows] = await Promise.all([
     tableCounts(),
     db()
-      .select({ id: designs.id, version: designs.version, updatedAt: designs.updatedAt, currentRevision: designs.currentRevision, archivedAt: designs.archivedAt, name: designs.name })
-      .from(designs)
-      .where(inArray(designs.id, designIds))
-      .orderBy(asc(designs.id)),
+      .select({ id: boards.id, version: boards.version, updatedAt: boards.updatedAt, currentRevision: boards.currentRevision, archivedAt: boards.archivedAt, name: boards.name })
+      .from(boards)
+      .where(inArray(boards.id, boardIds))
+      .orderBy(asc(boards.id)),
     db().select({ id: templates.id, updatedAt: templates.updatedAt }).from(templates).where(inArray(templates.id, shops.map((s) => s.templateId))).orderBy(asc(templates.id)),
     db()
       .select({ id: proofs.id, decision: proofs.decision, revokedAt: proofs.revokedAt })

@@ -40,12 +40,12 @@ function RowActions({ board, onHistory, onArchived }: { board: BoardSummary; onH
   const failed = duplicate.error ?? archive.error;
   return (
     <div className="flex flex-wrap items-center gap-2">
-      <a className={`${button} no-underline`} href={`/layout?design=${board.id}`} aria-label={`Open ${board.name}`}>Open</a>
+      <a className={`${button} no-underline`} href={`/layout?board=${board.id}`} aria-label={`Open ${board.name}`}>Open</a>
       <a className={`${button} no-underline`} href={`/boards/${board.id}/check`} aria-label={`Check a template against ${board.name}`}>Check a template</a>
       <button type="button" className={button} disabled={duplicate.isPending} onClick={() => duplicate.mutate()} aria-label={`Duplicate ${board.name}`}>
         {duplicate.isPending ? 'Duplicating…' : 'Duplicate'}
       </button>
-      <a className={`${button} no-underline`} href={`/api/designs/${board.id}/export?format=json`} download aria-label={`Export JSON of ${board.name}`}>Export JSON</a>
+      <a className={`${button} no-underline`} href={`/api/boards/${board.id}/export?format=json`} download aria-label={`Export JSON of ${board.name}`}>Export JSON</a>
       <button type="button" className={button} onClick={onHistory} aria-label={`History of ${board.name}`}>History</button>
       <button type="button" className={button} disabled={archive.isPending} onClick={() => archive.mutate()}
         aria-label={`${board.status === 'archived' ? 'Unarchive' : 'Archive'} ${board.name}`}>
@@ -103,12 +103,12 @@ export function BoardsTable({ query, onChange }: Props) {
         id: 'drawing',
         header: 'Drawing',
         cell: ({ row: { original: b } }) => (
-          <img src={`/api/designs/${b.id}/thumbnail.svg?revision=${b.currentRevision}`} alt={`Drawing of ${b.name}`} width={240} height={48} loading="lazy" />
+          <img src={`/api/boards/${b.id}/thumbnail.svg?revision=${b.currentRevision}`} alt={`Drawing of ${b.name}`} width={240} height={48} loading="lazy" />
         ),
       }),
       column.accessor('name', {
         header: () => <SortHeader label="Name" sort="name" query={query} onChange={onChange} />,
-        cell: ({ row: { original: b } }) => <a href={`/layout?design=${b.id}`}>{b.name}</a>,
+        cell: ({ row: { original: b } }) => <a href={`/layout?board=${b.id}`}>{b.name}</a>,
       }),
       column.accessor('clientName', { header: 'Client', cell: (c) => c.getValue() || '—' }),
       column.accessor('instrumentType', { header: 'Instrument', cell: (c) => INSTRUMENT_LABELS[c.getValue() as keyof typeof INSTRUMENT_LABELS] ?? c.getValue() }),

@@ -30,26 +30,26 @@ function post<T>(path: string, body: unknown, method = 'POST'): Promise<T> {
   return send<T>(path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
 }
 
-export const fetchBoards = (query: BoardListQuery) => send<BoardList>(`/api/designs${searchFromListQuery(query)}`);
-export const fetchBoard = (id: number) => send<BoardDetail>(`/api/designs/${id}`);
-export const fetchRevisions = (id: number) => send<{ items: BoardRevision[] }>(`/api/designs/${id}/revisions`).then((r) => r.items);
+export const fetchBoards = (query: BoardListQuery) => send<BoardList>(`/api/boards${searchFromListQuery(query)}`);
+export const fetchBoard = (id: number) => send<BoardDetail>(`/api/boards/${id}`);
+export const fetchRevisions = (id: number) => send<{ items: BoardRevision[] }>(`/api/boards/${id}/revisions`).then((r) => r.items);
 export const createBoard = (design: unknown, extra: { clientName?: string; instrumentType?: string } = {}) =>
-  post<BoardDetail>('/api/designs', { design, ...extra });
+  post<BoardDetail>('/api/boards', { design, ...extra });
 export const saveBoard = (id: number, version: number, design: unknown, options: { confirmApprovalChange?: boolean } = {}) =>
-  post<BoardDetail>(`/api/designs/${id}`, { version, design, ...(options.confirmApprovalChange ? { confirmApprovalChange: true } : {}) }, 'PATCH');
+  post<BoardDetail>(`/api/boards/${id}`, { version, design, ...(options.confirmApprovalChange ? { confirmApprovalChange: true } : {}) }, 'PATCH');
 /** Saves who the board is for and what instrument it is (no revision: not part of the layout). */
 export const saveBoardDetails = (id: number, version: number, details: { clientName: string; instrumentType: string }) =>
-  post<BoardDetail>(`/api/designs/${id}`, { version, ...details }, 'PATCH');
+  post<BoardDetail>(`/api/boards/${id}`, { version, ...details }, 'PATCH');
 /** Keeps the board's working copy as a revision, with a note (a checkpoint a person chose). */
-export const saveBoardRevision = (id: number, version: number, note: string) => post<BoardDetail>(`/api/designs/${id}/revisions`, { version, note });
-export const duplicateBoard = (id: number) => send<BoardDetail>(`/api/designs/${id}/duplicate`, { method: 'POST' });
-export const archiveBoard = (id: number, archived: boolean) => post<BoardDetail>(`/api/designs/${id}/archive`, { archived });
+export const saveBoardRevision = (id: number, version: number, note: string) => post<BoardDetail>(`/api/boards/${id}/revisions`, { version, note });
+export const duplicateBoard = (id: number) => send<BoardDetail>(`/api/boards/${id}/duplicate`, { method: 'POST' });
+export const archiveBoard = (id: number, archived: boolean) => post<BoardDetail>(`/api/boards/${id}/archive`, { archived });
 export const restoreBoardRevision = (id: number, revision: number, version: number, confirmApprovalChange = false) =>
-  post<BoardDetail>(`/api/designs/${id}/restore`, { revision, version, ...(confirmApprovalChange ? { confirmApprovalChange: true } : {}) });
+  post<BoardDetail>(`/api/boards/${id}/restore`, { revision, version, ...(confirmApprovalChange ? { confirmApprovalChange: true } : {}) });
 
 /** Uploads a chosen JSON file as a new board. */
 export function importBoardFile(file: File): Promise<BoardDetail> {
   const form = new FormData();
   form.set('file', file);
-  return send<BoardDetail>('/api/designs/import', { method: 'POST', body: form });
+  return send<BoardDetail>('/api/boards/import', { method: 'POST', body: form });
 }

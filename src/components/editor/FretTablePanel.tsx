@@ -86,7 +86,7 @@ export const FretTablePanel = memo(function FretTablePanel({ layout, design, boa
           {boardId === null ? (
             <button type="button" className={BUTTON} onClick={download}>Download CSV</button>
           ) : (
-            <a className={`${BUTTON} no-underline`} href={`/api/designs/${boardId}/export?format=csv`} download>Download CSV</a>
+            <a className={`${BUTTON} no-underline`} href={`/api/boards/${boardId}/export?format=csv`} download>Download CSV</a>
           )}
           <span className="text-xs text-ink-soft" role="status">{notice}</span>
         </div>

@@ -155,7 +155,7 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
   const switchToBoard = (saved: BoardDetail) => {
     setBoard(openBoard(saved));
     setOpened({ id: saved.id, version: saved.version });
-    window.history.replaceState(null, '', `/layout?design=${saved.id}`);
+    window.history.replaceState(null, '', `/layout?board=${saved.id}`);
   };
 
   const startFrom = (presetId: string) => {
@@ -335,7 +335,7 @@ export default function LayoutEditor({ mode = 'edit', initialDesign, board: init
                 <div {...tabPanelProps(TABS_ID, 'proofs', tab)}>
                   {mounted.has('proofs') && (
                     <Suspense fallback={<p className="text-sm" role="status">Loading the proofs…</p>}>
-                      <ProofPanel designId={board.id} />
+                      <ProofPanel boardId={board.id} />
                     </Suspense>
                   )}
                 </div>

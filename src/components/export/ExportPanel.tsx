@@ -2,7 +2,7 @@
  * The Export panel: options for the paper template, the slot paths and the slot toolpath, a
  * preview of the page tiling (the same tile-pages module the PDF uses) and of the toolpath (the
  * same plan the G-code is written from), the cut list, and downloads: a saved board's from
- * GET /api/designs/{id}/export (so every file names its revision and fingerprint; unsaved
+ * GET /api/boards/{id}/export (so every file names its revision and fingerprint; unsaved
  * changes become a revision first), an unsaved design's from POST /api/export.
  */
 import { useMemo, useState } from 'react';
@@ -120,7 +120,7 @@ export default function ExportPanel({ design, board = null }: Props) {
     const query = new URLSearchParams({ ...(given as Record<string, string>), format, strings: String(form.strings), kerf: String(form.kerf), mirror: String(form.mirror), toSaddle: String(form.toSaddle), distances: String(form.distances) });
     try {
       const response = board
-        ? await fetch(`/api/designs/${board.id}/export?${query}`, { credentials: 'same-origin' })
+        ? await fetch(`/api/boards/${board.id}/export?${query}`, { credentials: 'same-origin' })
         : await fetch(`/api/export?${query}`, {
             method: 'POST',
             headers: { 'content-type': 'application/json' },

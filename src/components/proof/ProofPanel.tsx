@@ -7,7 +7,7 @@ import { useHydrated } from '~/components/ui/use-hydrated.ts';
 import { PROOF_LIMITS, PROOF_STATE_LABELS, type CreatedProof, type ProofSummary } from '~/lib/schemas/proof.ts';
 
 interface Props {
-  designId: number;
+  boardId: number;
 }
 
 interface Failure {
@@ -84,7 +84,7 @@ function ProofRow({ proof, onRevoke }: { proof: ProofSummary; onRevoke: (id: num
   );
 }
 
-export default function ProofPanel({ designId }: Props) {
+export default function ProofPanel({ boardId }: Props) {
   const hydrated = useHydrated();
   const [proofs, setProofs] = useState<ProofSummary[] | null>(null);
   const [listFailure, setListFailure] = useState<Failure | null>(null);
@@ -95,7 +95,7 @@ export default function ProofPanel({ designId }: Props) {
   const [clientEmail, setClientEmail] = useState('');
   const [message, setMessage] = useState('');
   const [expiresInDays, setExpiresInDays] = useState(String(PROOF_LIMITS.defaultExpiryDays));
-  const base = `/api/designs/${designId}/proofs`;
+  const base = `/api/boards/${boardId}/proofs`;
 
   const reload = useCallback(async () => {
     const result = await call<{ proofs: ProofSummary[] }>(base);

@@ -7,7 +7,7 @@ import { cloneElement, useId, useState, type ReactElement, type SyntheticEvent }
 import { ApiError, createTemplate } from './shelf-api.ts';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
 
-export interface DesignChoice {
+export interface BoardChoice {
   id: number;
   name: string;
   revision: number;
@@ -36,8 +36,8 @@ function Field({
 
 const input = 'rounded border border-paper-line px-2 py-1';
 
-export function AddTemplateForm({ designs }: { designs: DesignChoice[] }) {
-  const [source, setSource] = useState<'design' | 'typed'>(designs.length > 0 ? 'design' : 'typed');
+export function AddTemplateForm({ boards }: { boards: BoardChoice[] }) {
+  const [source, setSource] = useState<'design' | 'typed'>(boards.length > 0 ? 'design' : 'typed');
   const [error, setError] = useState<{ message: string; field?: string | undefined } | null>(null);
   const [busy, setBusy] = useState(false);
   const hydrated = useHydrated();
@@ -56,7 +56,7 @@ export function AddTemplateForm({ designs }: { designs: DesignChoice[] }) {
     };
     const body =
       source === 'design'
-        ? { source, designId: number('designId'), ...(text('name') ? { name: text('name') } : {}), ...shelf }
+        ? { source, boardId: number('boardId'), ...(text('name') ? { name: text('name') } : {}), ...shelf }
         : {
             source,
             name: text('name'),
@@ -95,7 +95,7 @@ export function AddTemplateForm({ designs }: { designs: DesignChoice[] }) {
                 name="source"
                 checked={source === 'design'}
                 onChange={() => setSource('design')}
-                disabled={designs.length === 0}
+                disabled={boards.length === 0}
               />
               A saved design
             </label>
@@ -105,9 +105,9 @@ export function AddTemplateForm({ designs }: { designs: DesignChoice[] }) {
             </label>
           </fieldset>
           {source === 'design' ? (
-            <Field label="Design" error={errorFor('designId') ?? errorFor('revision')}>
-              <select name="designId" className={input}>
-                {designs.map((d) => (
+            <Field label="Design" error={errorFor('boardId') ?? errorFor('revision')}>
+              <select name="boardId" className={input}>
+                {boards.map((d) => (
                   <option key={d.id} value={d.id}>
                     {d.name} (rev. {d.revision})
                   </option>

@@ -8,9 +8,9 @@ import type { CheckGrid } from '~/lib/schemas/template.ts';
 import { ApiError, createTemplate } from './shelf-api.ts';
 
 interface Props {
-  designId: number;
+  boardId: number;
   revision: number;
-  designName: string;
+  boardName: string;
   /** The design's units: the jig key width is given in them. */
   units: LengthUnit;
   /** The check as entered, read when the button is pressed. */
@@ -21,7 +21,7 @@ type State = { kind: 'idle' | 'saving' } | { kind: 'added'; id: number; name: st
 
 const input = 'rounded border border-paper-line px-2 py-1';
 
-export function AddToShelfWithCheck({ designId, revision, designName, units, check }: Props) {
+export function AddToShelfWithCheck({ boardId, revision, boardName, units, check }: Props) {
   const [state, setState] = useState<State>({ kind: 'idle' });
   const nameId = useId();
   const keyId = useId();
@@ -36,7 +36,7 @@ export function AddToShelfWithCheck({ designId, revision, designName, units, che
     try {
       const created = await createTemplate({
         source: 'design',
-        designId,
+        boardId,
         revision,
         ...(name ? { name } : {}),
         keyWidth: Number(keyText),
@@ -64,7 +64,7 @@ export function AddToShelfWithCheck({ designId, revision, designName, units, che
       <p className="text-ink-soft">Adds the template you measured to the Template shelf, made from this revision, with this check saved on it.</p>
       <div className="flex flex-wrap items-end gap-3">
         <div className="flex flex-col gap-1">
-          <label htmlFor={nameId}>Template name (blank = {designName})</label>
+          <label htmlFor={nameId}>Template name (blank = {boardName})</label>
           <input id={nameId} name="name" className={input} />
         </div>
         <div className="flex flex-col gap-1">

@@ -22,7 +22,7 @@ import { useHydrated } from '~/components/ui/use-hydrated.ts';
 /** What the check is about: a template on the shelf, or a saved design's revision. */
 export type CheckSubject =
   | { kind: 'template'; template: TemplateView; checks: SavedCheck[] }
-  | { kind: 'design'; designId: number; revision: number; name: string };
+  | { kind: 'design'; boardId: number; revision: number; name: string };
 
 interface Props {
   design: Design;
@@ -135,7 +135,7 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
           choose below, and compare it with{' '}
           {subject.kind === 'design'
             ? `revision ${subject.revision} of the design (${design.name}). Any physical template can be checked here; nothing is saved unless you add it to the Template shelf.`
-            : `${subject.template.designId !== null ? 'the design' : 'the typed scale lengths'} (${design.name}).`}
+            : `${subject.template.boardId !== null ? 'the design' : 'the typed scale lengths'} (${design.name}).`}
         </p>
         <p className="text-sm text-ink-soft">
           Each number is compared along the same line it was measured along: the treble or bass edge of the board, the
@@ -350,7 +350,7 @@ export default function TemplateCheckPanel({ design, subject }: Props) {
               </span>
             </div>
           ) : (
-            <AddToShelfWithCheck designId={subject.designId} revision={subject.revision} designName={subject.name} units={design.units} check={enteredGrid} />
+            <AddToShelfWithCheck boardId={subject.boardId} revision={subject.revision} boardName={subject.name} units={design.units} check={enteredGrid} />
           )}
         </section>
       )}

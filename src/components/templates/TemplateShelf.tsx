@@ -9,7 +9,7 @@ import { useCallback, useEffect, useState } from 'react';
 import { listQueryFromSearch, searchFromListQuery } from '~/components/ui/list-url-state.ts';
 import { formatLength } from '~/lib/format/units.ts';
 import { LAST_RESULT_FILTERS, TEMPLATE_SORTS, templateListQuerySchema, type TemplateListQuery, type TemplateSort, type TemplateView } from '~/lib/schemas/template.ts';
-import { AddTemplateForm, type DesignChoice } from './AddTemplateForm.tsx';
+import { AddTemplateForm, type BoardChoice } from './AddTemplateForm.tsx';
 import { CONDITION_LABELS, ConditionOptions, LAST_RESULT_LABELS, LastCheck } from './template-labels.tsx';
 import { fetchTemplates } from './shelf-api.ts';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
@@ -17,7 +17,7 @@ import { useHydrated } from '~/components/ui/use-hydrated.ts';
 const queryClient = new QueryClient({ defaultOptions: { queries: { retry: 1, staleTime: 5_000 } } });
 
 interface ShelfProps {
-  designs: DesignChoice[];
+  boards: BoardChoice[];
   /** The page URL's search string when it was served, so the first render matches the URL. */
   initialSearch: string;
 }
@@ -42,7 +42,7 @@ const columns = [
     id: 'source',
     header: 'Made from',
     cell: ({ row }) =>
-      row.original.designId !== null ? `${row.original.designName ?? 'design'} (rev. ${row.original.revision})` : 'typed scale lengths',
+      row.original.boardId !== null ? `${row.original.boardName ?? 'design'} (rev. ${row.original.revision})` : 'typed scale lengths',
   }),
   column.display({ id: 'scale', header: 'Scale', cell: ({ row }) => <span className="font-mono">{scaleText(row.original)}</span> }),
   column.accessor('frets', { header: 'Frets', cell: (info) => <span className="font-mono">{info.getValue()}</span> }),
@@ -70,7 +70,7 @@ const columns = [
 const FIRST_DIRECTION: Record<TemplateSort, 'asc' | 'desc'> = { name: 'asc', scale: 'asc', madeOn: 'desc', lastChecked: 'desc', updated: 'desc' };
 const SEARCH_DELAY_MS = 300;
 
-function Shelf({ designs, initialSearch }: ShelfProps) {
+function Shelf({ boards, initialSearch }: ShelfProps) {
   const hydrated = useHydrated();
   const [query, setQuery] = useState(() => listQueryFromSearch(templateListQuerySchema, initialSearch));
   const [search, setSearch] = useState(query.q);
@@ -236,7 +236,7 @@ function Shelf({ designs, initialSearch }: ShelfProps) {
           Next
         </button>
       </nav>
-      <AddTemplateForm designs={designs} />
+      <AddTemplateForm boards={boards} />
     </div>
   );
 }

@@ -6,7 +6,7 @@
 import { parseRecordId } from '~/lib/http/record-id.ts';
 import { CAN, type SessionUser } from '~/lib/auth/index.server.ts';
 import { requireRole } from '~/lib/http/require-role.ts';
-import { getDesign, type WriteResult } from '~/lib/db/designs.server.ts';
+import { getBoard, type WriteResult } from '~/lib/boards/boards.server.ts';
 import { json, problem, type Checked, type FieldIssue } from '~/lib/http/problem.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
@@ -19,7 +19,7 @@ export function boardNotFound(): Response {
 
 
 /**
- * What every `/api/designs/{id}` route starts with: the role check (Owners and Builders; Clients
+ * What every `/api/boards/{id}` route starts with: the role check (Owners and Builders; Clients
  * get 403, visitors 401), then the board id (bad = 404).
  */
 export function boardTarget(user: SessionUser | null, param: string | undefined): Checked<{ user: SessionUser; id: number }> {
@@ -42,7 +42,7 @@ export async function requestedBoard(
   if (!target.ok) return target;
   const revision = revisionParam === null || revisionParam === undefined ? undefined : parseRecordId(revisionParam);
   if (revision === null) return { ok: false, response: problem(400, 'revision must be a whole number from 1', { field: 'revision' }) };
-  const board = await getDesign(target.value.user.shopId, target.value.id, revision);
+  const board = await getBoard(target.value.user.shopId, target.value.id, revision);
   return board ? { ok: true, value: { user: target.value.user, board, revision } } : { ok: false, response: boardNotFound() };
 }
 

@@ -8,30 +8,30 @@
 import { and, eq, isNull } from 'drizzle-orm';
 import { designFingerprint } from '~/lib/boards/fingerprint.server.ts';
 import type { Db } from './client.server.ts';
-import { refreshApproval, storedJson } from './designs.server.ts';
-import { designRevisions, designs, proofs } from './schema.ts';
+import { refreshApproval, storedJson } from '~/lib/boards/boards.server.ts';
+import { boardRevisions, boards, proofs } from './schema.ts';
 
 export async function backfillFingerprints(db: Db): Promise<number> {
   let filled = 0;
   const revisions = await db
-    .select({ id: designRevisions.id, data: designRevisions.data })
-    .from(designRevisions)
-    .where(isNull(designRevisions.fingerprint));
+    .select({ id: boardRevisions.id, data: boardRevisions.data })
+    .from(boardRevisions)
+    .where(isNull(boardRevisions.fingerprint));
   for (const row of revisions) {
-    await db.update(designRevisions).set({ fingerprint: designFingerprint(storedJson(row.data)) }).where(eq(designRevisions.id, row.id));
+    await db.update(boardRevisions).set({ fingerprint: designFingerprint(storedJson(row.data)) }).where(eq(boardRevisions.id, row.id));
     filled++;
   }
   const heads = await db
-    .select({ id: designs.id, shopId: designs.shopId, data: designs.workingData })
-    .from(designs)
-    .where(isNull(designs.workingFingerprint));
+    .select({ id: boards.id, shopId: boards.shopId, data: boards.workingData })
+    .from(boards)
+    .where(isNull(boards.workingFingerprint));
   for (const head of heads) {
-    await db.update(designs).set({ workingFingerprint: designFingerprint(storedJson(head.data)) }).where(eq(designs.id, head.id));
+    await db.update(boards).set({ workingFingerprint: designFingerprint(storedJson(head.data)) }).where(eq(boards.id, head.id));
   }
   const pinned = await db
-    .select({ id: proofs.id, fingerprint: designRevisions.fingerprint })
+    .select({ id: proofs.id, fingerprint: boardRevisions.fingerprint })
     .from(proofs)
-    .innerJoin(designRevisions, and(eq(designRevisions.designId, proofs.designId), eq(designRevisions.revision, proofs.revision)))
+    .innerJoin(boardRevisions, and(eq(boardRevisions.boardId, proofs.boardId), eq(boardRevisions.revision, proofs.revision)))
     .where(isNull(proofs.fingerprint));
   for (const proof of pinned) await db.update(proofs).set({ fingerprint: proof.fingerprint }).where(eq(proofs.id, proof.id));
   for (const head of heads) await refreshApproval(db, head.shopId, head.id);

@@ -7,7 +7,7 @@
  */
 import { sql } from 'drizzle-orm';
 import { ROLES } from '~/lib/schemas/account.ts';
-import { DESIGN_STATUSES, REVISION_REASONS } from '~/lib/schemas/board.ts';
+import { STORED_BOARD_STATUSES, REVISION_REASONS } from '~/lib/schemas/board.ts';
 import { templateConditionSchema } from '~/lib/schemas/template.ts';
 import {
   bigint,
@@ -104,15 +104,15 @@ export const oneTimeTokens = mysqlTable(
   (t) => [uniqueIndex('tokens_hash_uq').on(t.tokenHash), index('tokens_shop_idx').on(t.shopId, t.kind)],
 );
 
-export { DESIGN_STATUSES, type DesignStatus } from '~/lib/schemas/board.ts';
+export { STORED_BOARD_STATUSES, type StoredBoardStatus } from '~/lib/schemas/board.ts';
 
 /**
  * A board's head row. The working copy (what the editor autosaves) lives here; revisions are the
- * checkpoints in design_revisions. `workingRevision` names the revision the working copy equals
+ * checkpoints in board_revisions. `workingRevision` names the revision the working copy equals
  * exactly (null: it has changes not yet in a revision). Fingerprints are designFingerprint()'s.
  */
-export const designs = mysqlTable(
-  'designs',
+export const boards = mysqlTable(
+  'boards',
   {
     id: idColumn(),
     shopId: shopRef(),
@@ -123,7 +123,7 @@ export const designs = mysqlTable(
     /** Scale lengths copied from the current revision, in mm, so lists can sort by scale. */
     trebleScaleMm: double('treble_scale_mm').notNull(),
     bassScaleMm: double('bass_scale_mm').notNull(),
-    status: mysqlEnum('status', DESIGN_STATUSES).notNull().default('draft'),
+    status: mysqlEnum('status', STORED_BOARD_STATUSES).notNull().default('draft'),
     archivedAt: datetime('archived_at', { mode: 'date', fsp: 3 }),
     /** The newest revision's number (the working copy may be ahead of it). */
     currentRevision: int('current_revision').notNull().default(1),
@@ -142,23 +142,23 @@ export const designs = mysqlTable(
     updatedAt: datetime('updated_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
   },
   (t) => [
-    index('designs_shop_updated_idx').on(t.shopId, t.updatedAt),
-    index('designs_shop_name_idx').on(t.shopId, t.name),
-    index('designs_shop_status_idx').on(t.shopId, t.status, t.updatedAt),
-    index('designs_shop_scale_idx').on(t.shopId, t.trebleScaleMm),
+    index('boards_shop_updated_idx').on(t.shopId, t.updatedAt),
+    index('boards_shop_name_idx').on(t.shopId, t.name),
+    index('boards_shop_status_idx').on(t.shopId, t.status, t.updatedAt),
+    index('boards_shop_scale_idx').on(t.shopId, t.trebleScaleMm),
   ],
 );
 
 export { REVISION_REASONS } from '~/lib/schemas/board.ts';
 
 /** A checkpoint of a board's design; rows are never updated (the start-up backfill sets a missing fingerprint once). */
-export const designRevisions = mysqlTable(
-  'design_revisions',
+export const boardRevisions = mysqlTable(
+  'board_revisions',
   {
     id: idColumn(),
-    designId: bigint('design_id', { mode: 'number', unsigned: true })
+    boardId: bigint('board_id', { mode: 'number', unsigned: true })
       .notNull()
-      .references(() => designs.id, { onDelete: 'cascade' }),
+      .references(() => boards.id, { onDelete: 'cascade' }),
     revision: int('revision').notNull(),
     data: json('data').notNull(),
     note: varchar('note', { length: 500 }).notNull().default(''),
@@ -168,7 +168,7 @@ export const designRevisions = mysqlTable(
     authorId: userRef('author_id').notNull(),
     createdAt: now(),
   },
-  (t) => [uniqueIndex('revisions_design_rev_uq').on(t.designId, t.revision)],
+  (t) => [uniqueIndex('revisions_board_rev_uq').on(t.boardId, t.revision)],
 );
 
 /** A proof pins one revision for a client; the link token is stored only as its SHA-256. */
@@ -177,9 +177,9 @@ export const proofs = mysqlTable(
   {
     id: idColumn(),
     shopId: shopRef(),
-    designId: bigint('design_id', { mode: 'number', unsigned: true })
+    boardId: bigint('board_id', { mode: 'number', unsigned: true })
       .notNull()
-      .references(() => designs.id, { onDelete: 'cascade' }),
+      .references(() => boards.id, { onDelete: 'cascade' }),
     revision: int('revision').notNull(),
     /** The pinned revision's fingerprint, so an approval can be compared with the board as it is now. */
     fingerprint: char('fingerprint', { length: 14 }),
@@ -196,7 +196,7 @@ export const proofs = mysqlTable(
     decidedName: varchar('decided_name', { length: 120 }),
     decisionComment: text('decision_comment'),
   },
-  (t) => [uniqueIndex('proofs_token_uq').on(t.tokenHash), index('proofs_design_idx').on(t.shopId, t.designId)],
+  (t) => [uniqueIndex('proofs_token_uq').on(t.tokenHash), index('proofs_board_idx').on(t.shopId, t.boardId)],
 );
 
 export const TEMPLATE_CONDITIONS = templateConditionSchema.options;
@@ -208,7 +208,7 @@ export const templates = mysqlTable(
     id: idColumn(),
     shopId: shopRef(),
     name: varchar('name', { length: 120 }).notNull(),
-    designId: bigint('design_id', { mode: 'number', unsigned: true }),
+    boardId: bigint('board_id', { mode: 'number', unsigned: true }),
     revision: int('revision'),
     units: mysqlEnum('units', ['mm', 'in']).notNull(),
     trebleScale: double('treble_scale').notNull(),

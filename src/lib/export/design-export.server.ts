@@ -1,6 +1,6 @@
 /**
  * A design's export as the HTTP answer, for POST /api/export and a saved board's
- * GET /api/designs/{id}/export: refused with 422 naming the option to change when it would pass
+ * GET /api/boards/{id}/export: refused with 422 naming the option to change when it would pass
  * a cap (export-cost.ts), 400 naming the option when a G-code option does not suit the design,
  * the PDFs (paper template, cut sheet) built in the worker pool, text formats (a few ms at most)
  * built here.

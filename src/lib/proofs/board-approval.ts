@@ -8,7 +8,7 @@
  *   only colour a board that has no proof of its own.
  * Revoked proofs say nothing. Pure: the database layer feeds it rows and stores what it returns.
  */
-import type { DesignStatus } from '~/lib/schemas/board.ts';
+import type { StoredBoardStatus } from '~/lib/schemas/board.ts';
 
 export interface ProofFact {
   revision: number;
@@ -26,7 +26,7 @@ export interface Approval {
 }
 
 export interface BoardApproval {
-  status: DesignStatus;
+  status: StoredBoardStatus;
   approval: Approval | null;
 }
 

@@ -13,7 +13,7 @@ export interface ClientProofMail {
   to: string;
   clientName: string;
   shopName: string;
-  designName: string;
+  boardName: string;
   revision: number;
   message: string;
   expiresAt: Date;
@@ -24,8 +24,8 @@ export interface ClientProofMail {
 
 export interface BuilderDecisionMail {
   to: string;
-  designName: string;
-  designId: number;
+  boardName: string;
+  boardId: number;
   revision: number;
   clientName: string;
   decision: ProofDecision;
@@ -48,7 +48,7 @@ export function mailClientProof(mail: ClientProofMail): Promise<boolean> {
   return send(mail.to, PROOF_SUBJECTS.toClient, [
     `Hello ${mail.clientName},`,
     '',
-    `${from} has shared the fret layout "${mail.designName}" (revision ${mail.revision}) for your review.`,
+    `${from} has shared the fret layout "${mail.boardName}" (revision ${mail.revision}) for your review.`,
     ...(mail.message ? ['', 'Their message:', ...mail.message.split('\n').map((line) => `  ${line}`)] : []),
     '',
     'Open it here (no account needed):',
@@ -64,12 +64,12 @@ export function mailBuilderDecision(mail: BuilderDecisionMail): Promise<boolean>
   const subject = approved ? PROOF_SUBJECTS.approved : PROOF_SUBJECTS.changesRequested;
   return send(mail.to, subject, [
     approved
-      ? `${mail.decision.name} approved revision ${mail.revision} of "${mail.designName}" on ${momentInZone(new Date(mail.decision.at), mail.timeZone)}.`
-      : `${mail.decision.name} asked for changes to revision ${mail.revision} of "${mail.designName}" on ${momentInZone(new Date(mail.decision.at), mail.timeZone)}.`,
+      ? `${mail.decision.name} approved revision ${mail.revision} of "${mail.boardName}" on ${momentInZone(new Date(mail.decision.at), mail.timeZone)}.`
+      : `${mail.decision.name} asked for changes to revision ${mail.revision} of "${mail.boardName}" on ${momentInZone(new Date(mail.decision.at), mail.timeZone)}.`,
     `The proof was sent to ${mail.clientName}.`,
     ...(mail.decision.comment ? ['', 'Their comment:', ...mail.decision.comment.split('\n').map((line) => `  ${line}`)] : []),
     '',
     'The design\'s proofs and their history:',
-    `${config().appOrigin}/boards/${mail.designId}/proofs`,
+    `${config().appOrigin}/boards/${mail.boardId}/proofs`,
   ]);
 }

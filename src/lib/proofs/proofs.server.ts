@@ -19,8 +19,8 @@ import type {
 } from '~/lib/schemas/proof.ts';
 import { db } from '~/lib/db/client.server.ts';
 import { withRetry } from '~/lib/db/with-retry.server.ts';
-import { checkpointLocked, findRevisionDesign, findShopDesign, lockBoard, refreshApproval, storedJson } from '~/lib/db/designs.server.ts';
-import { designRevisions, designs, proofs, shops, users } from '~/lib/db/schema.ts';
+import { checkpointLocked, findRevisionDesign, findShopBoard, lockBoard, refreshApproval, storedJson } from '~/lib/boards/boards.server.ts';
+import { boardRevisions, boards, proofs, shops, users } from '~/lib/db/schema.ts';
 import { mailBuilderDecision, mailClientProof } from '~/lib/proofs/proof-mails.server.ts';
 
 const DAY_MS = 86_400_000;
@@ -37,7 +37,7 @@ export type ProofLocator = { token: string } | { proofId: number; shopId: number
 /** Everything the proof page shows: one revision of one design, and nothing that leads elsewhere. */
 export interface ProofPage {
   shopName: string;
-  designName: string;
+  boardName: string;
   revision: number;
   /** The pinned revision's fingerprint, as printed on the shop's exports of it. */
   fingerprint: string;
@@ -104,10 +104,10 @@ function locate(locator: ProofLocator): SQL | undefined {
  * working copy has changes not yet in a revision), works out the board's status again and
  * e-mails the client the link. Null when the design is not in the writer's shop.
  */
-export async function createProof(writer: ProofWriter, designId: number, input: CreateProofInput, now: Date): Promise<CreatedProof | null> {
+export async function createProof(writer: ProofWriter, boardId: number, input: CreateProofInput, now: Date): Promise<CreatedProof | null> {
   const token = newToken();
   const created = await db().transaction(async (tx) => {
-    const locked = await lockBoard(tx, writer.shopId, designId);
+    const locked = await lockBoard(tx, writer.shopId, boardId);
     if (!locked) return null;
     const pinned = await checkpointLocked(tx, writer, locked, 'proof', `Sent to ${input.clientName} in a proof`);
     const head = { name: locked.name };
@@ -115,7 +115,7 @@ export async function createProof(writer: ProofWriter, designId: number, input: 
       .insert(proofs)
       .values({
         shopId: writer.shopId,
-        designId,
+        boardId,
         revision: pinned.revision,
         fingerprint: pinned.fingerprint,
         tokenHash: sha256Hex(token),
@@ -127,7 +127,7 @@ export async function createProof(writer: ProofWriter, designId: number, input: 
         createdAt: now,
       })
       .$returningId();
-    await refreshApproval(tx, writer.shopId, designId);
+    await refreshApproval(tx, writer.shopId, boardId);
     const [row] = await tx.select().from(proofs).where(eq(proofs.id, inserted!.id));
     return { head, row: row! };
   });
@@ -138,7 +138,7 @@ export async function createProof(writer: ProofWriter, designId: number, input: 
     to: created.row.clientEmail,
     clientName: created.row.clientName,
     shopName: shop?.name ?? '',
-    designName: created.head.name,
+    boardName: created.head.name,
     revision: created.row.revision,
     message: created.row.message,
     expiresAt: created.row.expiresAt,
@@ -151,18 +151,18 @@ export async function createProof(writer: ProofWriter, designId: number, input: 
 /** The proof page's content, or null for unknown, revoked and expired proofs alike. */
 export async function openProof(locator: ProofLocator, now: Date): Promise<ProofPage | null> {
   const [found] = await db()
-    .select({ proof: proofs, shopName: shops.name, workingFingerprint: designs.workingFingerprint })
+    .select({ proof: proofs, shopName: shops.name, workingFingerprint: boards.workingFingerprint })
     .from(proofs)
-    .innerJoin(designs, eq(designs.id, proofs.designId))
+    .innerJoin(boards, eq(boards.id, proofs.boardId))
     .innerJoin(shops, eq(shops.id, proofs.shopId))
     .where(and(locate(locator), gt(proofs.expiresAt, now)))
     .limit(1);
   if (!found) return null;
-  const design = await findRevisionDesign(db(), found.proof.designId, found.proof.revision);
+  const design = await findRevisionDesign(db(), found.proof.boardId, found.proof.revision);
   if (!design) return null;
   return {
     shopName: found.shopName,
-    designName: design.name,
+    boardName: design.name,
     revision: found.proof.revision,
     fingerprint: found.proof.fingerprint ?? '',
     newerRevisionExists: found.workingFingerprint !== found.proof.fingerprint,
@@ -192,8 +192,8 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
       .set({ decision: input.decision, decidedAt: now, decidedName: input.name, decisionComment: comment })
       .where(and(eq(proofs.id, row.id), isNull(proofs.decision), isNull(proofs.revokedAt), gt(proofs.expiresAt, now)));
     if (result.affectedRows !== 1) return null;
-    await refreshApproval(tx, row.shopId, row.designId);
-    return findShopDesign(tx, row.shopId, row.designId);
+    await refreshApproval(tx, row.shopId, row.boardId);
+    return findShopBoard(tx, row.shopId, row.boardId);
   }));
   if (!recorded) return { ok: false, reason: 'already_decided' };
   const decision: ProofDecision = { kind: input.decision, at: now.toISOString(), name: input.name, comment };
@@ -202,8 +202,8 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
   const mailed = builder
     ? await mailBuilderDecision({
         to: builder.email,
-        designName: recorded.name,
-        designId: row.designId,
+        boardName: recorded.name,
+        boardId: row.boardId,
         revision: row.revision,
         clientName: row.clientName,
         decision,
@@ -227,19 +227,19 @@ export async function revokeProof(shopId: number, proofId: number, now: Date): P
     .where(and(eq(proofs.id, proofId), eq(proofs.shopId, shopId), isNull(proofs.revokedAt), isNull(proofs.decision)));
   const [row] = await db().select().from(proofs).where(and(eq(proofs.id, proofId), eq(proofs.shopId, shopId)));
   if (!row) return { ok: false, reason: 'not_found' };
-  if (row.revokedAt) await refreshApproval(db(), shopId, row.designId);
+  if (row.revokedAt) await refreshApproval(db(), shopId, row.boardId);
   if (row.decision && !row.revokedAt) return { ok: false, reason: 'answered' };
   return { ok: true, proof: toSummary(row, now) };
 }
 
 /** The design's proofs, newest first; null when the design is not in the shop. */
-export async function listDesignProofs(shopId: number, designId: number, now: Date): Promise<ProofSummary[] | null> {
-  const head = await findShopDesign(db(), shopId, designId);
+export async function listDesignProofs(shopId: number, boardId: number, now: Date): Promise<ProofSummary[] | null> {
+  const head = await findShopBoard(db(), shopId, boardId);
   if (!head) return null;
   const rows = await db()
     .select()
     .from(proofs)
-    .where(and(eq(proofs.shopId, shopId), eq(proofs.designId, designId)))
+    .where(and(eq(proofs.shopId, shopId), eq(proofs.boardId, boardId)))
     .orderBy(desc(proofs.createdAt), desc(proofs.id));
   return rows.map((row) => toSummary(row, now));
 }
@@ -254,14 +254,14 @@ function revisionName(data: unknown): string {
 /** Proofs sent to a client's e-mail by the client's own shop, newest first ("Shared with me"). */
 export async function listSharedWith(shopId: number, email: string, now: Date): Promise<SharedProof[]> {
   const rows = await db()
-    .select({ proof: proofs, data: designRevisions.data })
+    .select({ proof: proofs, data: boardRevisions.data })
     .from(proofs)
-    .innerJoin(designRevisions, and(eq(designRevisions.designId, proofs.designId), eq(designRevisions.revision, proofs.revision)))
+    .innerJoin(boardRevisions, and(eq(boardRevisions.boardId, proofs.boardId), eq(boardRevisions.revision, proofs.revision)))
     .where(and(eq(proofs.shopId, shopId), eq(proofs.clientEmail, email.toLowerCase())))
     .orderBy(desc(proofs.createdAt), desc(proofs.id));
   return rows.map(({ proof, data }) => ({
     id: proof.id,
-    designName: revisionName(data),
+    boardName: revisionName(data),
     revision: proof.revision,
     createdAt: proof.createdAt.toISOString(),
     expiresAt: proof.expiresAt.toISOString(),

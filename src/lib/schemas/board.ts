@@ -12,15 +12,15 @@ export type InstrumentType = (typeof INSTRUMENT_TYPES)[number];
  * lib/proofs); the database's enum is made from this list. "changed_since_approval": the client
  * approved a revision and the board no longer matches it.
  */
-export const DESIGN_STATUSES = ['draft', 'shared', 'approved', 'changes_requested', 'changed_since_approval'] as const;
-export type DesignStatus = (typeof DESIGN_STATUSES)[number];
+export const STORED_BOARD_STATUSES = ['draft', 'shared', 'approved', 'changes_requested', 'changed_since_approval'] as const;
+export type StoredBoardStatus = (typeof STORED_BOARD_STATUSES)[number];
 
 /** Why a revision was made: a person saved one, or it was made for a proof, an export, a restore, an import, or it predates checkpoints. */
 export const REVISION_REASONS = ['saved', 'created', 'proof', 'export', 'imported', 'restored', 'autosave'] as const;
 export type RevisionReason = (typeof REVISION_REASONS)[number];
 
 /** What the API shows as a board's status: the stored status, or "archived" once archived. */
-export const BOARD_STATUSES = [...DESIGN_STATUSES, 'archived'] as const;
+export const BOARD_STATUSES = [...STORED_BOARD_STATUSES, 'archived'] as const;
 export type BoardStatus = (typeof BOARD_STATUSES)[number];
 
 /** List filter: one status, "active" (everything not archived, the default) or "all". */
@@ -77,14 +77,14 @@ export const boardRestoreSchema = z
   })
   .strict();
 
-/** POST /api/designs/{id}/revisions: keep the working copy as a revision, with an optional note. */
+/** POST /api/boards/{id}/revisions: keep the working copy as a revision, with an optional note. */
 export const boardSaveRevisionSchema = z.object({ version: version.optional(), note: note.default('') }).strict();
 
 export const boardArchiveSchema = z.object({ archived: z.boolean(), version: version.optional() }).strict();
 
 const pageNumber = z.coerce.number({ message: 'must be a number' }).int({ message: 'must be a whole number' });
 
-/** GET /api/designs query string; also the Boards page's URL state. */
+/** GET /api/boards query string; also the Boards page's URL state. */
 export const boardListQuerySchema = z
   .object({
     q: z.string().trim().max(120).default(''),

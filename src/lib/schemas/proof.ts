@@ -96,7 +96,7 @@ export interface ProofSummary {
   decision: ProofDecision | null;
 }
 
-/** Answer of POST /api/designs/{id}/proofs: the link is shown once, since only its hash is kept. */
+/** Answer of POST /api/boards/{id}/proofs: the link is shown once, since only its hash is kept. */
 export interface CreatedProof {
   proof: ProofSummary;
   link: string;
@@ -107,7 +107,7 @@ export interface CreatedProof {
 /** A proof in a client's "Shared with me" list. */
 export interface SharedProof {
   id: number;
-  designName: string;
+  boardName: string;
   revision: number;
   createdAt: string;
   expiresAt: string;

@@ -113,7 +113,7 @@ const shelfFields = {
 const fromDesignSchema = z
   .object({
     source: z.literal('design'),
-    designId: z.number().int().positive(),
+    boardId: z.number().int().positive(),
     /** Omitted: the design's current revision. */
     revision: z.number().int().positive().optional(),
     ...shelfFields,
@@ -227,8 +227,8 @@ export type TemplateListQuery = z.infer<typeof templateListQuerySchema>;
 export const templateViewSchema = z.object({
   id: z.number(),
   name: z.string(),
-  designId: z.number().nullable(),
-  designName: z.string().nullable(),
+  boardId: z.number().nullable(),
+  boardName: z.string().nullable(),
   revision: z.number().nullable(),
   units: unitsSchema,
   trebleScale: z.number(),

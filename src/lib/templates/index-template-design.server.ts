@@ -1,5 +1,5 @@
 import { db } from '~/lib/db/client.server.ts';
-import { revisionFingerprint } from '~/lib/db/designs.server.ts';
+import { revisionFingerprint } from '~/lib/boards/boards.server.ts';
 import { invalid, problem, zodIssues, type Checked } from '~/lib/http/problem.ts';
 import type { Design } from '~/lib/schemas/design.ts';
 import { FAN_GEOMETRY_LABELS, fanGeometrySchema, type TemplateView } from '~/lib/schemas/template.ts';
@@ -16,7 +16,7 @@ const FAN_FIELDS = Object.keys(FAN_GEOMETRY_LABELS) as (keyof typeof FAN_GEOMETR
  */
 export async function indexTemplateDesign(shopId: number, template: TemplateView, url: URL): Promise<Checked<{ design: Design; revision: number | null }>> {
   const reference = await templateDesign(db(), shopId, template);
-  if (!reference) return { ok: false, response: problem(409, "This template's design could not be read", { field: 'designId' }) };
+  if (!reference) return { ok: false, response: problem(409, "This template's design could not be read", { field: 'boardId' }) };
   if (!reference.standIn) return { ok: true, value: { design: reference.design, revision: template.revision } };
   if (template.trebleScale === template.bassScale) return { ok: true, value: { design: reference.design, revision: null } };
 
@@ -40,6 +40,6 @@ export async function indexTemplateDesign(shopId: number, template: TemplateView
 
 /** The fingerprint of the board revision the template was made from; null for typed scale lengths. */
 export function templateFingerprint(shopId: number, template: TemplateView): Promise<string | null> {
-  if (template.designId === null || template.revision === null) return Promise.resolve(null);
-  return revisionFingerprint(shopId, template.designId, template.revision);
+  if (template.boardId === null || template.revision === null) return Promise.resolve(null);
+  return revisionFingerprint(shopId, template.boardId, template.revision);
 }

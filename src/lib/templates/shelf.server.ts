@@ -5,7 +5,7 @@
 import { and, asc, count, desc, eq, isNull, like, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '~/lib/db/client.server.ts';
 import { MM_PER_INCH } from '~/lib/format/units.ts';
-import { designRevisions, designs, templateChecks, templates } from '~/lib/db/schema.ts';
+import { boardRevisions, boards, templateChecks, templates } from '~/lib/db/schema.ts';
 import type { CheckResult } from '~/lib/templates/check/compare.ts';
 import { runCheck } from '~/lib/templates/check/run-check.ts';
 import { readSavedResult } from '~/lib/templates/check/saved-result.ts';
@@ -29,15 +29,15 @@ const notFound = (message: string, field?: string): { ok: false; error: ShelfErr
   error: { kind: 'not_found', message, ...(field ? { field } : {}) },
 });
 
-const viewColumns = { template: templates, designName: designs.name };
+const viewColumns = { template: templates, boardName: boards.name };
 
-function toView(row: { template: TemplateRow; designName: string | null }): TemplateView {
+function toView(row: { template: TemplateRow; boardName: string | null }): TemplateView {
   const t = row.template;
   return {
     id: t.id,
     name: t.name,
-    designId: t.designId,
-    designName: row.designName,
+    boardId: t.boardId,
+    boardName: row.boardName,
     revision: t.revision,
     units: t.units,
     trebleScale: t.trebleScale,
@@ -85,7 +85,7 @@ export async function listTemplates(db: Db, shopId: number, query: TemplateListQ
         like(templates.material, pattern),
         like(templates.storagePlace, pattern),
         like(templates.notes, pattern),
-        like(designs.name, pattern),
+        like(boards.name, pattern),
       )!,
     );
   }
@@ -95,7 +95,7 @@ export async function listTemplates(db: Db, shopId: number, query: TemplateListQ
     db
       .select(viewColumns)
       .from(templates)
-      .leftJoin(designs, and(eq(designs.id, templates.designId), eq(designs.shopId, templates.shopId)))
+      .leftJoin(boards, and(eq(boards.id, templates.boardId), eq(boards.shopId, templates.shopId)))
       .where(where)
       .orderBy(order(SORT_COLUMNS[query.sort]), order(templates.id))
       .limit(query.pageSize)
@@ -103,7 +103,7 @@ export async function listTemplates(db: Db, shopId: number, query: TemplateListQ
     db
       .select({ n: count() })
       .from(templates)
-      .leftJoin(designs, and(eq(designs.id, templates.designId), eq(designs.shopId, templates.shopId)))
+      .leftJoin(boards, and(eq(boards.id, templates.boardId), eq(boards.shopId, templates.shopId)))
       .where(where),
   ]);
   return { items: rows.map(toView), total: total?.n ?? 0, page: query.page, pageSize: query.pageSize };
@@ -113,19 +113,19 @@ export async function getTemplate(db: Conn, shopId: number, id: number): Promise
   const [row] = await db
     .select(viewColumns)
     .from(templates)
-    .leftJoin(designs, and(eq(designs.id, templates.designId), eq(designs.shopId, templates.shopId)))
+    .leftJoin(boards, and(eq(boards.id, templates.boardId), eq(boards.shopId, templates.shopId)))
     .where(and(eq(templates.shopId, shopId), eq(templates.id, id)))
     .limit(1);
   return row ? toView(row) : null;
 }
 
-/** The shop's templates made from `designId` (any revision), newest first. */
-export async function listTemplatesMadeFrom(db: Db, shopId: number, designId: number): Promise<TemplateView[]> {
+/** The shop's templates made from `boardId` (any revision), newest first. */
+export async function listTemplatesMadeFrom(db: Db, shopId: number, boardId: number): Promise<TemplateView[]> {
   const rows = await db
     .select(viewColumns)
     .from(templates)
-    .leftJoin(designs, and(eq(designs.id, templates.designId), eq(designs.shopId, templates.shopId)))
-    .where(and(eq(templates.shopId, shopId), eq(templates.designId, designId)))
+    .leftJoin(boards, and(eq(boards.id, templates.boardId), eq(boards.shopId, templates.shopId)))
+    .where(and(eq(templates.shopId, shopId), eq(templates.boardId, boardId)))
     .orderBy(desc(templates.updatedAt), desc(templates.id))
     .limit(50);
   return rows.map(toView);
@@ -135,34 +135,34 @@ export async function listTemplatesMadeFrom(db: Db, shopId: number, designId: nu
 export async function loadDesignRevision(
   db: Conn,
   shopId: number,
-  designId: number,
+  boardId: number,
   revision?: number,
-): Promise<{ design: Design; designId: number; revision: number; name: string } | null> {
+): Promise<{ design: Design; boardId: number; revision: number; name: string } | null> {
   const [head] = await db
-    .select({ id: designs.id, name: designs.name, currentRevision: designs.currentRevision })
-    .from(designs)
-    .where(and(eq(designs.shopId, shopId), eq(designs.id, designId)))
+    .select({ id: boards.id, name: boards.name, currentRevision: boards.currentRevision })
+    .from(boards)
+    .where(and(eq(boards.shopId, shopId), eq(boards.id, boardId)))
     .limit(1);
   if (!head) return null;
   const wanted = revision ?? head.currentRevision;
   const [row] = await db
-    .select({ data: designRevisions.data })
-    .from(designRevisions)
-    .where(and(eq(designRevisions.designId, head.id), eq(designRevisions.revision, wanted)))
+    .select({ data: boardRevisions.data })
+    .from(boardRevisions)
+    .where(and(eq(boardRevisions.boardId, head.id), eq(boardRevisions.revision, wanted)))
     .limit(1);
   if (!row) return null;
   const validation = validateDesign(row.data);
   if (!validation.ok) return null;
-  return { design: validation.design, designId: head.id, revision: wanted, name: head.name };
+  return { design: validation.design, boardId: head.id, revision: wanted, name: head.name };
 }
 
-/** The shop's designs a template can be made from (newest first). */
-export async function listDesignChoices(db: Db, shopId: number): Promise<{ id: number; name: string; revision: number; units: 'mm' | 'in' }[]> {
+/** The shop's boards a template can be made from (newest first). */
+export async function listBoardChoices(db: Db, shopId: number): Promise<{ id: number; name: string; revision: number; units: 'mm' | 'in' }[]> {
   const rows = await db
-    .select({ id: designs.id, name: designs.name, revision: designs.currentRevision, units: designs.units })
-    .from(designs)
-    .where(and(eq(designs.shopId, shopId), sql`${designs.archivedAt} IS NULL`))
-    .orderBy(desc(designs.updatedAt))
+    .select({ id: boards.id, name: boards.name, revision: boards.currentRevision, units: boards.units })
+    .from(boards)
+    .where(and(eq(boards.shopId, shopId), sql`${boards.archivedAt} IS NULL`))
+    .orderBy(desc(boards.updatedAt))
     .limit(200);
   return rows;
 }
@@ -178,14 +178,14 @@ export async function createTemplate(db: Conn, shopId: number, input: TemplateCr
   };
   let values: typeof templates.$inferInsert;
   if (input.source === 'design') {
-    const found = await loadDesignRevision(db, shopId, input.designId, input.revision);
-    if (!found) return notFound(input.revision ? 'No such design revision in this shop' : 'No such design in this shop', input.revision ? 'revision' : 'designId');
+    const found = await loadDesignRevision(db, shopId, input.boardId, input.revision);
+    if (!found) return notFound(input.revision ? 'No such design revision in this shop' : 'No such design in this shop', input.revision ? 'revision' : 'boardId');
     const { design } = found;
     values = {
       ...shelf,
       shopId,
       name: input.name ?? found.name,
-      designId: found.designId,
+      boardId: found.boardId,
       revision: found.revision,
       units: design.units,
       trebleScale: design.scale.treble,
@@ -265,8 +265,8 @@ export async function retireTemplate(db: Db, shopId: number, id: number): Promis
 
 /** The design a template is checked against (its revision, or a stand-in from typed scales). */
 export async function templateDesign(db: Conn, shopId: number, template: TemplateView): Promise<{ design: Design; standIn: boolean } | null> {
-  if (template.designId !== null && template.revision !== null) {
-    const found = await loadDesignRevision(db, shopId, template.designId, template.revision);
+  if (template.boardId !== null && template.revision !== null) {
+    const found = await loadDesignRevision(db, shopId, template.boardId, template.revision);
     if (found) return { design: found.design, standIn: false };
   }
   const design = standInDesign(template);

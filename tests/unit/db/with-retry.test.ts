@@ -77,11 +77,11 @@ describe('withRetry', () => {
 describe('isReadStatement: the statements run again after a lost connection', () => {
   it.each([
     ['select 1', true],
-    [{ sql: '  SELECT `id` from `designs`' }, true],
+    [{ sql: '  SELECT `id` from `boards`' }, true],
     ['(select 1) union (select 2)', true],
     ["SHOW GLOBAL STATUS LIKE 'wsrep_ready'", true],
     ['insert into `sessions` values (1)', false],
-    [{ sql: 'update `designs` set `version` = 2' }, false],
+    [{ sql: 'update `boards` set `version` = 2' }, false],
     ['selectivity', false],
     [undefined, false],
   ])('%j: %s', (statement, read) => {

@@ -9,8 +9,8 @@ describe('route budgets: which requests count', () => {
       ['POST', '/api/layout', 'layout', 'src/pages/api/layout.ts'],
       ['POST', '/api/scala', 'scala', 'src/pages/api/scala.ts'],
       ['POST', '/api/export', 'export', 'src/pages/api/export.ts'],
-      ['GET', '/api/designs/12/export', 'board-export', 'src/pages/api/designs/[id]/export.ts'],
-      ['GET', '/api/designs/12/thumbnail.svg', 'thumbnail', 'src/pages/api/designs/[id]/thumbnail.svg.ts'],
+      ['GET', '/api/boards/12/export', 'board-export', 'src/pages/api/boards/[id]/export.ts'],
+      ['GET', '/api/boards/12/thumbnail.svg', 'thumbnail', 'src/pages/api/boards/[id]/thumbnail.svg.ts'],
       ['GET', '/api/templates/3/label', 'template-label', 'src/pages/api/templates/[id]/label.ts'],
       ['GET', '/api/templates/3/index-template', 'index-template', 'src/pages/api/templates/[id]/index-template.ts'],
       ['GET', '/p/AAAAAAAAAAAAAAAAAAAAAA', 'proof-page', 'src/pages/p/[token].astro'],
@@ -28,20 +28,20 @@ describe('route budgets: which requests count', () => {
     expect(limitedRouteFor('POST', '/api/layout/')?.budget).toBe('layout');
     expect(limitedRouteFor('POST', '/api/%6Cayout')?.budget).toBe('layout');
     expect(limitedRouteFor('post', '/api/layout')?.budget).toBe('layout');
-    expect(limitedRouteFor('HEAD', '/api/designs/1/export')?.budget).toBe('board-export');
+    expect(limitedRouteFor('HEAD', '/api/boards/1/export')?.budget).toBe('board-export');
   });
 
   it('leaves other routes and methods alone', () => {
     expect(limitedRouteFor('GET', '/api/layout')).toBeNull();
     expect(limitedRouteFor('GET', '/api/version')).toBeNull();
-    expect(limitedRouteFor('POST', '/api/designs/1/proofs')).toBeNull();
-    expect(limitedRouteFor('GET', '/api/designs/1/export/extra')).toBeNull();
+    expect(limitedRouteFor('POST', '/api/boards/1/proofs')).toBeNull();
+    expect(limitedRouteFor('GET', '/api/boards/1/export/extra')).toBeNull();
     expect(limitedRouteFor('GET', '/api/%E0%A4%A')).toBeNull();
   });
 
   it('routes that work without MariaDB keep counting per process while it is down; the proof page keeps its headers', () => {
     expect(limitedRouteFor('POST', '/api/layout')?.needsDatabase).toBe(false);
-    expect(limitedRouteFor('GET', '/api/designs/1/export')?.needsDatabase).toBe(true);
+    expect(limitedRouteFor('GET', '/api/boards/1/export')?.needsDatabase).toBe(true);
     expect(limitedRouteFor('GET', '/p/x')?.headers?.['referrer-policy']).toBe('no-referrer');
   });
 });

@@ -7,8 +7,8 @@
 import { and, eq } from 'drizzle-orm';
 import { newToken, sha256Hex } from '~/lib/auth/tokens.server.ts';
 import type { Db } from '~/lib/db/client.server.ts';
-import { checkpointLocked, createDesign, lockBoard, refreshApproval, updateDesign } from '~/lib/db/designs.server.ts';
-import { designs, proofs } from '~/lib/db/schema.ts';
+import { checkpointLocked, createBoard, lockBoard, refreshApproval, updateBoard } from '~/lib/boards/boards.server.ts';
+import { boards, proofs } from '~/lib/db/schema.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { InstrumentType } from '~/lib/schemas/board.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
@@ -59,12 +59,12 @@ export const seedDemoBoards: SeedStep = async ({ db, shopId, people }) => {
   for (const { id: key, design } of DEMO_DESIGNS) {
     const board = BOARDS[key];
     if (!board) continue;
-    const [existing] = await db.select({ id: designs.id }).from(designs).where(and(eq(designs.shopId, shopId), eq(designs.name, design.name))).limit(1);
+    const [existing] = await db.select({ id: boards.id }).from(boards).where(and(eq(boards.shopId, shopId), eq(boards.name, design.name))).limit(1);
     if (existing) continue;
     const [first, ...later] = history(design);
-    let saved = await createDesign(owner, { design: first!.design, instrumentType: board.instrumentType, clientName: board.clientName, note: first!.note });
+    let saved = await createBoard(owner, { design: first!.design, instrumentType: board.instrumentType, clientName: board.clientName, note: first!.note });
     for (const step of later) {
-      const result = await updateDesign(builder, saved.id, { version: saved.version, design: step.design, note: step.note, saveRevision: true });
+      const result = await updateBoard(builder, saved.id, { version: saved.version, design: step.design, note: step.note, saveRevision: true });
       if (!result.ok) throw new Error(`could not seed a revision of ${design.name}: ${result.reason}`);
       saved = result.value;
     }
@@ -73,15 +73,15 @@ export const seedDemoBoards: SeedStep = async ({ db, shopId, people }) => {
 };
 
 /** A proof of the board's newest revision, already answered by the client (demo data). */
-async function seedAnsweredProof(db: Db, shopId: number, designId: number, builderId: string, clientName: string, answer: DemoAnswer): Promise<void> {
+async function seedAnsweredProof(db: Db, shopId: number, boardId: number, builderId: string, clientName: string, answer: DemoAnswer): Promise<void> {
   await db.transaction(async (tx) => {
-    const head = await lockBoard(tx, shopId, designId);
+    const head = await lockBoard(tx, shopId, boardId);
     if (!head) return;
     const pinned = await checkpointLocked(tx, { id: builderId, shopId }, head, 'proof', `Sent to ${clientName} in a proof`);
     const decidedAt = new Date();
     await tx.insert(proofs).values({
       shopId,
-      designId,
+      boardId,
       revision: pinned.revision,
       fingerprint: pinned.fingerprint,
       tokenHash: sha256Hex(newToken()),
@@ -95,6 +95,6 @@ async function seedAnsweredProof(db: Db, shopId: number, designId: number, build
       decidedName: clientName,
       decisionComment: answer === 'changes_requested' ? 'Could the side dots be a little smaller?' : '',
     });
-    await refreshApproval(tx, shopId, designId);
+    await refreshApproval(tx, shopId, boardId);
   });
 }

@@ -6,8 +6,8 @@
  */
 import { and, eq, like } from 'drizzle-orm';
 import { newToken, sha256Hex } from '~/lib/auth/tokens.server.ts';
-import { refreshApproval } from '~/lib/db/designs.server.ts';
-import { designs, proofs } from '~/lib/db/schema.ts';
+import { refreshApproval } from '~/lib/boards/boards.server.ts';
+import { boards, proofs } from '~/lib/db/schema.ts';
 import type { SeedStep } from './demo-shop.server.ts';
 
 const DEMO_CLIENT = { email: 'client@wrenfield.example', name: 'Ines Calloway' };
@@ -16,22 +16,22 @@ const DEMO_PROOF_DAYS = 365;
 
 export const seedDemoProof: SeedStep = async ({ db, shopId, people }) => {
   const [design] = await db
-    .select({ id: designs.id, currentRevision: designs.currentRevision, fingerprint: designs.workingFingerprint })
-    .from(designs)
-    .where(and(eq(designs.shopId, shopId), like(designs.name, '%Seven-string%')))
+    .select({ id: boards.id, currentRevision: boards.currentRevision, fingerprint: boards.workingFingerprint })
+    .from(boards)
+    .where(and(eq(boards.shopId, shopId), like(boards.name, '%Seven-string%')))
     .limit(1);
   const builderId = people.get(DEMO_BUILDER_EMAIL);
   if (!design || !builderId) return;
   const [existing] = await db
     .select({ id: proofs.id })
     .from(proofs)
-    .where(and(eq(proofs.designId, design.id), eq(proofs.clientEmail, DEMO_CLIENT.email)))
+    .where(and(eq(proofs.boardId, design.id), eq(proofs.clientEmail, DEMO_CLIENT.email)))
     .limit(1);
   if (existing) return;
   await db.transaction(async (tx) => {
     await tx.insert(proofs).values({
       shopId,
-      designId: design.id,
+      boardId: design.id,
       revision: design.currentRevision,
       fingerprint: design.fingerprint,
       tokenHash: sha256Hex(newToken()),

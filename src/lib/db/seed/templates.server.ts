@@ -6,7 +6,7 @@
  */
 import { and, desc, eq } from 'drizzle-orm';
 import type { SeedContext } from './demo-shop.server.ts';
-import { designs, templateChecks, templates } from '~/lib/db/schema.ts';
+import { boards, templateChecks, templates } from '~/lib/db/schema.ts';
 import { createTemplate, getTemplate, saveCheck } from '~/lib/templates/shelf.server.ts';
 import { equalRemainingFraction } from '~/lib/geometry/temperament.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
@@ -99,14 +99,14 @@ export async function seedDemoTemplates({ db, shopId, people }: SeedContext): Pr
     const presetName = DEMO_DESIGNS.find((d) => d.id === demo.designPreset)?.design.name;
     const [design] = presetName
       ? await db
-          .select({ id: designs.id })
-          .from(designs)
-          .where(and(eq(designs.shopId, shopId), eq(designs.name, presetName)))
-          .orderBy(desc(designs.updatedAt))
+          .select({ id: boards.id })
+          .from(boards)
+          .where(and(eq(boards.shopId, shopId), eq(boards.name, presetName)))
+          .orderBy(desc(boards.updatedAt))
           .limit(1)
       : [];
     const { name, keyWidth, slotWidth, material, storagePlace, condition, madeOn, notes } = demo.typed;
-    const fromDesign = { source: 'design' as const, designId: design?.id ?? 0, name, keyWidth, slotWidth, material, storagePlace, condition, madeOn, notes };
+    const fromDesign = { source: 'design' as const, boardId: design?.id ?? 0, name, keyWidth, slotWidth, material, storagePlace, condition, madeOn, notes };
     const created = design ? await createTemplate(db, shopId, fromDesign) : { ok: false as const };
     const made = created.ok ? created : await createTemplate(db, shopId, demo.typed);
     if (!made.ok) continue;

@@ -6,7 +6,7 @@ import { computeLayout } from '~/lib/geometry/layout.ts';
 export const prerender = false;
 
 /**
- * GET /api/designs/{id}/thumbnail.svg?revision=N: a small drawing of the board for the list.
+ * GET /api/boards/{id}/thumbnail.svg?revision=N: a small drawing of the board for the list.
  * Like every answer with shop data it is not cached (the middleware sends no-store).
  */
 export const GET: APIRoute = async ({ locals, params, url }) => {

@@ -1,5 +1,5 @@
 /**
- * Saved designs (Boards) and their revisions: the one module that reads and writes them (Boards,
+ * Saved boards (Boards) and their revisions: the one module that reads and writes them (Boards,
  * the editor's page and proofs all come here). Every query is scoped by shop: a design of another
  * shop is simply not found. Every write runs in one transaction, so a failure half-way leaves the
  * previous revision and the head row as they were. Revision rows are only ever inserted.
@@ -26,9 +26,9 @@ import { DESIGN_LIMITS, validateDesign, type Design } from '~/lib/schemas/design
 import { canonicalJson, designFingerprint } from '~/lib/boards/fingerprint.server.ts';
 import { boardApproval, type Approval } from '~/lib/proofs/board-approval.ts';
 import type { RevisionReason } from '~/lib/schemas/board.ts';
-import { db, type Db } from './client.server.ts';
-import { designRevisions, designs, proofs, users } from './schema.ts';
-import { withRetry } from './with-retry.server.ts';
+import { db, type Db } from '~/lib/db/client.server.ts';
+import { boardRevisions, boards, proofs, users } from '~/lib/db/schema.ts';
+import { withRetry } from '~/lib/db/with-retry.server.ts';
 
 /** Who writes: the signed-in user's id and shop. */
 export interface Writer {
@@ -45,27 +45,27 @@ export type WriteResult<T> =
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 /** The pool, or an open transaction of another module (proofs write their own rows beside these). */
-export type DesignReader = Db | Tx;
-type Head = typeof designs.$inferSelect;
+export type BoardReader = Db | Tx;
+type Head = typeof boards.$inferSelect;
 
 const summaryColumns = {
-  id: designs.id,
-  name: designs.name,
-  instrumentType: designs.instrumentType,
-  clientName: designs.clientName,
-  units: designs.units,
-  status: designs.status,
-  archivedAt: designs.archivedAt,
-  trebleScaleMm: designs.trebleScaleMm,
-  bassScaleMm: designs.bassScaleMm,
-  currentRevision: designs.currentRevision,
-  workingRevision: designs.workingRevision,
-  workingFingerprint: designs.workingFingerprint,
-  approvedRevision: designs.approvedRevision,
-  approvedFingerprint: designs.approvedFingerprint,
-  version: designs.version,
-  updatedAt: designs.updatedAt,
-  createdAt: designs.createdAt,
+  id: boards.id,
+  name: boards.name,
+  instrumentType: boards.instrumentType,
+  clientName: boards.clientName,
+  units: boards.units,
+  status: boards.status,
+  archivedAt: boards.archivedAt,
+  trebleScaleMm: boards.trebleScaleMm,
+  bassScaleMm: boards.bassScaleMm,
+  currentRevision: boards.currentRevision,
+  workingRevision: boards.workingRevision,
+  workingFingerprint: boards.workingFingerprint,
+  approvedRevision: boards.approvedRevision,
+  approvedFingerprint: boards.approvedFingerprint,
+  version: boards.version,
+  updatedAt: boards.updatedAt,
+  createdAt: boards.createdAt,
 };
 
 type SummaryRow = Pick<Head, keyof typeof summaryColumns>;
@@ -125,16 +125,16 @@ function containsPattern(text: string): string {
 }
 
 function listConditions(shopId: number, query: BoardListQuery): SQL | undefined {
-  const conditions: (SQL | undefined)[] = [eq(designs.shopId, shopId)];
+  const conditions: (SQL | undefined)[] = [eq(boards.shopId, shopId)];
   if (query.q) {
     const pattern = containsPattern(query.q);
-    conditions.push(or(like(designs.name, pattern), like(designs.clientName, pattern)));
+    conditions.push(or(like(boards.name, pattern), like(boards.clientName, pattern)));
   }
-  if (query.status === 'active') conditions.push(isNull(designs.archivedAt));
-  else if (query.status === 'archived') conditions.push(isNotNull(designs.archivedAt));
-  else if (query.status !== 'all') conditions.push(isNull(designs.archivedAt), eq(designs.status, query.status));
-  if (query.instrument) conditions.push(eq(designs.instrumentType, query.instrument));
-  if (query.units) conditions.push(eq(designs.units, query.units));
+  if (query.status === 'active') conditions.push(isNull(boards.archivedAt));
+  else if (query.status === 'archived') conditions.push(isNotNull(boards.archivedAt));
+  else if (query.status !== 'all') conditions.push(isNull(boards.archivedAt), eq(boards.status, query.status));
+  if (query.instrument) conditions.push(eq(boards.instrumentType, query.instrument));
+  if (query.units) conditions.push(eq(boards.units, query.units));
   return and(...conditions);
 }
 
@@ -142,26 +142,26 @@ function listOrder(query: BoardListQuery): SQL[] {
   const by = (query.dir ?? defaultDirection(query.sort)) === 'asc' ? asc : desc;
   switch (query.sort) {
     case 'name':
-      return [by(designs.name), by(designs.id)];
+      return [by(boards.name), by(boards.id)];
     case 'scale':
-      return [by(designs.trebleScaleMm), by(designs.bassScaleMm), by(designs.id)];
+      return [by(boards.trebleScaleMm), by(boards.bassScaleMm), by(boards.id)];
     case 'updated':
-      return [by(designs.updatedAt), by(designs.id)];
+      return [by(boards.updatedAt), by(boards.id)];
   }
 }
 
 /** One page of the shop's boards, with the total matching the filters. */
-export async function listDesigns(shopId: number, query: BoardListQuery): Promise<BoardList> {
+export async function listBoards(shopId: number, query: BoardListQuery): Promise<BoardList> {
   const where = listConditions(shopId, query);
   const [rows, totals] = await Promise.all([
     db()
       .select(summaryColumns)
-      .from(designs)
+      .from(boards)
       .where(where)
       .orderBy(...listOrder(query))
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize),
-    db().select({ n: sql<number>`count(*)` }).from(designs).where(where),
+    db().select({ n: sql<number>`count(*)` }).from(boards).where(where),
   ]);
   return { items: rows.map(toSummary), total: Number(totals[0]?.n ?? 0), page: query.page, pageSize: query.pageSize };
 }
@@ -169,18 +169,18 @@ export async function listDesigns(shopId: number, query: BoardListQuery): Promis
 async function readDetail(handle: Db | Tx, shopId: number, id: number, revision?: number): Promise<BoardDetail | null> {
   if (revision === undefined) {
     const [row] = await handle
-      .select({ ...summaryColumns, data: designs.workingData })
-      .from(designs)
-      .where(and(eq(designs.id, id), eq(designs.shopId, shopId)))
+      .select({ ...summaryColumns, data: boards.workingData })
+      .from(boards)
+      .where(and(eq(boards.id, id), eq(boards.shopId, shopId)))
       .limit(1);
     if (!row) return null;
     return { ...toSummary(row), revision: row.workingRevision, design: storedJson(row.data) };
   }
   const [row] = await handle
-    .select({ ...summaryColumns, revision: designRevisions.revision, data: designRevisions.data, fingerprint: designRevisions.fingerprint })
-    .from(designs)
-    .innerJoin(designRevisions, eq(designRevisions.designId, designs.id))
-    .where(and(eq(designs.id, id), eq(designs.shopId, shopId), eq(designRevisions.revision, revision)))
+    .select({ ...summaryColumns, revision: boardRevisions.revision, data: boardRevisions.data, fingerprint: boardRevisions.fingerprint })
+    .from(boards)
+    .innerJoin(boardRevisions, eq(boardRevisions.boardId, boards.id))
+    .where(and(eq(boards.id, id), eq(boards.shopId, shopId), eq(boardRevisions.revision, revision)))
     .limit(1);
   if (!row) return null;
   return { ...toSummary(row), revision: row.revision, fingerprint: row.fingerprint ?? '', design: storedJson(row.data) };
@@ -190,13 +190,13 @@ async function readDetail(handle: Db | Tx, shopId: number, id: number, revision?
  * A board with its working copy (`revision` is the revision it equals, null when it has changes
  * not yet in one), or the given revision's design; null when the shop has no such board or revision.
  */
-export function getDesign(shopId: number, id: number, revision?: number): Promise<BoardDetail | null> {
+export function getBoard(shopId: number, id: number, revision?: number): Promise<BoardDetail | null> {
   return readDetail(db(), shopId, id, revision);
 }
 
 /** True when the shop has a board with this id (to tell a missing board from a missing revision). */
-export async function designExists(shopId: number, id: number): Promise<boolean> {
-  const [row] = await db().select({ id: designs.id }).from(designs).where(and(eq(designs.id, id), eq(designs.shopId, shopId))).limit(1);
+export async function boardExists(shopId: number, id: number): Promise<boolean> {
+  const [row] = await db().select({ id: boards.id }).from(boards).where(and(eq(boards.id, id), eq(boards.shopId, shopId))).limit(1);
   return !!row;
 }
 
@@ -210,7 +210,7 @@ export interface NewBoard {
 async function insertBoard(tx: Tx, writer: Writer, board: NewBoard, reason: RevisionReason): Promise<number> {
   const working = workingFields(board.design, 1);
   const [head] = await tx
-    .insert(designs)
+    .insert(boards)
     .values({
       shopId: writer.shopId,
       ...working,
@@ -221,8 +221,8 @@ async function insertBoard(tx: Tx, writer: Writer, board: NewBoard, reason: Revi
     })
     .$returningId();
   const id = head!.id;
-  await tx.insert(designRevisions).values({
-    designId: id,
+  await tx.insert(boardRevisions).values({
+    boardId: id,
     revision: 1,
     data: board.design,
     note: board.note,
@@ -234,7 +234,7 @@ async function insertBoard(tx: Tx, writer: Writer, board: NewBoard, reason: Revi
 }
 
 /** Saves a new board with its first revision (`reason` says whether it was made here or imported). */
-export async function createDesign(writer: Writer, board: NewBoard, reason: RevisionReason = 'created'): Promise<BoardDetail> {
+export async function createBoard(writer: Writer, board: NewBoard, reason: RevisionReason = 'created'): Promise<BoardDetail> {
   return db().transaction(async (tx) => {
     const id = await insertBoard(tx, writer, board, reason);
     return (await readDetail(tx, writer.shopId, id))!;
@@ -251,8 +251,8 @@ interface Locked {
 async function lockHead(tx: Tx, shopId: number, id: number): Promise<Locked | undefined> {
   const [head] = await tx
     .select()
-    .from(designs)
-    .where(and(eq(designs.id, id), eq(designs.shopId, shopId)))
+    .from(boards)
+    .where(and(eq(boards.id, id), eq(boards.shopId, shopId)))
     .for('update');
   return head ? { head, design: storedJson(head.workingData) } : undefined;
 }
@@ -264,8 +264,8 @@ function detailOf(head: Head): BoardDetail {
 /** Inserts the next revision holding `design`; returns its number. */
 async function appendRevision(tx: Tx, writer: Writer, head: Head, design: unknown, note: string, reason: RevisionReason): Promise<number> {
   const revision = head.currentRevision + 1;
-  await tx.insert(designRevisions).values({
-    designId: head.id,
+  await tx.insert(boardRevisions).values({
+    boardId: head.id,
     revision,
     data: design,
     note,
@@ -276,11 +276,11 @@ async function appendRevision(tx: Tx, writer: Writer, head: Head, design: unknow
   return revision;
 }
 
-async function revisionData(tx: Tx, designId: number, revision: number): Promise<unknown> {
+async function revisionData(tx: Tx, boardId: number, revision: number): Promise<unknown> {
   const [row] = await tx
-    .select({ data: designRevisions.data })
-    .from(designRevisions)
-    .where(and(eq(designRevisions.designId, designId), eq(designRevisions.revision, revision)))
+    .select({ data: boardRevisions.data })
+    .from(boardRevisions)
+    .where(and(eq(boardRevisions.boardId, boardId), eq(boardRevisions.revision, revision)))
     .limit(1);
   return row ? storedJson(row.data) : undefined;
 }
@@ -300,7 +300,7 @@ export async function checkpointLocked(
   const fingerprint = head.workingFingerprint ?? designFingerprint(storedJson(head.workingData));
   if (head.workingRevision !== null) return { revision: head.workingRevision, fingerprint, head };
   const revision = await appendRevision(tx, writer, head, storedJson(head.workingData), note, reason);
-  await tx.update(designs).set({ currentRevision: revision, workingRevision: revision }).where(eq(designs.id, head.id));
+  await tx.update(boards).set({ currentRevision: revision, workingRevision: revision }).where(eq(boards.id, head.id));
   return { revision, fingerprint, head: { ...head, currentRevision: revision, workingRevision: revision } };
 }
 
@@ -314,11 +314,11 @@ export function lockBoard(tx: Tx, shopId: number, id: number): Promise<Head | un
  * and stores them (the version is left alone: a client's answer is not an edit). Run after every
  * change to either.
  */
-export async function refreshApproval(tx: DesignReader, shopId: number, designId: number): Promise<void> {
+export async function refreshApproval(tx: BoardReader, shopId: number, boardId: number): Promise<void> {
   const [head] = await tx
-    .select({ workingFingerprint: designs.workingFingerprint })
-    .from(designs)
-    .where(and(eq(designs.id, designId), eq(designs.shopId, shopId)));
+    .select({ workingFingerprint: boards.workingFingerprint })
+    .from(boards)
+    .where(and(eq(boards.id, boardId), eq(boards.shopId, shopId)));
   if (!head?.workingFingerprint) return;
   const rows = await tx
     .select({
@@ -330,13 +330,13 @@ export async function refreshApproval(tx: DesignReader, shopId: number, designId
       revokedAt: proofs.revokedAt,
     })
     .from(proofs)
-    .where(and(eq(proofs.shopId, shopId), eq(proofs.designId, designId)));
+    .where(and(eq(proofs.shopId, shopId), eq(proofs.boardId, boardId)));
   const facts = rows.map((r) => ({ ...r, fingerprint: r.fingerprint ?? '', revoked: r.revokedAt !== null }));
   const { status, approval } = boardApproval(facts, head.workingFingerprint);
   await tx
-    .update(designs)
+    .update(boards)
     .set({ status, approvedRevision: approval?.revision ?? null, approvedFingerprint: approval?.fingerprint ?? null })
-    .where(eq(designs.id, designId));
+    .where(eq(boards.id, boardId));
 }
 
 /**
@@ -373,9 +373,9 @@ async function writeLocked<T>(
 async function touchHead(tx: Tx, writer: Writer, head: Head, fields: Partial<Head>): Promise<Head> {
   const next: Head = { ...head, ...fields, version: head.version + 1, updatedBy: writer.id, updatedAt: new Date() };
   await tx
-    .update(designs)
+    .update(boards)
     .set({ ...fields, version: next.version, updatedBy: next.updatedBy, updatedAt: next.updatedAt })
-    .where(eq(designs.id, head.id));
+    .where(eq(boards.id, head.id));
   return next;
 }
 
@@ -396,7 +396,7 @@ export interface BoardChange {
  * (no revision is made unless `saveRevision` asks for one); an update that changes nothing
  * writes nothing. Moving an approved board off its approved layout needs `confirmApprovalChange`.
  */
-export function updateDesign(writer: Writer, id: number, change: BoardChange): Promise<WriteResult<BoardDetail>> {
+export function updateBoard(writer: Writer, id: number, change: BoardChange): Promise<WriteResult<BoardDetail>> {
   return writeLocked(writer, id, change.version, async (tx, { head, design: current }) => {
     const designChanged = change.design !== undefined && !sameDesign(change.design, current);
     const fields: Partial<Head> = {};
@@ -476,9 +476,9 @@ export function setArchived(writer: Writer, id: number, archived: boolean, versi
  */
 export async function freeBoardName(shopId: number, name: string): Promise<string> {
   const rows = await db()
-    .select({ name: designs.name })
-    .from(designs)
-    .where(and(eq(designs.shopId, shopId), or(eq(designs.name, name), like(designs.name, `${likeLiteral(name)} (%)`))));
+    .select({ name: boards.name })
+    .from(boards)
+    .where(and(eq(boards.shopId, shopId), or(eq(boards.name, name), like(boards.name, `${likeLiteral(name)} (%)`))));
   const taken = new Set(rows.map((r) => r.name));
   if (!taken.has(name)) return name;
   for (let n = 2; ; n++) {
@@ -494,7 +494,7 @@ export function copyName(name: string): string {
 }
 
 /** A new board holding the current design of `id` (renamed), with its own revision history. */
-export async function duplicateDesign(writer: Writer, id: number): Promise<BoardDetail | null> {
+export async function duplicateBoard(writer: Writer, id: number): Promise<BoardDetail | null> {
   return db().transaction(async (tx) => {
     const source = await readDetail(tx, writer.shopId, id);
     if (!source) return null;
@@ -512,21 +512,21 @@ export async function duplicateDesign(writer: Writer, id: number): Promise<Board
 
 /** Every revision of a board, newest first; null when the shop has no such board. */
 export async function listRevisions(shopId: number, id: number): Promise<BoardRevision[] | null> {
-  if (!(await designExists(shopId, id))) return null;
+  if (!(await boardExists(shopId, id))) return null;
   const rows = await db()
     .select({
-      revision: designRevisions.revision,
-      note: designRevisions.note,
-      reason: designRevisions.reason,
-      fingerprint: designRevisions.fingerprint,
+      revision: boardRevisions.revision,
+      note: boardRevisions.note,
+      reason: boardRevisions.reason,
+      fingerprint: boardRevisions.fingerprint,
       authorName: users.displayName,
-      createdAt: designRevisions.createdAt,
-      data: designRevisions.data,
+      createdAt: boardRevisions.createdAt,
+      data: boardRevisions.data,
     })
-    .from(designRevisions)
-    .leftJoin(users, eq(users.id, designRevisions.authorId))
-    .where(eq(designRevisions.designId, id))
-    .orderBy(desc(designRevisions.revision));
+    .from(boardRevisions)
+    .leftJoin(users, eq(users.id, boardRevisions.authorId))
+    .where(eq(boardRevisions.boardId, id))
+    .orderBy(desc(boardRevisions.revision));
   return rows.map((row) => ({
     revision: row.revision,
     note: row.note,
@@ -539,7 +539,7 @@ export async function listRevisions(shopId: number, id: number): Promise<BoardRe
 }
 
 /** The few head-row fields another module needs to point at a design (e.g. a proof of its current revision). */
-export interface DesignHead {
+export interface BoardHead {
   id: number;
   shopId: number;
   name: string;
@@ -547,24 +547,24 @@ export interface DesignHead {
 }
 
 /** The design's head row, or null when it is not in this shop. */
-export async function findShopDesign(reader: DesignReader, shopId: number, designId: number): Promise<DesignHead | null> {
+export async function findShopBoard(reader: BoardReader, shopId: number, boardId: number): Promise<BoardHead | null> {
   const [row] = await reader
-    .select({ id: designs.id, shopId: designs.shopId, name: designs.name, currentRevision: designs.currentRevision })
-    .from(designs)
-    .where(and(eq(designs.id, designId), eq(designs.shopId, shopId)))
+    .select({ id: boards.id, shopId: boards.shopId, name: boards.name, currentRevision: boards.currentRevision })
+    .from(boards)
+    .where(and(eq(boards.id, boardId), eq(boards.shopId, shopId)))
     .limit(1);
   return row ?? null;
 }
 
 /**
  * One revision's design, validated (defaults filled); null when missing or no longer valid. The
- * caller has already scoped `designId` to a shop (a proof row, or findShopDesign).
+ * caller has already scoped `boardId` to a shop (a proof row, or findShopBoard).
  */
-export async function findRevisionDesign(reader: DesignReader, designId: number, revision: number): Promise<Design | null> {
+export async function findRevisionDesign(reader: BoardReader, boardId: number, revision: number): Promise<Design | null> {
   const [row] = await reader
-    .select({ data: designRevisions.data })
-    .from(designRevisions)
-    .where(and(eq(designRevisions.designId, designId), eq(designRevisions.revision, revision)))
+    .select({ data: boardRevisions.data })
+    .from(boardRevisions)
+    .where(and(eq(boardRevisions.boardId, boardId), eq(boardRevisions.revision, revision)))
     .limit(1);
   if (!row) return null;
   const validation = validateDesign(storedJson(row.data));
@@ -572,12 +572,12 @@ export async function findRevisionDesign(reader: DesignReader, designId: number,
 }
 
 /** One revision's fingerprint, scoped to the shop; null when there is no such revision. */
-export async function revisionFingerprint(shopId: number, designId: number, revision: number): Promise<string | null> {
+export async function revisionFingerprint(shopId: number, boardId: number, revision: number): Promise<string | null> {
   const [row] = await db()
-    .select({ fingerprint: designRevisions.fingerprint })
-    .from(designRevisions)
-    .innerJoin(designs, eq(designs.id, designRevisions.designId))
-    .where(and(eq(designs.shopId, shopId), eq(designRevisions.designId, designId), eq(designRevisions.revision, revision)))
+    .select({ fingerprint: boardRevisions.fingerprint })
+    .from(boardRevisions)
+    .innerJoin(boards, eq(boards.id, boardRevisions.boardId))
+    .where(and(eq(boards.shopId, shopId), eq(boardRevisions.boardId, boardId), eq(boardRevisions.revision, revision)))
     .limit(1);
   return row?.fingerprint ?? null;
 }

@@ -1,13 +1,13 @@
 import type { APIRoute } from 'astro';
 import { boardTarget, writeResponse } from '~/lib/boards/board-responses.server.ts';
-import { setArchived } from '~/lib/db/designs.server.ts';
+import { setArchived } from '~/lib/boards/boards.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 
 import { boardArchiveSchema } from '~/lib/schemas/board.ts';
 
 export const prerender = false;
 
-/** POST /api/designs/{id}/archive {archived: true|false, version?}: archives or unarchives a board. */
+/** POST /api/boards/{id}/archive {archived: true|false, version?}: archives or unarchives a board. */
 export const POST: APIRoute = async ({ locals, params, request }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;

@@ -3,7 +3,7 @@ import { readBoardFile } from '~/lib/boards/board-file.ts';
 import { checkDesign } from '~/lib/boards/board-responses.server.ts';
 import { CAN } from '~/lib/auth/index.server.ts';
 import { requireRole } from '~/lib/http/require-role.ts';
-import { createDesign, freeBoardName } from '~/lib/db/designs.server.ts';
+import { createBoard, freeBoardName } from '~/lib/boards/boards.server.ts';
 import { readBytes } from '~/lib/http/body.server.ts';
 import { invalid, json, problem, type Checked } from '~/lib/http/problem.ts';
 import { BOARD_FILE_MAX_BYTES } from '~/lib/schemas/board.ts';
@@ -14,7 +14,7 @@ export const prerender = false;
 const MULTIPART_OVERHEAD = 8 * 1024;
 
 /**
- * POST /api/designs/import: a board JSON file (as the body, application/json, or as the `file`
+ * POST /api/boards/import: a board JSON file (as the body, application/json, or as the `file`
  * field of a multipart form), at most 256 KiB. Always creates a new board; never overwrites one,
  * and never takes the name of one the shop has (it appends " (2)", " (3)", …).
  */
@@ -36,13 +36,13 @@ export const POST: APIRoute = async ({ locals, request }) => {
   if (!design.ok) return invalid(design.issues);
   // An imported board never takes the name of one the shop has: it becomes "name (2)" and so on.
   const name = await freeBoardName(guard.value.shopId, design.design.name);
-  const created = await createDesign(guard.value, {
+  const created = await createBoard(guard.value, {
     design: { ...design.design, name },
     instrumentType: file.file.instrumentType,
     clientName: file.file.clientName,
     note: name === design.design.name ? 'Imported from a file' : `Imported from a file; renamed from “${design.design.name}”, a name the shop already had`,
   }, 'imported');
-  return json(created, 201, { location: `/api/designs/${created.id}` });
+  return json(created, 201, { location: `/api/boards/${created.id}` });
 };
 
 async function fileText(request: Request): Promise<Checked<string>> {

@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { boardTarget, checkDesign, requestedBoard, writeResponse } from '~/lib/boards/board-responses.server.ts';
-import { updateDesign } from '~/lib/db/designs.server.ts';
+import { updateBoard } from '~/lib/boards/boards.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { invalid, json } from '~/lib/http/problem.ts';
 import { BOARD_FILE_MAX_BYTES, boardUpdateSchema } from '~/lib/schemas/board.ts';
@@ -8,14 +8,14 @@ import type { Design } from '~/lib/schemas/design.ts';
 
 export const prerender = false;
 
-/** GET /api/designs/{id}[?revision=N]: the board with its current (or the named) revision's design. */
+/** GET /api/boards/{id}[?revision=N]: the board with its current (or the named) revision's design. */
 export const GET: APIRoute = async ({ locals, params, url }) => {
   const found = await requestedBoard(locals.user, params.id, url.searchParams.get('revision'));
   return found.ok ? json(found.value.board) : found.response;
 };
 
 /**
- * PATCH /api/designs/{id} {version, design?, instrumentType?, clientName?, note?}: saves over the
+ * PATCH /api/boards/{id} {version, design?, instrumentType?, clientName?, note?}: saves over the
  * version the client last saw. A changed design becomes a new revision; a stale version is a 409.
  */
 export const PATCH: APIRoute = async ({ locals, params, request }) => {
@@ -30,5 +30,5 @@ export const PATCH: APIRoute = async ({ locals, params, request }) => {
     if (!checked.ok) return invalid(checked.issues);
     design = checked.design;
   }
-  return writeResponse(await updateDesign(user, id, { ...input.value, design }));
+  return writeResponse(await updateBoard(user, id, { ...input.value, design }));
 };

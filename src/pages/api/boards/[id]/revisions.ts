@@ -1,13 +1,13 @@
 import type { APIRoute } from 'astro';
 import { boardNotFound, boardTarget, writeResponse } from '~/lib/boards/board-responses.server.ts';
-import { listRevisions, saveRevision } from '~/lib/db/designs.server.ts';
+import { listRevisions, saveRevision } from '~/lib/boards/boards.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { json } from '~/lib/http/problem.ts';
 import { boardSaveRevisionSchema } from '~/lib/schemas/board.ts';
 
 export const prerender = false;
 
-/** GET /api/designs/{id}/revisions: every revision, newest first, each with its design, reason and fingerprint. */
+/** GET /api/boards/{id}/revisions: every revision, newest first, each with its design, reason and fingerprint. */
 export const GET: APIRoute = async ({ locals, params }) => {
   const target = boardTarget(locals.user, params.id);
   if (!target.ok) return target.response;
@@ -17,7 +17,7 @@ export const GET: APIRoute = async ({ locals, params }) => {
 };
 
 /**
- * POST /api/designs/{id}/revisions {version?, note?}: keeps the working copy as a revision (a
+ * POST /api/boards/{id}/revisions {version?, note?}: keeps the working copy as a revision (a
  * checkpoint a person chose). When the working copy already is a revision nothing new is made;
  * the answer is the board either way. A stale `version` is a 409.
  */

@@ -2,7 +2,7 @@ import type { APIRoute } from 'astro';
 import { shopName } from '~/lib/accounts/users.server.ts';
 import { boardFile } from '~/lib/boards/board-file.ts';
 import { boardNotFound, requestedBoard, storedDesign } from '~/lib/boards/board-responses.server.ts';
-import { exportRevision } from '~/lib/db/designs.server.ts';
+import { exportRevision } from '~/lib/boards/boards.server.ts';
 import { designExportResponse } from '~/lib/export/design-export.server.ts';
 import { attachmentHeader, exportFileName } from '~/lib/export/file-name.ts';
 import { invalid } from '~/lib/http/problem.ts';
@@ -14,7 +14,7 @@ import { boardWire } from '~/lib/wire/board-wire.server.ts';
 export const prerender = false;
 
 /**
- * GET /api/designs/{id}/export?format=pdf|dxf|svg|csv|json|gcode|cutlist|cutsheet&revision=N&…options: a saved board as
+ * GET /api/boards/{id}/export?format=pdf|dxf|svg|csv|json|gcode|cutlist|cutsheet&revision=N&…options: a saved board as
  * a download, from the named revision, or else from its working copy, which is kept as a revision
  * first when it has changes not yet in one (so every print names a revision: the file name, the
  * title block or header comment carry its number and fingerprint). pdf (paper template), dxf and

@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { boardTarget, writeResponse } from '~/lib/boards/board-responses.server.ts';
-import { restoreRevision } from '~/lib/db/designs.server.ts';
+import { restoreRevision } from '~/lib/boards/boards.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 
 import { boardRestoreSchema } from '~/lib/schemas/board.ts';
@@ -8,7 +8,7 @@ import { boardRestoreSchema } from '~/lib/schemas/board.ts';
 export const prerender = false;
 
 /**
- * POST /api/designs/{id}/restore {revision, version, confirmApprovalChange?}: makes an old revision
+ * POST /api/boards/{id}/restore {revision, version, confirmApprovalChange?}: makes an old revision
  * the working copy again (no new revision: the working copy equals that one). Moving an approved
  * board off its approved layout is a 409 `approval_change` until confirmed.
  */
