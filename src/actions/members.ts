@@ -9,7 +9,7 @@ import { inMinutes, tooManyMessage } from '~/lib/accounts/limits.ts';
 import { limitRequest } from '~/lib/accounts/limits.server.ts';
 import { changeRole, removeMember } from '~/lib/accounts/members.server.ts';
 import type { Outcome } from '~/lib/accounts/outcome.ts';
-import { setShopTimeZone } from '~/lib/accounts/users.server.ts';
+import { setShopTimeZone, setShopCurrency } from '~/lib/accounts/users.server.ts';
 import { CAN, type SessionUser } from '~/lib/auth/index.server.ts';
 import { clientIp } from '~/lib/http/client-ip.ts';
 import { fieldsOf, parseFields, textOf } from '~/lib/http/form-post.server.ts';
@@ -109,6 +109,7 @@ export const members = {
       const parsed = parseFields(fieldsOf(form), shopSettingsSchema);
       if (!parsed.ok) return formRefused(400, parsed.errors);
       await setShopTimeZone(owner.shopId, parsed.data.timeZone);
+      await setShopCurrency(owner.shopId, parsed.data.currency);
       return formDone();
     },
   }),

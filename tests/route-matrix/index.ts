@@ -1,5 +1,6 @@
 import { ACCOUNT_ROUTES } from './accounts.ts';
 import { BOARDS_ROUTES } from './boards.ts';
+import { DEPOSIT_ROUTES } from './deposits.ts';
 import { EXPORT_ROUTES } from './exports.ts';
 import { FRET_WIRE_ROUTES } from './fret-wire.ts';
 import { PROOF_ROUTES } from './proof.ts';
@@ -16,4 +17,5 @@ export const ROUTE_CASES: readonly RouteCase[] = [
   ...TEMPLATE_ROUTES,
   ...BOARDS_ROUTES,
   ...FRET_WIRE_ROUTES,
+  ...DEPOSIT_ROUTES,
 ];

@@ -4,7 +4,11 @@
  */
 import { useCallback, useEffect, useState, type SubmitEvent } from 'react';
 import { useHydrated } from '~/components/ui/use-hydrated.ts';
+import { minorFromText } from '~/lib/payments/amount-text.ts';
+import { currencyCodes } from '~/lib/payments/money.ts';
+import { DEPOSIT_LIMITS, type DepositSettings } from '~/lib/schemas/deposit.ts';
 import { PROOF_LIMITS, PROOF_STATE_LABELS, type CreatedProof, type ProofSummary } from '~/lib/schemas/proof.ts';
+import DepositCell from './DepositCell.tsx';
 
 interface Props {
   boardId: number;
@@ -53,7 +57,14 @@ function CreatedLink({ created }: { created: CreatedProof }) {
   );
 }
 
-function ProofRow({ proof, onRevoke }: { proof: ProofSummary; onRevoke: (id: number) => void }) {
+interface RowProps {
+  proof: ProofSummary;
+  onRevoke: (id: number) => void;
+  canRefund: boolean;
+  onRefund: (proofId: number, amountMinor: number | undefined) => Promise<string | null>;
+}
+
+function ProofRow({ proof, onRevoke, canRefund, onRefund }: RowProps) {
   return (
     <tr className="border-t border-paper-line align-top" data-proof-id={proof.id}>
       <td className="px-2 py-1">{proof.clientName}<br /><span className="text-xs text-ink-soft">{proof.clientEmail}</span></td>
@@ -71,6 +82,10 @@ function ProofRow({ proof, onRevoke }: { proof: ProofSummary; onRevoke: (id: num
           <span className="text-ink-soft">none yet</span>
         )}
         {proof.revokedAt && <p className="text-sm text-ink-soft">Link revoked on {day(proof.revokedAt)}</p>}
+      </td>
+      <td className="px-2 py-1">
+        <DepositCell proofId={proof.id} clientName={proof.clientName} deposit={proof.deposit} approved={proof.decision?.kind === 'approved'}
+          canRefund={canRefund} onRefund={onRefund} />
       </td>
       <td className="px-2 py-1">
         {!proof.revokedAt && !proof.decision && (
@@ -95,12 +110,20 @@ export default function ProofPanel({ boardId }: Props) {
   const [clientEmail, setClientEmail] = useState('');
   const [message, setMessage] = useState('');
   const [expiresInDays, setExpiresInDays] = useState(String(PROOF_LIMITS.defaultExpiryDays));
+  const [depositAmount, setDepositAmount] = useState('');
+  const [depositCurrency, setDepositCurrency] = useState('');
+  const [settings, setSettings] = useState<DepositSettings | null>(null);
+  const depositsOffMessage = settings?.offMessage ?? null;
+  const canRefund = settings?.canRefund ?? false;
+  const [depositDescription, setDepositDescription] = useState('');
   const base = `/api/boards/${boardId}/proofs`;
 
   const reload = useCallback(async () => {
-    const result = await call<{ proofs: ProofSummary[] }>(base);
+    const result = await call<{ proofs: ProofSummary[]; deposits: DepositSettings }>(base);
     if (result.ok) {
       setProofs(result.data.proofs);
+      setSettings(result.data.deposits);
+      setDepositCurrency((current) => current || result.data.deposits.defaultCurrency);
       setListFailure(null);
     } else setListFailure(result.failure);
   }, [base]);
@@ -114,10 +137,20 @@ export default function ProofPanel({ boardId }: Props) {
     setBusy(true);
     setFormFailure(null);
     setCreated(null);
+    let deposit: { amountMinor: number; currency: string; description: string } | undefined;
+    if (depositAmount.trim()) {
+      const read = minorFromText(depositAmount, depositCurrency);
+      if (!read.ok) {
+        setFormFailure({ message: `Deposit amount ${read.message}`, field: 'deposit.amountMinor' });
+        setBusy(false);
+        return;
+      }
+      deposit = { amountMinor: read.minor, currency: depositCurrency, description: depositDescription };
+    }
     const result = await call<CreatedProof>(base, {
       method: 'POST',
       headers: { 'content-type': 'application/json' },
-      body: JSON.stringify({ clientName, clientEmail, message, expiresInDays: Number(expiresInDays) }),
+      body: JSON.stringify({ clientName, clientEmail, message, expiresInDays: Number(expiresInDays), ...(deposit ? { deposit } : {}) }),
     });
     setBusy(false);
     if (!result.ok) {
@@ -128,7 +161,19 @@ export default function ProofPanel({ boardId }: Props) {
     setClientName('');
     setClientEmail('');
     setMessage('');
+    setDepositAmount('');
+    setDepositDescription('');
     await reload();
+  }
+
+  async function refund(proofId: number, amountMinor: number | undefined): Promise<string | null> {
+    const result = await call<unknown>(`/api/proofs/${proofId}/deposit/refunds`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify(amountMinor === undefined ? {} : { amountMinor }),
+    });
+    await reload();
+    return result.ok ? null : result.failure.message;
   }
 
   async function revoke(id: number) {
@@ -138,7 +183,7 @@ export default function ProofPanel({ boardId }: Props) {
     await reload();
   }
 
-  const knownFields = ['clientName', 'clientEmail', 'message', 'expiresInDays'];
+  const knownFields = ['clientName', 'clientEmail', 'message', 'expiresInDays', 'deposit.amountMinor', 'deposit.currency', 'deposit.description'];
   return (
     <section aria-labelledby="proofs-heading" className="space-y-4">
       <h2 id="proofs-heading" className="text-lg font-semibold">Proofs</h2>
@@ -165,6 +210,32 @@ export default function ProofPanel({ boardId }: Props) {
               value={expiresInDays} onChange={(e) => setExpiresInDays(e.target.value)} />
             <FieldError failure={formFailure} field="expiresInDays" />
           </label>
+          <fieldset className="space-y-2 rounded border border-paper-line p-2 md:col-span-2">
+            <legend className="px-1 text-sm font-semibold">Deposit on approval (optional)</legend>
+            {depositsOffMessage ? (
+              <p className="text-sm text-ink-soft">{depositsOffMessage}</p>
+            ) : (
+              <div className="grid gap-2 md:grid-cols-3">
+                <label className="block">
+                  Deposit amount ({depositCurrency})
+                  <input className={`${inputClass} font-mono`} inputMode="decimal" value={depositAmount} onChange={(e) => setDepositAmount(e.target.value)} />
+                  <FieldError failure={formFailure} field="deposit.amountMinor" />
+                </label>
+                <label className="block">
+                  Deposit currency
+                  <select className={inputClass} value={depositCurrency} onChange={(e) => setDepositCurrency(e.target.value)}>
+                    {currencyCodes().map((code) => <option key={code} value={code}>{code}</option>)}
+                  </select>
+                  <FieldError failure={formFailure} field="deposit.currency" />
+                </label>
+                <label className="block">
+                  What the deposit is for (optional)
+                  <input className={inputClass} maxLength={DEPOSIT_LIMITS.descriptionMaxChars} value={depositDescription} onChange={(e) => setDepositDescription(e.target.value)} />
+                  <FieldError failure={formFailure} field="deposit.description" />
+                </label>
+              </div>
+            )}
+          </fieldset>
           <div className="flex items-end">
             <button className="rounded bg-spruce px-3 py-1.5 font-semibold text-white disabled:opacity-50">
               Send proof of the current revision
@@ -192,11 +263,12 @@ export default function ProofPanel({ boardId }: Props) {
                 <th scope="col" className="px-2 py-1">Expires</th>
                 <th scope="col" className="px-2 py-1">Status</th>
                 <th scope="col" className="px-2 py-1">Answer</th>
+                <th scope="col" className="px-2 py-1">Deposit</th>
                 <th scope="col" className="px-2 py-1"><span className="sr-only">Actions</span></th>
               </tr>
             </thead>
             <tbody>
-              {proofs.map((proof) => <ProofRow key={proof.id} proof={proof} onRevoke={(id) => void revoke(id)} />)}
+              {proofs.map((proof) => <ProofRow key={proof.id} proof={proof} onRevoke={(id) => void revoke(id)} canRefund={canRefund} onRefund={refund} />)}
             </tbody>
           </table>
         </div>

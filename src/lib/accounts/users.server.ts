@@ -25,6 +25,11 @@ export async function shopTimeZone(shopId: number): Promise<string> {
   return row?.timeZone ?? 'UTC';
 }
 
+/** Sets the shop's default deposit currency (an ISO 4217 code, validated by shopSettingsSchema). */
+export async function setShopCurrency(shopId: number, currency: string): Promise<void> {
+  await db().update(shops).set({ currency }).where(eq(shops.id, shopId));
+}
+
 /** Sets the shop's time zone (validated by shopSettingsSchema). */
 export async function setShopTimeZone(shopId: number, timeZone: string): Promise<void> {
   await db().update(shops).set({ timeZone }).where(eq(shops.id, shopId));

@@ -15,6 +15,8 @@ export const CAN = {
   design: ['owner', 'builder'],
   manageMembers: ['owner'],
   viewProofs: ['owner', 'builder', 'client'],
+  /** Refunding money and the shop's payment settings (its default currency). */
+  refund: ['owner'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export function hasRole(user: SessionUser | null | undefined, allowed: readonly Role[]): user is SessionUser {

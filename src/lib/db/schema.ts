@@ -8,6 +8,7 @@
 import { sql } from 'drizzle-orm';
 import { ROLES } from '~/lib/schemas/account.ts';
 import { STORED_BOARD_STATUSES, REVISION_REASONS } from '~/lib/schemas/board.ts';
+import { REFUND_STATUSES } from '~/lib/schemas/deposit.ts';
 import { templateConditionSchema } from '~/lib/schemas/template.ts';
 import {
   bigint,
@@ -43,6 +44,8 @@ export const shops = mysqlTable('shops', {
   name: varchar('name', { length: 120 }).notNull(),
   /** IANA time zone the shop's e-mails and pages write dates in (set by the Owner on Members). */
   timeZone: varchar('time_zone', { length: 64 }).notNull().default('UTC'),
+  /** ISO 4217 code a deposit is asked in unless the builder names another (set by the Owner on Members). */
+  currency: char('currency', { length: 3 }).notNull().default('USD'),
   createdAt: now(),
 });
 
@@ -280,3 +283,74 @@ export const fretWires = mysqlTable(
   },
   (t) => [uniqueIndex('fret_wires_shop_name_uq').on(t.shopId, t.name)],
 );
+
+/**
+ * A deposit the client is asked to pay on approving a proof (docs/payments.md): one per proof,
+ * in integer minor units of an ISO 4217 currency.
+ */
+export const deposits = mysqlTable(
+  'deposits',
+  {
+    id: idColumn(),
+    shopId: shopRef(),
+    proofId: bigint('proof_id', { mode: 'number', unsigned: true })
+      .notNull()
+      .references(() => proofs.id, { onDelete: 'cascade' }),
+    amountMinor: int('amount_minor', { unsigned: true }).notNull(),
+    currency: char('currency', { length: 3 }).notNull(),
+    description: varchar('description', { length: 200 }).notNull().default(''),
+    createdBy: userRef('created_by').notNull(),
+    createdAt: now(),
+  },
+  (t) => [uniqueIndex('deposits_proof_uq').on(t.proofId)],
+);
+
+/** A payment the service confirmed by signed webhook: one per completed pay page, as the event said. */
+export const depositPayments = mysqlTable(
+  'deposit_payments',
+  {
+    id: idColumn(),
+    shopId: shopRef(),
+    depositId: bigint('deposit_id', { mode: 'number', unsigned: true })
+      .notNull()
+      .references(() => deposits.id, { onDelete: 'cascade' }),
+    sessionId: varchar('session_id', { length: 255 }).notNull(),
+    paymentIntentId: varchar('payment_intent_id', { length: 255 }).notNull(),
+    amountMinor: int('amount_minor', { unsigned: true }).notNull(),
+    currency: char('currency', { length: 3 }).notNull(),
+    paidAt: datetime('paid_at', { mode: 'date' }).notNull(),
+    eventId: varchar('event_id', { length: 255 }).notNull(),
+    createdAt: now(),
+  },
+  (t) => [uniqueIndex('deposit_payments_session_uq').on(t.sessionId), index('deposit_payments_intent_idx').on(t.paymentIntentId)],
+);
+
+
+/** A refund: pending from the SDK's answer when the owner asked, done or failed from its webhook. */
+export const depositRefunds = mysqlTable(
+  'deposit_refunds',
+  {
+    id: idColumn(),
+    shopId: shopRef(),
+    paymentId: bigint('payment_id', { mode: 'number', unsigned: true })
+      .notNull()
+      .references(() => depositPayments.id, { onDelete: 'cascade' }),
+    refundId: varchar('refund_id', { length: 255 }).notNull(),
+    amountMinor: int('amount_minor', { unsigned: true }).notNull(),
+    currency: char('currency', { length: 3 }).notNull(),
+    status: mysqlEnum('status', REFUND_STATUSES).notNull(),
+    /** Null for a refund made elsewhere (the service's dashboard) that only its webhook told us of. */
+    requestedBy: userRef('requested_by'),
+    requestedAt: datetime('requested_at', { mode: 'date' }),
+    settledAt: datetime('settled_at', { mode: 'date' }),
+    createdAt: now(),
+  },
+  (t) => [uniqueIndex('deposit_refunds_refund_uq').on(t.refundId), index('deposit_refunds_payment_idx').on(t.paymentId)],
+);
+
+/** Webhook events already handled, by the service's event id: a repeated delivery records nothing. */
+export const paymentEvents = mysqlTable('payment_events', {
+  eventId: varchar('event_id', { length: 255 }).primaryKey(),
+  type: varchar('type', { length: 100 }).notNull(),
+  receivedAt: datetime('received_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+});

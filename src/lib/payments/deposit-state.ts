@@ -4,14 +4,14 @@
  * database layer feeds it rows. Amounts of another currency than the deposit's are never added
  * to it; such a payment shows as paid in its own currency (`otherPayments`).
  */
-import type { DepositState, DepositSummary } from '~/lib/schemas/deposit.ts';
+import type { DepositState, DepositSummary, REFUND_STATUSES } from '~/lib/schemas/deposit.ts';
 import type { Money } from './money.ts';
 
 export interface DepositFacts {
   asked: Money;
   description: string;
   payments: readonly (Money & { at: Date })[];
-  refunds: readonly (Money & { status: 'pending' | 'succeeded' | 'failed' | 'canceled' | 'requires_action' })[];
+  refunds: readonly (Money & { status: (typeof REFUND_STATUSES)[number] })[];
 }
 
 function total(amounts: readonly Money[], currency: string): number {

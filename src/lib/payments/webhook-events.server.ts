@@ -6,6 +6,7 @@
  */
 import Stripe from 'stripe';
 import { config } from '~/lib/config/env.server.ts';
+import { REFUND_STATUSES } from '~/lib/schemas/deposit.ts';
 
 /** The SDK's webhook helpers need no API key; this instance only verifies. */
 const verifier = new Stripe('sk_verify_only');
@@ -15,7 +16,7 @@ export type VerifiedEvent =
   | { ok: false; reason: 'off' | 'no_signature' | 'bad_signature' | 'stale' };
 
 /** Checks the signature and age of a webhook; `payload` must be the raw body as received. */
-export function verifyWebhook(payload: string, signature: string | null, nowSeconds?: number): VerifiedEvent {
+export function verifyWebhook(payload: string | Uint8Array, signature: string | null, nowSeconds?: number): VerifiedEvent {
   const settings = config().payments;
   if (!settings) return { ok: false, reason: 'off' };
   if (!signature) return { ok: false, reason: 'no_signature' };
@@ -46,7 +47,7 @@ export interface RefundFact {
   paymentIntentId: string;
   amountMinor: number;
   currency: string;
-  status: 'pending' | 'succeeded' | 'failed' | 'canceled' | 'requires_action';
+  status: (typeof REFUND_STATUSES)[number];
   at: Date;
 }
 
@@ -56,7 +57,6 @@ function idOf(value: string | { id: string } | null | undefined): string {
   return typeof value === 'string' ? value : value?.id ?? '';
 }
 
-const REFUND_STATUSES = ['pending', 'succeeded', 'failed', 'canceled', 'requires_action'] as const;
 
 /** What a verified event means for deposits. */
 export function eventFact(event: Stripe.Event): EventFact {

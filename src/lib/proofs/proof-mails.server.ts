@@ -8,6 +8,8 @@ import { config } from '~/lib/config/env.server.ts';
 import { dayInZone, momentInZone } from '~/lib/format/dates.ts';
 import type { ProofDecision } from '~/lib/schemas/proof.ts';
 import { sendMail } from '~/lib/mail/send.server.ts';
+import { formatMoney } from '~/lib/payments/money.ts';
+import type { DepositSummary } from '~/lib/schemas/deposit.ts';
 
 export interface ClientProofMail {
   to: string;
@@ -20,6 +22,8 @@ export interface ClientProofMail {
   link: string;
   /** The shop's IANA time zone: the dates are written in it. */
   timeZone: string;
+  /** The deposit asked on approval, if any. */
+  deposit: DepositSummary | null;
 }
 
 export interface BuilderDecisionMail {
@@ -55,6 +59,13 @@ export function mailClientProof(mail: ClientProofMail): Promise<boolean> {
     mail.link,
     '',
     'On that page you can look at the board and its fret table, then approve it or ask for changes.',
+    ...(mail.deposit
+      ? [
+          '',
+          `Deposit: ${formatMoney({ minor: mail.deposit.amountMinor, currency: mail.deposit.currency })}${mail.deposit.description ? ` (${mail.deposit.description})` : ''}.`,
+          'When you approve, the page takes you to the payment service to pay it; you can also pay later from the same page.',
+        ]
+      : []),
     `The link works until ${dayInZone(mail.expiresAt, mail.timeZone)}. Anyone with the link can answer, so please keep it to yourself.`,
   ]);
 }

@@ -21,6 +21,8 @@ import { db } from '~/lib/db/client.server.ts';
 import { withRetry } from '~/lib/db/with-retry.server.ts';
 import { checkpointLocked, findRevisionDesign, findShopBoard, lockBoard, refreshApproval, storedJson } from '~/lib/boards/boards.server.ts';
 import { boardRevisions, boards, proofs, shops, users } from '~/lib/db/schema.ts';
+import { depositsOfProofs, depositsOn, saveDeposit } from '~/lib/payments/deposits.server.ts';
+import type { DepositSummary } from '~/lib/schemas/deposit.ts';
 import { mailBuilderDecision, mailClientProof } from '~/lib/proofs/proof-mails.server.ts';
 
 const DAY_MS = 86_400_000;
@@ -48,6 +50,12 @@ export interface ProofPage {
   expiresAt: string;
   design: Design;
   decision: ProofDecision | null;
+  /** The deposit asked with this proof, and where it stands (docs/payments.md). */
+  deposit: DepositSummary | null;
+  /** Whether this server can take the deposit now (payment settings present). */
+  paymentsOn: boolean;
+  /** The shop's IANA time zone, for the dates the page writes. */
+  timeZone: string;
 }
 
 export type DecideResult =
@@ -71,8 +79,9 @@ function stateOf(row: ProofRow, now: Date): ProofState {
   return row.expiresAt.getTime() <= now.getTime() ? 'expired' : 'open';
 }
 
-function toSummary(row: ProofRow, now: Date): ProofSummary {
+function toSummary(row: ProofRow, now: Date, deposit: DepositSummary | null = null): ProofSummary {
   return {
+    deposit,
     id: row.id,
     revision: row.revision,
     fingerprint: row.fingerprint ?? '',
@@ -88,7 +97,7 @@ function toSummary(row: ProofRow, now: Date): ProofSummary {
 }
 
 /** Where-clause of a locator; revoked proofs are never found from the client side. */
-function locate(locator: ProofLocator): SQL | undefined {
+export function proofWhere(locator: ProofLocator): SQL | undefined {
   const notRevoked = isNull(proofs.revokedAt);
   if ('token' in locator) return and(eq(proofs.tokenHash, sha256Hex(locator.token)), notRevoked);
   return and(
@@ -127,9 +136,11 @@ export async function createProof(writer: ProofWriter, boardId: number, input: C
         createdAt: now,
       })
       .$returningId();
+    if (input.deposit) await saveDeposit(tx, writer.shopId, inserted!.id, writer.id, input.deposit);
     await refreshApproval(tx, writer.shopId, boardId);
     const [row] = await tx.select().from(proofs).where(eq(proofs.id, inserted!.id));
-    return { head, row: row! };
+    const deposit = (await depositsOfProofs(tx, [inserted!.id])).get(inserted!.id) ?? null;
+    return { head, row: row!, deposit };
   });
   if (!created) return null;
   const [shop] = await db().select({ name: shops.name, timeZone: shops.timeZone }).from(shops).where(eq(shops.id, writer.shopId));
@@ -144,18 +155,19 @@ export async function createProof(writer: ProofWriter, boardId: number, input: C
     expiresAt: created.row.expiresAt,
     link,
     timeZone: shop?.timeZone ?? 'UTC',
+    deposit: created.deposit,
   });
-  return { proof: toSummary(created.row, now), link, mailed };
+  return { proof: toSummary(created.row, now, created.deposit), link, mailed };
 }
 
 /** The proof page's content, or null for unknown, revoked and expired proofs alike. */
 export async function openProof(locator: ProofLocator, now: Date): Promise<ProofPage | null> {
   const [found] = await db()
-    .select({ proof: proofs, shopName: shops.name, workingFingerprint: boards.workingFingerprint })
+    .select({ proof: proofs, shopName: shops.name, timeZone: shops.timeZone, workingFingerprint: boards.workingFingerprint })
     .from(proofs)
     .innerJoin(boards, eq(boards.id, proofs.boardId))
     .innerJoin(shops, eq(shops.id, proofs.shopId))
-    .where(and(locate(locator), gt(proofs.expiresAt, now)))
+    .where(and(proofWhere(locator), gt(proofs.expiresAt, now)))
     .limit(1);
   if (!found) return null;
   const design = await findRevisionDesign(db(), found.proof.boardId, found.proof.revision);
@@ -171,6 +183,9 @@ export async function openProof(locator: ProofLocator, now: Date): Promise<Proof
     expiresAt: found.proof.expiresAt.toISOString(),
     design,
     decision: decisionOf(found.proof),
+    deposit: (await depositsOfProofs(db(), [found.proof.id])).get(found.proof.id) ?? null,
+    paymentsOn: depositsOn(),
+    timeZone: found.timeZone,
   };
 }
 
@@ -181,7 +196,7 @@ export async function openProof(locator: ProofLocator, now: Date): Promise<Proof
  * on the board while the board still has that layout. The builder who sent it gets an e-mail.
  */
 export async function decideProof(locator: ProofLocator, input: DecisionInput, now: Date): Promise<DecideResult> {
-  const [row] = await db().select().from(proofs).where(locate(locator)).limit(1);
+  const [row] = await db().select().from(proofs).where(proofWhere(locator)).limit(1);
   if (!row) return { ok: false, reason: 'not_found' };
   if (row.decision) return { ok: false, reason: 'already_decided' };
   if (row.expiresAt.getTime() <= now.getTime()) return { ok: false, reason: 'expired' };
@@ -229,7 +244,7 @@ export async function revokeProof(shopId: number, proofId: number, now: Date): P
   if (!row) return { ok: false, reason: 'not_found' };
   if (row.revokedAt) await refreshApproval(db(), shopId, row.boardId);
   if (row.decision && !row.revokedAt) return { ok: false, reason: 'answered' };
-  return { ok: true, proof: toSummary(row, now) };
+  return { ok: true, proof: toSummary(row, now, (await depositsOfProofs(db(), [row.id])).get(row.id) ?? null) };
 }
 
 /** The design's proofs, newest first; null when the design is not in the shop. */
@@ -241,7 +256,8 @@ export async function listDesignProofs(shopId: number, boardId: number, now: Dat
     .from(proofs)
     .where(and(eq(proofs.shopId, shopId), eq(proofs.boardId, boardId)))
     .orderBy(desc(proofs.createdAt), desc(proofs.id));
-  return rows.map((row) => toSummary(row, now));
+  const deposits = await depositsOfProofs(db(), rows.map((row) => row.id));
+  return rows.map((row) => toSummary(row, now, deposits.get(row.id) ?? null));
 }
 
 /** The design name a stored revision carries. */

@@ -3,6 +3,7 @@
  * E-mail addresses are trimmed and lower-cased, so lookups are case-insensitive.
  */
 import { z } from 'zod';
+import { currencySchema } from './deposit.ts';
 import { isTimeZone } from '~/lib/format/dates.ts';
 
 /** A member's role in a shop (the database's enum is made from this list). */
@@ -80,5 +81,7 @@ export const shopSettingsSchema = z.object({
     .string()
     .trim()
     .refine(isTimeZone, { message: 'choose a time zone from the list (for example Europe/London)' }),
+  /** The currency deposits are asked in unless the builder names another (docs/payments.md). */
+  currency: currencySchema,
 });
 export type ShopSettingsInput = z.infer<typeof shopSettingsSchema>;

@@ -74,3 +74,16 @@ export interface DepositSummary {
   /** Payments the service confirmed in another currency than the one asked (never added in). */
   otherPayments: { minor: number; currency: string }[];
 }
+
+/** What the Proofs panel needs to offer deposits (part of GET /api/boards/{id}/proofs). */
+export interface DepositSettings {
+  /** The shop's default currency (ISO 4217). */
+  defaultCurrency: string;
+  /** Why deposits are off on this server; null when they are on. */
+  offMessage: string | null;
+  /** The signed-in user may refund (the Owner). */
+  canRefund: boolean;
+}
+
+/** Refund states as the payment service names them. */
+export const REFUND_STATUSES = ['pending', 'succeeded', 'failed', 'canceled', 'requires_action'] as const;

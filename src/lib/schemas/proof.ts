@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { depositInputSchema, type DepositSummary } from './deposit.ts';
 
 /**
  * Proofs: what a builder sends to a client, and what the client answers. Shared by the builder's
@@ -39,6 +40,8 @@ export const createProofSchema = z
       .min(PROOF_LIMITS.minExpiryDays, { message: `must be at least ${PROOF_LIMITS.minExpiryDays} day` })
       .max(PROOF_LIMITS.maxExpiryDays, { message: `must be at most ${PROOF_LIMITS.maxExpiryDays} days` })
       .default(PROOF_LIMITS.defaultExpiryDays),
+    /** A deposit the client pays on approving (docs/payments.md); none when left out. */
+    deposit: depositInputSchema.optional(),
   })
   .strict();
 
@@ -94,6 +97,8 @@ export interface ProofSummary {
   revokedAt: string | null;
   state: ProofState;
   decision: ProofDecision | null;
+  /** The deposit asked with this proof, and whether the payment service confirmed it. */
+  deposit: DepositSummary | null;
 }
 
 /** Answer of POST /api/boards/{id}/proofs: the link is shown once, since only its hash is kept. */

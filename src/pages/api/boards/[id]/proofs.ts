@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { CAN } from '~/lib/auth/index.server.ts';
+import { CAN, hasRole } from '~/lib/auth/index.server.ts';
 import { requireRole } from '~/lib/http/require-role.ts';
 import { createProof, listDesignProofs } from '~/lib/proofs/proofs.server.ts';
 import { inMinutes } from '~/lib/accounts/limits.ts';
@@ -8,6 +8,10 @@ import { json, problem } from '~/lib/http/problem.ts';
 import { limitMail } from '~/lib/mail/mail-budgets.server.ts';
 import { parseRecordId } from '~/lib/http/record-id.ts';
 import { createProofSchema } from '~/lib/schemas/proof.ts';
+import { depositsOn, shopCurrency } from '~/lib/payments/deposits.server.ts';
+import { db } from '~/lib/db/client.server.ts';
+import type { DepositSettings } from '~/lib/schemas/deposit.ts';
+import { PAYMENTS_OFF_MESSAGE } from '~/lib/payments/payment-service.server.ts';
 
 export const prerender = false;
 
@@ -20,7 +24,13 @@ export const GET: APIRoute = async ({ params, locals }) => {
   if (!guard.ok) return guard.response;
   const id = parseRecordId(params.id);
   const list = id !== null ? await listDesignProofs(guard.value.shopId, id, new Date()) : null;
-  return list ? json({ proofs: list }) : problem(404, NO_DESIGN);
+  if (!list) return problem(404, NO_DESIGN);
+  const deposits: DepositSettings = {
+    defaultCurrency: await shopCurrency(db(), guard.value.shopId),
+    offMessage: depositsOn() ? null : PAYMENTS_OFF_MESSAGE,
+    canRefund: hasRole(guard.value, CAN.refund),
+  };
+  return json({ proofs: list, deposits });
 };
 
 /**
@@ -35,6 +45,7 @@ export const POST: APIRoute = async ({ params, request, locals }) => {
   if (id === null) return problem(404, NO_DESIGN);
   const parsed = await readValidJson(request, BODY_MAX_BYTES, createProofSchema);
   if (!parsed.ok) return parsed.response;
+  if (parsed.value.deposit && !depositsOn()) return problem(503, PAYMENTS_OFF_MESSAGE, { field: 'deposit' });
   const now = new Date();
   const mail = await limitMail('proof', { userId: guard.value.id, shopId: guard.value.shopId }, now);
   if (!mail.ok) {

@@ -1,0 +1,148 @@
+/**
+ * The client's deposit path in Chromium on the built server, with the run's fake payment service
+ * on loopback: approve, the fake's pay page, back to the proof page; "deposit paid" only once the
+ * fake's signed webhook reached the app.
+ */
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
+import { createProof } from '~/lib/proofs/proofs.server.ts';
+import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
+import { ensureDesign } from '../support/designs.ts';
+import { fakeOrigin, fakeSessions, holdWebhooks, releaseWebhooks, TEST_CARDS } from '../support/fake-payments.ts';
+import { signInAs, type TestUser } from '../support/sessions.ts';
+import { closeDb } from '../support/test-db.ts';
+
+let browser: Browser;
+let builder: TestUser;
+let boardId: number;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  builder = await signInAs('builder@wrenfield.example');
+  boardId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+});
+afterAll(async () => {
+  await browser?.close();
+  await closeDb();
+});
+
+let counter = 0;
+
+/** A proof of the seven-string with a €500.00 deposit; the path of its link on the test server. */
+async function proofPath(): Promise<{ path: string; proofId: number }> {
+  const email = `deposit-e2e-${Date.now()}-${++counter}@wrenfield.example`;
+  const sent = await createProof(builder, boardId, {
+    clientName: 'Ines Calloway',
+    clientEmail: email,
+    message: '',
+    expiresInDays: 30,
+    deposit: { amountMinor: 50_000, currency: 'EUR', description: 'Deposit to start the build' },
+  }, new Date());
+  if (!sent) throw new Error('no proof');
+  return { path: new URL(sent.link).pathname, proofId: sent.proof.id };
+}
+
+async function approveOn(page: Page): Promise<void> {
+  const form = page.getByRole('form', { name: 'Approve' });
+  await form.getByLabel('Your name').fill('Ines Calloway');
+  await form.getByRole('checkbox').check();
+  await form.getByRole('button', { name: 'Approve' }).click();
+}
+
+async function onPayPage(page: Page): Promise<void> {
+  await page.waitForURL((url) => url.origin === fakeOrigin());
+  await page.getByRole('heading', { name: 'Pay €500.00' }).waitFor();
+}
+
+async function payOn(page: Page): Promise<void> {
+  await page.getByLabel('Card number').fill(TEST_CARDS.pays);
+  await page.getByRole('button', { name: 'Pay' }).click();
+}
+
+const depositState = (page: Page) => page.locator('[data-deposit-state]').getAttribute('data-deposit-state');
+
+describe('deposit on approval, in Chromium', () => {
+  it('approve, pay on the fake\'s page, back to the proof page: paid (the webhook came before the browser)', async () => {
+    const { path } = await proofPath();
+    const page = await browser.newPage();
+    await page.goto(`${BASE_URL}${path}`);
+    await page.getByRole('heading', { name: 'Deposit: €500.00' }).waitFor();
+    await approveOn(page);
+    await onPayPage(page);
+    await expect(page.getByText(TEST_CARDS.declined).count()).resolves.toBe(1);
+    await payOn(page);
+    await page.waitForURL(`${BASE_URL}${path}?deposit=returned`);
+    await page.getByText(/Deposit paid: €500\.00 received on/).waitFor();
+    expect(await depositState(page)).toBe('paid');
+    await page.getByText(/Approved by Ines Calloway/).waitFor();
+    await saveScreenshot(page, 'deposit-paid');
+
+    // The builder sees it on the board's proofs.
+    const context = await browser.newContext();
+    await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
+    const panel = await context.newPage();
+    await panel.goto(`${BASE_URL}/boards/${boardId}/proofs`);
+    await panel.getByText(/deposit paid: €500\.00/).first().waitFor();
+    await context.close();
+    await page.close();
+  });
+
+  it('back before the webhook: not paid yet, then paid once the webhook arrives', async () => {
+    const { path } = await proofPath();
+    const page = await browser.newPage();
+    await holdWebhooks();
+    try {
+      await page.goto(`${BASE_URL}${path}`);
+      await approveOn(page);
+      await onPayPage(page);
+      await payOn(page);
+      await page.waitForURL(`${BASE_URL}${path}?deposit=returned`);
+      await page.getByText(/has not yet confirmed your payment/).waitFor();
+      expect(await depositState(page)).toBe('awaiting_payment');
+      expect(await page.getByText(/Deposit paid/).count()).toBe(0);
+    } finally {
+      await releaseWebhooks();
+    }
+    await page.reload();
+    await page.getByText(/Deposit paid: €500\.00/).waitFor();
+    await page.close();
+  });
+
+  it('decline, go back, and pay later from the proof page; the approval stands meanwhile', async () => {
+    const { path } = await proofPath();
+    const page = await browser.newPage();
+    await page.goto(`${BASE_URL}${path}`);
+    await approveOn(page);
+    await onPayPage(page);
+    await page.getByRole('button', { name: 'Decline' }).click();
+    await page.getByRole('heading', { name: 'The payment was declined' }).waitFor();
+    await page.getByRole('link', { name: 'Go back to the shop' }).click();
+    await page.waitForURL(`${BASE_URL}${path}?deposit=cancelled`);
+    await page.getByText(/You left the payment page without paying\. Your approval stands/).waitFor();
+    await page.getByText(/Approved by Ines Calloway/).waitFor();
+    expect(await depositState(page)).toBe('awaiting_payment');
+
+    await page.getByRole('button', { name: 'Pay the deposit (€500.00)' }).click();
+    await onPayPage(page);
+    await page.getByRole('link', { name: 'Cancel and go back to the shop' }).click();
+    await page.waitForURL(`${BASE_URL}${path}?deposit=cancelled`);
+    await page.getByRole('button', { name: 'Pay the deposit (€500.00)' }).click();
+    await onPayPage(page);
+    await payOn(page);
+    await page.getByText(/Deposit paid: €500\.00/).waitFor();
+    await page.close();
+  });
+
+  it('an amount changed in the browser is ignored: the pay page asks for the deposit', async () => {
+    const { path } = await proofPath();
+    const page = await browser.newPage();
+    await page.route('**/deposit-checkout', (route) => route.continue({ postData: JSON.stringify({ amountMinor: 1, currency: 'JPY' }) }));
+    await page.goto(`${BASE_URL}${path}`);
+    await approveOn(page);
+    await onPayPage(page);
+    const id = new URL(page.url()).pathname.split('/').pop();
+    expect((await fakeSessions()).find((s) => s.id === id)).toMatchObject({ amount_total: 50_000, currency: 'eur' });
+    await page.close();
+  });
+});
