@@ -203,15 +203,20 @@ describe('development Outbox page', () => {
 });
 
 describe('shop settings on the Members page', () => {
-  it('the Owner sets the time zone; an unknown zone gets 400 with the message beside the field and changes nothing', async () => {
+  it('the Owner sets the time zone and the deposit currency; an unknown zone or currency gets 400 with the message beside the field', async () => {
     const owner = await newShopUser('owner');
-    const send = (timeZone: string) => post('/members?_action=members.settings', { timeZone }, { cookie: owner.cookie });
+    const send = (timeZone: string, currency = 'EUR') => post('/members?_action=members.settings', { timeZone, currency }, { cookie: owner.cookie });
     const bad = await send('Mars/Olympus_Mons');
     expect(bad.status).toBe(400);
     expect(await bad.text()).toContain('choose a time zone from the list');
-    const good = await send('Europe/London');
+    const badCurrency = await send('Europe/London', 'EURO');
+    expect(badCurrency.status).toBe(400);
+    expect(await badCurrency.text()).toContain('must be an ISO 4217 currency code');
+    const good = await send('Europe/London', 'gbp');
     expect(good.status).toBe(303);
     const page = await fetch(`${BASE_URL}/members`, { headers: { cookie: owner.cookie } });
-    expect(await page.text()).toMatch(/<option value="Europe\/London" selected/);
+    const html = await page.text();
+    expect(html).toMatch(/<option value="Europe\/London" selected/);
+    expect(html).toMatch(/<option value="GBP" selected/);
   });
 });

@@ -44,12 +44,12 @@ export const ACCOUNT_ROUTES: readonly RouteCase[] = [
     expect: { anonymous: 302, client: 403, builder: 403, owner: 303, otherOwner: 303 },
   },
   {
-    // The demo shop's time zone set to what the seed leaves it (UTC): harmless for the demo Owner.
+    // The demo shop's time zone and currency set to what the seed leaves them (UTC, USD): harmless for the demo Owner.
     file: 'pages/members.astro',
     method: 'POST',
     path: '/members?_action=members.settings',
     contentType: FORM,
-    body: form({ timeZone: 'UTC' }),
+    body: form({ timeZone: 'UTC', currency: 'USD' }),
     expect: { anonymous: 302, client: 403, builder: 403, owner: 303, otherOwner: 303 },
   },
   // Development outbox: the tests run in demo mode (production mode answers 404).
