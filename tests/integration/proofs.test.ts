@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sha256Hex } from '~/lib/auth/index.server.ts';
 import { setShopTimeZone } from '~/lib/accounts/users.server.ts';
 import { createProof, decideProof, listDesignProofs, listSharedWith, openProof, revokeProof } from '~/lib/proofs/proofs.server.ts';
-import { boards, proofs, shops } from '~/lib/db/schema.ts';
+import { boards, deposits, proofs, shops } from '~/lib/db/schema.ts';
 import { seedDemoProof } from '~/lib/db/seed/demo-proof.server.ts';
 import { decisionAnswer } from '~/lib/proofs/proof-answers.server.ts';
 import { PROOF_LIMITS, type CreatedProof } from '~/lib/schemas/proof.ts';
@@ -353,5 +353,8 @@ describe('demo seed step', () => {
     const rows = await db().select().from(proofs).where(eq(proofs.shopId, shopOwner.shopId));
     expect(rows.map((r) => [r.boardId, r.clientEmail])).toEqual([[id, 'client@wrenfield.example']]);
     expect(await boardStatus(id)).toBe('shared');
+    // The deposit the demo client is asked for, in the shop's default currency.
+    const seeded = await db().select().from(deposits).where(eq(deposits.proofId, rows[0]!.id));
+    expect(seeded.map((d) => [d.amountMinor, d.currency])).toEqual([[45_000, 'USD']]);
   });
 });
