@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { createProof } from '~/lib/proofs/proofs.server.ts';
 import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
+import { startBuiltServer } from '../support/built-server.ts';
 import { ensureDesign } from '../support/designs.ts';
 import { fakeOrigin, fakeSessions, holdWebhooks, releaseWebhooks, TEST_CARDS } from '../support/fake-payments.ts';
 import { signInAs, type TestUser } from '../support/sessions.ts';
@@ -150,5 +151,37 @@ describe('deposit on approval, in Chromium', () => {
     const id = new URL(page.url()).pathname.split('/').pop();
     expect((await fakeSessions()).find((s) => s.id === id)).toMatchObject({ amount_total: 50_000, currency: 'eur' });
     await page.close();
+  });
+});
+
+describe('production mode without payment settings', () => {
+  it('deposits are off with a clear message; proofs without a deposit work as before', async () => {
+    const server = await startBuiltServer({
+      env: { KERFLINE_MODE: 'production', PAYMENTS_SECRET_KEY: undefined, PAYMENTS_WEBHOOK_SECRET: undefined, PAYMENTS_API_URL: undefined },
+    });
+    try {
+      const headers = { cookie: builder.cookie, origin: server.url, 'content-type': 'application/json' };
+      const list = await fetch(`${server.url}/api/boards/${boardId}/proofs`, { headers });
+      const settings = ((await list.json()) as { deposits: { offMessage: string | null } }).deposits;
+      expect(settings.offMessage).toMatch(/^Deposits are off on this server: it has no payment settings/);
+      const proof = { clientName: 'Ines Calloway', clientEmail: `deposit-off-${Date.now()}@wrenfield.example` };
+      const withDeposit = await fetch(`${server.url}/api/boards/${boardId}/proofs`, { method: 'POST', headers, body: JSON.stringify({ ...proof, deposit: { amountMinor: 100 } }) });
+      expect(withDeposit.status).toBe(503);
+      expect(await withDeposit.json()).toMatchObject({ field: 'deposit', error: expect.stringMatching(/Deposits are off/) });
+      const without = await fetch(`${server.url}/api/boards/${boardId}/proofs`, { method: 'POST', headers, body: JSON.stringify(proof) });
+      expect(without.status).toBe(201);
+      const webhook = await fetch(`${server.url}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': 't=1,v1=00' }, body: '{}' });
+      expect(webhook.status).toBe(503);
+
+      const context = await browser.newContext();
+      await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: server.url }]);
+      const panel = await context.newPage();
+      await panel.goto(`${server.url}/boards/${boardId}/proofs`);
+      await panel.getByText(/Deposits are off on this server/).waitFor();
+      expect(await panel.getByLabel(/Deposit amount/).count()).toBe(0);
+      await context.close();
+    } finally {
+      await server.stop();
+    }
   });
 });
