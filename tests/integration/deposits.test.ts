@@ -1,9 +1,9 @@
 /**
  * Deposits end to end without a browser: real MariaDB, the run's fake payment service on
- * loopback (driven through the SDK by the app's code), and the app's route handlers. The fake's
- * own webhook deliveries cannot reach an app here (no server runs during these tests), so each
- * test takes the events the fake made and delivers them to the webhook route, signed as the SDK
- * verifies them: that way a test also decides when, and how often, they arrive.
+ * loopback (driven through the SDK by the app's code), and the app's route handlers. The fake
+ * holds its own webhook deliveries for the whole file; each test takes the events the fake made
+ * and delivers them to the webhook route, signed as the SDK verifies them: that way a test also
+ * decides when, and how often, they arrive.
  */
 import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -20,7 +20,7 @@ import * as depositRoute from '~/pages/api/proofs/[proofId]/deposit/index.ts';
 import * as refundsRoute from '~/pages/api/proofs/[proofId]/deposit/refunds.ts';
 import * as revokeRoute from '~/pages/api/proofs/[proofId]/revoke.ts';
 import { fixtureDesign, insertBoard } from '../support/designs.ts';
-import { eventsAbout, fakeSessions, signatureFor, submitPayPage, TEST_CARDS } from '../support/fake-payments.ts';
+import { eventsAbout, fakeSessions, holdWebhooks, releaseWebhooks, signatureFor, submitPayPage, TEST_CARDS } from '../support/fake-payments.ts';
 import { mailsTo, waitForMail, waitForMailCount } from '../support/outbox.ts';
 import { callRoute } from '../support/route-call.ts';
 import { addShopUser, newShopUser, type TestUser } from '../support/sessions.ts';
@@ -36,6 +36,7 @@ let otherOwner: TestUser;
 let boardId: number;
 
 beforeAll(async () => {
+  await holdWebhooks();
   owner = await newShopUser('owner');
   // Dated back: these tests send more proofs than a brand-new shop's mail budget allows.
   await db().update(shops).set({ createdAt: new Date(Date.now() - 2 * DAY_MS) }).where(eq(shops.id, owner.shopId));
@@ -45,7 +46,11 @@ beforeAll(async () => {
   otherOwner = await newShopUser('owner');
   boardId = await insertBoard(owner.shopId, builder.id, fixtureDesign('seven-string-fan'));
 });
-afterAll(() => closeDb());
+// Released to the app's origin, where no server listens during these tests: they go nowhere.
+afterAll(async () => {
+  await releaseWebhooks();
+  await closeDb();
+});
 
 let mailCounter = 0;
 const clientEmail = () => `deposit-${Date.now()}-${++mailCounter}@wrenfield.example`;
