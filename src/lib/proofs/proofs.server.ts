@@ -22,6 +22,7 @@ import { withRetry } from '~/lib/db/with-retry.server.ts';
 import { checkpointLocked, findRevisionDesign, findShopBoard, lockBoard, refreshApproval, storedJson } from '~/lib/boards/boards.server.ts';
 import { boardRevisions, boards, proofs, shops, users } from '~/lib/db/schema.ts';
 import { mailBuilderDecision, mailClientProof } from '~/lib/proofs/proof-mails.server.ts';
+import type { Failure } from '~/lib/http/result.ts';
 
 const DAY_MS = 86_400_000;
 
@@ -50,9 +51,8 @@ export interface ProofPage {
   decision: ProofDecision | null;
 }
 
-export type DecideResult =
-  | { ok: true; decision: ProofDecision; mailed: boolean }
-  | { ok: false; reason: 'not_found' | 'already_decided' | 'expired' };
+export type DecideFailure = Failure<'not_found' | 'already_decided' | 'expired'>;
+export type DecideResult = { ok: true; decision: ProofDecision; mailed: boolean } | DecideFailure;
 
 type ProofRow = typeof proofs.$inferSelect;
 
@@ -214,7 +214,8 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
 }
 
 /** Revokes a proof of the shop (again is harmless). Null when there is no such proof in the shop. */
-export type RevokeResult = { ok: true; proof: ProofSummary } | { ok: false; reason: 'not_found' | 'answered' };
+export type RevokeFailure = Failure<'not_found' | 'answered'>;
+export type RevokeResult = { ok: true; proof: ProofSummary } | RevokeFailure;
 
 /**
  * Revokes a proof of the shop that the client has not answered yet (an answer is a record of what
