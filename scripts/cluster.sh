@@ -14,7 +14,7 @@ source scripts/cluster/haproxy.sh
 galera_env "${CLUSTER_DIR:-.data/cluster}"
 run="$CLUSTER_DIR/run"
 export CLUSTER_PORT=${CLUSTER_PORT:-4330}
-export DATABASE_URL="mysql://kerfline:kerfline-local@$(galera_hosts)/kerfline"
+export DATABASE_URL=$(galera_app_url)
 export APP_ORIGIN=${APP_ORIGIN:-http://127.0.0.1:$CLUSTER_PORT}
 export SMTP_PORT=${SMTP_PORT:-2526}
 export SMTP_URL=${SMTP_URL:-smtp://127.0.0.1:$SMTP_PORT}
