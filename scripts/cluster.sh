@@ -25,6 +25,10 @@ export KERFLINE_MODE=${KERFLINE_MODE:-demo}
 export TRUSTED_PROXIES=${TRUSTED_PROXIES:-loopback}
 export HOST=127.0.0.1
 apps=${CLUSTER_APPS:-2}
+# The processes share this machine's cores: each gets PDF worker threads for its share, one core
+# of the share left to its request thread, at least 1 and at most 4 (docs/operations.md).
+share=$(($(nproc) / apps - 1))
+export EXPORT_THREADS=${EXPORT_THREADS:-$((share < 1 ? 1 : share > 4 ? 4 : share))}
 
 # Stops the processes named by pid files in run/ (HAProxy, apps, fake SMTP), then the nodes.
 stop_cluster() {
