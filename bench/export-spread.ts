@@ -140,7 +140,7 @@ try {
   reportFigure({ figure: `cores kept busy by one process during its exports (CPU s ÷ wall s, all threads; ${cores} on this machine)`, value: round(one.cores), unit: 'cores', goal: 'context' });
   reportFigure({ figure: 'cores kept busy by the two processes together during theirs', value: round(two.cores), unit: 'cores', goal: 'context' });
   reportFigure({ figure: `best ratio ${cores} idle cores would allow: one process's cores ÷ min(${cores}, twice that)`, value: round(one.cores / Math.min(cores, 2 * one.cores)), unit: 'ratio', goal: 'context' });
-  reportFigure({ figure: 'ratio the cores each run got would give: one process\'s cores ÷ the two processes\' cores', value: round(one.cores / two.cores), unit: 'ratio', goal: 'context' });
+  reportFigure({ figure: `ratio the cores each run got would give: one process's cores ÷ the two processes' cores`, value: round(one.cores / two.cores), unit: 'ratio', goal: 'context' });
   const p95 = percentile(two.healthMs, 95);
   reportFigure({ figure: `GET /api/health p95 through HAProxy during the two-process exports (${two.healthMs.length} requests)`, value: round(p95), unit: 'ms', goal: `< ${HEALTH_GOAL_MS}`, met: p95 < HEALTH_GOAL_MS });
 } finally {
