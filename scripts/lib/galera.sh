@@ -71,6 +71,10 @@ galera_hosts() {
   (IFS=,; echo "${out[*]}")
 }
 
+# The DATABASE_URL of `npm run cluster`'s app (also what npm run backup/restore -- --cluster use
+# when DATABASE_URL is not set).
+galera_app_url() { echo "mysql://kerfline:kerfline-local@$(galera_hosts)/kerfline"; }
+
 # Prints the node's wsrep_local_state_comment (Synced, Donor/Desynced, Joining…), or "down".
 node_state() {
   node_sql "$1" -Nse "SHOW GLOBAL STATUS LIKE 'wsrep_local_state_comment'" 2>/dev/null | cut -f2 || true

@@ -19,6 +19,11 @@ const envSchema = z.object({
   OUTBOX_DIR: z.string().default('.data/outbox'),
   /** Multiplies every rate limit budget; only for a load-test server (docs/operations.md). */
   RATE_LIMIT_SCALE: z.coerce.number().positive().max(1_000_000).default(1),
+  /**
+   * PDF worker threads of this process; unset: worked out from the cores (export-limits.ts).
+   * Several processes on one machine share its cores (docs/operations.md, "Heavy work spreads").
+   */
+  EXPORT_THREADS: z.coerce.number().int().min(1).max(16).optional(),
 });
 
 export interface AppConfig {
@@ -30,6 +35,8 @@ export interface AppConfig {
   outboxDir: string;
   /** Factor on every rate limit budget's points (1 in normal use). */
   rateLimitScale: number;
+  /** PDF worker threads when set; otherwise the pool works them out from the cores. */
+  exportThreads: number | undefined;
 }
 
 let cached: AppConfig | undefined;
@@ -52,6 +59,7 @@ export function config(): AppConfig {
     mode: parsed.data.KERFLINE_MODE,
     outboxDir: parsed.data.OUTBOX_DIR,
     rateLimitScale: parsed.data.RATE_LIMIT_SCALE,
+    exportThreads: parsed.data.EXPORT_THREADS,
   };
   return cached;
 }
