@@ -22,8 +22,8 @@ import { tableFingerprints, type TableFingerprint } from '../support/table-finge
 import { closeDb } from '../support/test-db.ts';
 
 /** The board routes and the tables that must not come back empty (renamed together at merge). */
-const BOARDS_API = '/api/designs';
-const CONTENT_TABLES = ['designs', 'design_revisions', 'proofs'] as const;
+const BOARDS_API = '/api/boards';
+const CONTENT_TABLES = ['boards', 'board_revisions', 'proofs'] as const;
 const BOARDS = 3;
 const SAVES_PER_BOARD = 2;
 /** What `npm run restore -- --cluster` makes when DATABASE_URL is not set (scripts/lib/galera.sh, galera_app_url). */
