@@ -21,7 +21,7 @@ import { newShopUser, type TestUser } from '../support/sessions.ts';
 import { tableFingerprints, type TableFingerprint } from '../support/table-fingerprints.ts';
 import { closeDb } from '../support/test-db.ts';
 
-/** The board routes and the tables that must not come back empty (renamed together at merge). */
+/** The board routes and the tables that must not come back empty. */
 const BOARDS_API = '/api/boards';
 const CONTENT_TABLES = ['boards', 'board_revisions', 'proofs'] as const;
 const BOARDS = 3;
