@@ -20,6 +20,7 @@ import { closeDb } from '~/lib/db/client.server.ts';
 import { startBuiltServer } from '../tests/support/built-server.ts';
 import { startBalancer, type Balancer } from '../tests/support/cluster.ts';
 import { baseUrl, reportFigure } from './lib/figure.ts';
+import { LARGEST_BOARD } from './lib/largest-board.ts';
 
 const BASE_URL = baseUrl();
 const CONCURRENT_EXPORTS = 40;
@@ -29,16 +30,7 @@ const HEALTH_GOAL_MS = 200;
 /** The largest board the caps allow (as in export-load.ts) on Letter at the default overlap: about 0.45 s of one core each here. */
 const EXPORT = {
   path: '/api/export?format=pdf&paper=letter',
-  design: {
-    name: 'Bench: largest board',
-    units: 'mm',
-    strings: 16,
-    frets: 36,
-    scale: { treble: 5000, bass: 5000 },
-    perpendicularFret: 0,
-    stringSpacing: { nut: 500, bridge: 500 },
-    temperament: { kind: 'equal', divisions: 12 },
-  },
+  design: LARGEST_BOARD,
 };
 
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
