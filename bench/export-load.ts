@@ -12,6 +12,7 @@ import { readFileSync } from 'node:fs';
 import { closeDb } from '~/lib/db/client.server.ts';
 import { newShopUser } from '../tests/support/sessions.ts';
 import { baseUrl, reportFigure } from './lib/figure.ts';
+import { LARGEST_BOARD } from './lib/largest-board.ts';
 
 const BASE_URL = baseUrl();
 const CONCURRENT_EXPORTS = 20;
@@ -21,16 +22,7 @@ const RSS_SAMPLE_MS = 50;
 
 const HEAVIEST = {
   path: '/api/export?format=pdf&paper=letter&overlap=99.9',
-  design: {
-    name: 'Bench: largest board',
-    units: 'mm',
-    strings: 16,
-    frets: 36,
-    scale: { treble: 5000, bass: 5000 },
-    perpendicularFret: 0,
-    stringSpacing: { nut: 500, bridge: 500 },
-    temperament: { kind: 'equal', divisions: 12 },
-  },
+  design: LARGEST_BOARD,
 };
 
 function percentile(values: number[], p: number): number {

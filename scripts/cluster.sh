@@ -14,7 +14,7 @@ source scripts/cluster/haproxy.sh
 galera_env "${CLUSTER_DIR:-.data/cluster}"
 run="$CLUSTER_DIR/run"
 export CLUSTER_PORT=${CLUSTER_PORT:-4330}
-export DATABASE_URL="mysql://kerfline:kerfline-local@$(galera_hosts)/kerfline"
+export DATABASE_URL=$(galera_app_url)
 export APP_ORIGIN=${APP_ORIGIN:-http://127.0.0.1:$CLUSTER_PORT}
 export SMTP_PORT=${SMTP_PORT:-2526}
 export SMTP_URL=${SMTP_URL:-smtp://127.0.0.1:$SMTP_PORT}
@@ -25,6 +25,10 @@ export KERFLINE_MODE=${KERFLINE_MODE:-demo}
 export TRUSTED_PROXIES=${TRUSTED_PROXIES:-loopback}
 export HOST=127.0.0.1
 apps=${CLUSTER_APPS:-2}
+# The processes share this machine's cores: each gets PDF worker threads for its share, one core
+# of the share left to its request thread, at least 1 and at most 4 (docs/operations.md).
+share=$(($(nproc) / apps - 1))
+export EXPORT_THREADS=${EXPORT_THREADS:-$((share < 1 ? 1 : share > 4 ? 4 : share))}
 
 # Stops the processes named by pid files in run/ (HAProxy, apps, fake SMTP), then the nodes.
 stop_cluster() {

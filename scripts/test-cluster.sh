@@ -2,7 +2,8 @@
 # npm run test:cluster (also a step of npm test): a throwaway three-node Galera cluster on free
 # loopback ports (installing galera-4, haproxy and rsync from Debian when missing), migrated and
 # seeded, the built app and the fake SMTP; then the cluster tests (tests/cluster), which start
-# their own app processes and HAProxy and stop and kill nodes. Always tears down.
+# their own app processes and HAProxy and stop and kill nodes (the backup round trip also
+# bootstraps a second, fresh cluster of its own). Always tears down.
 # `test-cluster.sh RESULTS_DIR [WORD...]` writes cluster.json there (npm test adds it to its
 # closing line); run alone, it prints its own "N passed, N failed".
 set -uo pipefail

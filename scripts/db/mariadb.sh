@@ -55,13 +55,7 @@ create_app_db() {
   : "${DATABASE_URL:?DATABASE_URL must be set}"
   # The URL was validated by scripts/db/database-url.ts; this reads its parts as shell words.
   eval "$(cd "$here/../.." && node_modules/.bin/tsx scripts/db/database-url.ts --shell)"
-  client <<SQL
-CREATE DATABASE IF NOT EXISTS \`$DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
-CREATE USER IF NOT EXISTS '$DB_USER'@'127.0.0.1' IDENTIFIED BY '$DB_PASSWORD';
-CREATE USER IF NOT EXISTS '$DB_USER'@'localhost' IDENTIFIED BY '$DB_PASSWORD';
-GRANT ALL PRIVILEGES ON \`$DB_NAME\`.* TO '$DB_USER'@'127.0.0.1';
-GRANT ALL PRIVILEGES ON \`$DB_NAME\`.* TO '$DB_USER'@'localhost';
-SQL
+  app_db_sql | client
 }
 
 case "${1:-}" in

@@ -69,3 +69,15 @@ wait_http() {
   done
   return 1
 }
+
+# The SQL that makes the app's database and its user (from DB_NAME, DB_USER, DB_PASSWORD, as
+# scripts/db/database-url.ts --shell sets them), for one server or one Galera node alike.
+app_db_sql() {
+  cat <<SQL
+CREATE DATABASE IF NOT EXISTS \`$DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE USER IF NOT EXISTS '$DB_USER'@'127.0.0.1' IDENTIFIED BY '$DB_PASSWORD';
+CREATE USER IF NOT EXISTS '$DB_USER'@'localhost' IDENTIFIED BY '$DB_PASSWORD';
+GRANT ALL PRIVILEGES ON \`$DB_NAME\`.* TO '$DB_USER'@'127.0.0.1';
+GRANT ALL PRIVILEGES ON \`$DB_NAME\`.* TO '$DB_USER'@'localhost';
+SQL
+}

@@ -71,6 +71,10 @@ galera_hosts() {
   (IFS=,; echo "${out[*]}")
 }
 
+# The DATABASE_URL of `npm run cluster`'s app (also what npm run backup/restore -- --cluster use
+# when DATABASE_URL is not set).
+galera_app_url() { echo "mysql://kerfline:kerfline-local@$(galera_hosts)/kerfline"; }
+
 # Prints the node's wsrep_local_state_comment (Synced, Donor/Desynced, Joining…), or "down".
 node_state() {
   node_sql "$1" -Nse "SHOW GLOBAL STATUS LIKE 'wsrep_local_state_comment'" 2>/dev/null | cut -f2 || true
@@ -167,11 +171,5 @@ galera_stop_all() {
 # Creates the app's database and user on the cluster (replicated to every node).
 galera_create_app_db() {
   eval "$(node_modules/.bin/tsx scripts/db/database-url.ts --shell)"
-  node_sql 1 <<SQL
-CREATE DATABASE IF NOT EXISTS \`$DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
-CREATE USER IF NOT EXISTS '$DB_USER'@'127.0.0.1' IDENTIFIED BY '$DB_PASSWORD';
-CREATE USER IF NOT EXISTS '$DB_USER'@'localhost' IDENTIFIED BY '$DB_PASSWORD';
-GRANT ALL PRIVILEGES ON \`$DB_NAME\`.* TO '$DB_USER'@'127.0.0.1';
-GRANT ALL PRIVILEGES ON \`$DB_NAME\`.* TO '$DB_USER'@'localhost';
-SQL
+  app_db_sql | node_sql 1
 }

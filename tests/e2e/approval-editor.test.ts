@@ -3,29 +3,19 @@
  * before the first change that moves it off the approved layout (undo or keep), then warned in
  * the editor, the Boards list and the Export panel, and the print names its new revision.
  */
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { createProof, decideProof } from '~/lib/proofs/proofs.server.ts';
 import type { BoardDetail, BoardList } from '~/lib/schemas/board.ts';
-import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
-import { signInAs, type TestUser } from '../support/sessions.ts';
+import { BASE_URL, saveScreenshot } from '../support/browser.ts';
+import { browserSuite } from '../support/browser-suite.ts';
 import { signedInApi } from '../support/signed-in-api.ts';
-import { closeDb } from '../support/test-db.ts';
 
-let browser: Browser;
-let builder: TestUser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-  builder = await signInAs('builder@wrenfield.example');
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeDb();
-});
+const suite = browserSuite();
 
-const api = signedInApi(() => builder);
+const api = signedInApi(() => suite.builder);
 const perpendicular = (page: Page) => page.getByLabel(/^Perpendicular fret/);
 
 describe('an approved board in the editor', () => {
@@ -33,12 +23,12 @@ describe('an approved board in the editor', () => {
     const name = `Approved fan ${Date.now()}`;
     const design = { ...structuredClone(DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan')!.design), name };
     const board = await api<BoardDetail>('/api/boards', 'POST', { design, clientName: 'Ines Calloway' });
-    const proof = await createProof(builder, board.id, { clientName: 'Ines Calloway', clientEmail: `ines-${Date.now()}@wrenfield.example`, message: '', expiresInDays: 30 }, new Date());
+    const proof = await createProof(suite.builder, board.id, { clientName: 'Ines Calloway', clientEmail: `ines-${Date.now()}@wrenfield.example`, message: '', expiresInDays: 30 }, new Date());
     const token = proof!.link.slice(proof!.link.lastIndexOf('/') + 1);
     expect((await decideProof({ token }, { decision: 'approved', name: 'Ines', confirmed: true }, new Date())).ok).toBe(true);
 
-    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
-    await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
+    const context = await suite.browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    await context.addCookies([{ name: SESSION_COOKIE, value: suite.builder.token, url: BASE_URL }]);
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/layout?board=${board.id}`, { waitUntil: 'networkidle' });
     await page.getByText('Approved by the client: revision 1').waitFor();

@@ -3,33 +3,24 @@
  * scratch design to Boards, finds it, edits it (autosave, then "Save revision"), restores the first
  * revision from the editor's history and archives it; a save that lost a race keeps the edit.
  */
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
-import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
+import { BASE_URL, saveScreenshot } from '../support/browser.ts';
+import { browserSuite } from '../support/browser-suite.ts';
 import { typeFannedSevenString, waitUntilFannedSevenStringKept } from '../support/editor-form.ts';
 import { readScene } from '../support/konva-scene.ts';
 import { signInAs, type TestUser } from '../support/sessions.ts';
 import { signedInApi } from '../support/signed-in-api.ts';
-import { closeDb } from '../support/test-db.ts';
 
-let browser: Browser;
-let builder: TestUser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-  builder = await signInAs('builder@wrenfield.example');
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeDb();
-});
+const suite = browserSuite();
 
-const api = signedInApi(() => builder);
+const api = signedInApi(() => suite.builder);
 
 async function signedInContext(user: TestUser): Promise<BrowserContext> {
-  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+  const context = await suite.browser.newContext({ viewport: { width: 1400, height: 1000 } });
   await context.addCookies([{ name: SESSION_COOKIE, value: user.token, url: BASE_URL }]);
   return context;
 }
@@ -44,7 +35,7 @@ function boardIdIn(url: string): number {
 describe('Layout editor and Boards in Chromium (built server)', () => {
   it('saves the fanned 7-string to Boards, finds it, autosaves an edit, restores revision 1 from the history and archives it', async () => {
     const name = `Fanned seven ${Date.now()}`;
-    const context = await signedInContext(builder);
+    const context = await signedInContext(suite.builder);
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
 
@@ -120,7 +111,7 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
   it('a save that lost a race keeps the edit, shows what changed, and saves it as a copy', async () => {
     const design = { ...structuredClone(DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan')!.design), name: `Raced seven ${Date.now()}` };
     const board = await api<BoardDetail>('/api/boards', 'POST', { design });
-    const context = await signedInContext(builder);
+    const context = await signedInContext(suite.builder);
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/layout?board=${board.id}`, { waitUntil: 'networkidle' });
     await savedBadge(page).waitFor();
@@ -148,7 +139,7 @@ describe('Layout editor and Boards in Chromium (built server)', () => {
   });
 
   it('visitors and clients keep the scratch design: no Save to Boards, and a saved board is not theirs to open', async () => {
-    const visitor = await browser.newPage();
+    const visitor = await suite.browser.newPage();
     await visitor.goto(`${BASE_URL}/layout`, { waitUntil: 'networkidle' });
     await keptGroup(visitor).getByText('Scratch design, kept in this browser only').waitFor();
     expect(await visitor.getByRole('button', { name: 'Save to Boards' }).count()).toBe(0);

@@ -1,33 +1,22 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
-import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
-import { signInAs, type TestUser } from '../support/sessions.ts';
+import { BASE_URL, saveScreenshot } from '../support/browser.ts';
+import { browserSuite } from '../support/browser-suite.ts';
 import { signedInApi } from '../support/signed-in-api.ts';
-import { closeDb } from '../support/test-db.ts';
 
-let browser: Browser;
-let builder: TestUser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-  builder = await signInAs('builder@wrenfield.example');
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeDb();
-});
+const suite = browserSuite();
 
-const api = signedInApi(() => builder);
+const api = signedInApi(() => suite.builder);
 
 describe('Boards page in Chromium (built server)', () => {
   it('finds a saved fanned 7-string by search, shows its history, restores revision 1 and archives it', async () => {
     const design = { ...structuredClone(DEMO_DESIGNS.find((d) => d.id === 'seven-string-fan')!.design), name: `Fanned seven ${Date.now()}` };
     const board = await api<BoardDetail>('/api/boards', 'POST', { design, clientName: 'Ines Calloway', instrumentType: 'guitar' });
 
-    const context = await browser.newContext();
-    await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
+    const context = await suite.browser.newContext();
+    await context.addCookies([{ name: SESSION_COOKIE, value: suite.builder.token, url: BASE_URL }]);
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/boards`);
     await page.getByLabel('Search name or client').fill(design.name);
@@ -76,8 +65,8 @@ describe('Boards page in Chromium (built server)', () => {
   });
 
   it('shows the demo shop boards with their clients, sorted by scale', async () => {
-    const context = await browser.newContext();
-    await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
+    const context = await suite.browser.newContext();
+    await context.addCookies([{ name: SESSION_COOKIE, value: suite.builder.token, url: BASE_URL }]);
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/boards?q=Demo%3A&sort=scale`);
     await page.getByRole('link', { name: 'Demo: mandolin, 13.875 in', exact: true }).waitFor();

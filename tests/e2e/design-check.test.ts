@@ -6,32 +6,23 @@
  */
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Browser, BrowserContext } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext } from 'playwright-core';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { newToken } from '~/lib/auth/index.server.ts';
-import { ARTIFACTS_DIR, BASE_URL, launchBrowser } from '../support/browser.ts';
+import { ARTIFACTS_DIR, BASE_URL } from '../support/browser.ts';
+import { browserSuite } from '../support/browser-suite.ts';
 import { ensureDesign } from '../support/designs.ts';
-import { signInAs, type TestUser } from '../support/sessions.ts';
-import { closeDb } from '../support/test-db.ts';
 
-let browser: Browser;
-let builder: TestUser;
+const suite = browserSuite();
 let classicalId: number;
 
 beforeAll(async () => {
-  browser = await launchBrowser();
-  builder = await signInAs('builder@wrenfield.example');
-  classicalId = await ensureDesign(builder.shopId, builder.id, '650 mm classical', 'classical-650');
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await closeDb();
+  classicalId = await ensureDesign(suite.builder.shopId, suite.builder.id, '650 mm classical', 'classical-650');
 });
 
 async function signedIn(): Promise<BrowserContext> {
-  const context = await browser.newContext();
-  const [name, value] = builder.cookie.split('=') as [string, string];
+  const context = await suite.browser.newContext();
+  const [name, value] = suite.builder.cookie.split('=') as [string, string];
   await context.addCookies([{ name, value, url: BASE_URL }]);
   return context;
 }

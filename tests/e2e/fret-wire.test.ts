@@ -2,29 +2,17 @@
  * The Fret wire page in Chromium on the built app, as the demo builder: the three generic sizes
  * marked "from memory", adding a wire with the keyboard, and a bad size named next to the form.
  */
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { newToken } from '~/lib/auth/index.server.ts';
-import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
-import { signInAs, type TestUser } from '../support/sessions.ts';
-import { closeDb } from '../support/test-db.ts';
+import { BASE_URL, saveScreenshot } from '../support/browser.ts';
+import { browserSuite } from '../support/browser-suite.ts';
 
-let browser: Browser;
-let builder: TestUser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-  builder = await signInAs('builder@wrenfield.example');
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeDb();
-});
+const suite = browserSuite();
 
 describe('Fret wire page (Chromium, built server)', () => {
   it('lists the generic sizes from memory, adds a wire typed with the keyboard, and names a bad size', async () => {
-    const context = await browser.newContext();
-    const [name, value] = builder.cookie.split('=') as [string, string];
+    const context = await suite.browser.newContext();
+    const [name, value] = suite.builder.cookie.split('=') as [string, string];
     await context.addCookies([{ name, value, url: BASE_URL }]);
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/fret-wire`, { waitUntil: 'networkidle' });

@@ -3,35 +3,27 @@
  * page sideways; every panel (design, fret table, exports, history, proofs) opens in the side
  * panel with the drawing still in view beside it; fret numbers never overprint at the default zoom.
  */
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
-import { BASE_URL, launchBrowser } from '../support/browser.ts';
+import { BASE_URL } from '../support/browser.ts';
+import { browserSuite } from '../support/browser-suite.ts';
 import { ensureDesign } from '../support/designs.ts';
 import { waitForDrawing } from '../support/konva-scene.ts';
-import { signInAs, type TestUser } from '../support/sessions.ts';
 import { shopRows } from '../support/shop-rows.ts';
-import { closeDb } from '../support/test-db.ts';
 
-let browser: Browser;
-let builder: TestUser;
+const suite = browserSuite();
 let boardId: number;
 
 beforeAll(async () => {
-  browser = await launchBrowser();
-  builder = await signInAs('builder@wrenfield.example');
-  boardId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
+  boardId = await ensureDesign(suite.builder.shopId, suite.builder.id, 'Seven-string', 'seven-string-fan');
   // A proof with a long address, so the Proofs panel has a row to fit.
-  await shopRows(builder.shopId, builder.id, 'a-client-with-a-rather-long-address@wrenfield.example', 'Laptop fit', boardId);
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeDb();
+  await shopRows(suite.builder.shopId, suite.builder.id, 'a-client-with-a-rather-long-address@wrenfield.example', 'Laptop fit', boardId);
 });
 
 async function builderPage(width: number, height: number): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width, height } });
-  await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
+  const context = await suite.browser.newContext({ viewport: { width, height } });
+  await context.addCookies([{ name: SESSION_COOKIE, value: suite.builder.token, url: BASE_URL }]);
   return context.newPage();
 }
 

@@ -1,28 +1,20 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { createProof, revokeProof } from '~/lib/proofs/proofs.server.ts';
-import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
+import { BASE_URL, saveScreenshot } from '../support/browser.ts';
+import { browserSuite } from '../support/browser-suite.ts';
 import { ensureDesign } from '../support/designs.ts';
 import { hoverFret, readScene } from '../support/konva-scene.ts';
 import { linkIn, waitForMail } from '../support/outbox.ts';
-import { signInAs, type TestUser } from '../support/sessions.ts';
-import { closeDb } from '../support/test-db.ts';
+import { signInAs } from '../support/sessions.ts';
 
 const DAY_MS = 86_400_000;
 
-let browser: Browser;
-let builder: TestUser;
+const suite = browserSuite();
 let boardId: number;
 
 beforeAll(async () => {
-  browser = await launchBrowser();
-  builder = await signInAs('builder@wrenfield.example');
-  boardId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeDb();
+  boardId = await ensureDesign(suite.builder.shopId, suite.builder.id, 'Seven-string', 'seven-string-fan');
 });
 
 /** The app's link, moved onto the server under test (e-mails use APP_ORIGIN, which is the same in npm test). */
@@ -33,8 +25,8 @@ function onTestServer(link: string): string {
 
 describe('the proof page\'s server-drawn board (what shows without JavaScript)', () => {
   it('draws the ukulele\'s zero fret, all 18 frets, 6 face dots of 6 mm and 5 side dots of 2 mm, nut, saddle, outline and centre line', async () => {
-    const ukulele = await ensureDesign(builder.shopId, builder.id, 'Tenor ukulele', 'tenor-ukulele');
-    const sent = await createProof(builder, ukulele, { clientName: 'Ines Calloway', clientEmail: 'ines-svg@wrenfield.example', message: '', expiresInDays: 30 }, new Date());
+    const ukulele = await ensureDesign(suite.builder.shopId, suite.builder.id, 'Tenor ukulele', 'tenor-ukulele');
+    const sent = await createProof(suite.builder, ukulele, { clientName: 'Ines Calloway', clientEmail: 'ines-svg@wrenfield.example', message: '', expiresInDays: 30 }, new Date());
     const html = await (await fetch(`${BASE_URL}${new URL(sent!.link).pathname}`)).text();
     const svg = /<svg[^>]*data-drawing="proof-board"[\s\S]*?<\/svg>/.exec(html)![0];
     const frets = [...svg.matchAll(/data-fret="(\d+)"/g)].map((m) => Number(m[1]));
@@ -53,8 +45,8 @@ describe('the proof page\'s server-drawn board (what shows without JavaScript)',
 
 describe('Proof in Chromium (built server)', () => {
   it('the builder shares the fanned 7-string, the client opens the e-mailed link without an account and approves', async () => {
-    const builderContext = await browser.newContext();
-    await builderContext.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
+    const builderContext = await suite.browser.newContext();
+    await builderContext.addCookies([{ name: SESSION_COOKIE, value: suite.builder.token, url: BASE_URL }]);
     const panel = await builderContext.newPage();
     await panel.goto(`${BASE_URL}/boards/${boardId}/proofs`);
     const email = `client-e2e-${Date.now()}@wrenfield.example`;
@@ -69,7 +61,7 @@ describe('Proof in Chromium (built server)', () => {
     const mail = await waitForMail(email, /./);
     expect(linkIn(mail, '/p/').url).toBe(shownLink);
 
-    const clientContext = await browser.newContext();
+    const clientContext = await suite.browser.newContext();
     expect(await clientContext.cookies()).toEqual([]);
     const proof = await clientContext.newPage();
     const response = await proof.goto(onTestServer(shownLink));
@@ -128,7 +120,7 @@ describe('Proof in Chromium (built server)', () => {
     expect(await row.locator('[data-label="state"]').textContent()).toBe('approved');
     expect(await row.textContent()).toContain('Approved by Ines Calloway');
     await saveScreenshot(panel, 'proof-panel-approved');
-    const answerMail = await waitForMail(builder.email, /^Proof approved: a client answered on Kerfline$/);
+    const answerMail = await waitForMail(suite.builder.email, /^Proof approved: a client answered on Kerfline$/);
     expect(answerMail.text).toContain('Ines Calloway approved revision');
     await builderContext.close();
     await clientContext.close();
@@ -136,8 +128,8 @@ describe('Proof in Chromium (built server)', () => {
 
   it('a signed-in client finds the proof under Shared with me and asks for changes there', async () => {
     const client = await signInAs('client@wrenfield.example');
-    const sent = await createProof(builder, boardId, { clientName: 'Ines Calloway', clientEmail: client.email, message: 'Second look', expiresInDays: 30 }, new Date());
-    const context = await browser.newContext();
+    const sent = await createProof(suite.builder, boardId, { clientName: 'Ines Calloway', clientEmail: client.email, message: 'Second look', expiresInDays: 30 }, new Date());
+    const context = await suite.browser.newContext();
     await context.addCookies([{ name: SESSION_COOKIE, value: client.token, url: BASE_URL }]);
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/shared`);
@@ -158,9 +150,9 @@ describe('Proof in Chromium (built server)', () => {
 
   it('unknown, expired, revoked and malformed links all get the same 404 page', async () => {
     const input = { clientName: 'C', clientEmail: `gone-${Date.now()}@wrenfield.example`, message: '', expiresInDays: 1 };
-    const expired = await createProof(builder, boardId, input, new Date(Date.now() - 2 * DAY_MS));
-    const revoked = await createProof(builder, boardId, input, new Date());
-    await revokeProof(builder.shopId, revoked!.proof.id, new Date());
+    const expired = await createProof(suite.builder, boardId, input, new Date(Date.now() - 2 * DAY_MS));
+    const revoked = await createProof(suite.builder, boardId, input, new Date());
+    await revokeProof(suite.builder.shopId, revoked!.proof.id, new Date());
     const paths = ['/p/AAAAAAAAAAAAAAAAAAAAAA', new URL(expired!.link).pathname, new URL(revoked!.link).pathname, '/p/not-a-token'];
     const answers = [];
     for (const path of paths) {

@@ -6,7 +6,8 @@
 import { parseRecordId } from '~/lib/http/record-id.ts';
 import { CAN, type SessionUser } from '~/lib/auth/index.server.ts';
 import { requireRole } from '~/lib/http/require-role.ts';
-import { getBoard, type WriteResult } from '~/lib/boards/boards.server.ts';
+import { getBoard, type WriteFailure, type WriteResult } from '~/lib/boards/boards.server.ts';
+import { failureAnswer, type FailureAnswers } from '~/lib/http/result.ts';
 import { json, problem, type Checked, type FieldIssue } from '~/lib/http/problem.ts';
 import type { BoardDetail } from '~/lib/schemas/board.ts';
 import { validateDesign, type Design } from '~/lib/schemas/design.ts';
@@ -91,16 +92,13 @@ export function approvalChange(approval: { revision: number; fingerprint: string
   });
 }
 
+const WRITE_FAILURES: FailureAnswers<WriteFailure> = {
+  not_found: () => boardNotFound(),
+  conflict: (failure) => conflict(failure.current),
+  no_such_revision: () => problem(404, 'This board has no such revision', { field: 'revision' }),
+  approval: (failure) => approvalChange(failure.approval),
+};
+
 export function writeResponse(result: WriteResult<BoardDetail>, status = 200): Response {
-  if (result.ok) return json(result.value, status);
-  switch (result.reason) {
-    case 'not_found':
-      return boardNotFound();
-    case 'conflict':
-      return conflict(result.current);
-    case 'no_such_revision':
-      return problem(404, 'This board has no such revision', { field: 'revision' });
-    case 'approval':
-      return approvalChange(result.approval);
-  }
+  return result.ok ? json(result.value, status) : failureAnswer(result, WRITE_FAILURES);
 }

@@ -29,6 +29,7 @@ import type { RevisionReason } from '~/lib/schemas/board.ts';
 import { db, type Db } from '~/lib/db/client.server.ts';
 import { boardRevisions, boards, proofs, users } from '~/lib/db/schema.ts';
 import { withRetry } from '~/lib/db/with-retry.server.ts';
+import type { Failure } from '~/lib/http/result.ts';
 
 /** Who writes: the signed-in user's id and shop. */
 export interface Writer {
@@ -36,12 +37,12 @@ export interface Writer {
   shopId: number;
 }
 
-export type WriteResult<T> =
-  | { ok: true; value: T }
-  | { ok: false; reason: 'not_found' }
-  | { ok: false; reason: 'conflict'; current: BoardDetail }
-  | { ok: false; reason: 'no_such_revision' }
-  | { ok: false; reason: 'approval'; approval: Approval };
+export type WriteFailure =
+  | Failure<'not_found'>
+  | Failure<'conflict', { current: BoardDetail }>
+  | Failure<'no_such_revision'>
+  | Failure<'approval', { approval: Approval }>;
+export type WriteResult<T> = { ok: true; value: T } | WriteFailure;
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 /** The pool, or an open transaction of another module (proofs write their own rows beside these). */

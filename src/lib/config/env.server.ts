@@ -19,6 +19,11 @@ const envSchema = z.object({
   OUTBOX_DIR: z.string().default('.data/outbox'),
   /** Multiplies every rate limit budget; only for a load-test server (docs/operations.md). */
   RATE_LIMIT_SCALE: z.coerce.number().positive().max(1_000_000).default(1),
+  /**
+   * PDF worker threads of this process; unset: worked out from the cores (export-limits.ts).
+   * Several processes on one machine share its cores (docs/operations.md, "Heavy work spreads").
+   */
+  EXPORT_THREADS: z.coerce.number().int().min(1).max(16).optional(),
   /** The payment service's secret API key; without it (and the webhook secret) deposits are off. */
   PAYMENTS_SECRET_KEY: z.string().trim().default(''),
   /** The secret the payment service signs webhooks with (its endpoint's signing secret). */
@@ -36,6 +41,8 @@ export interface AppConfig {
   outboxDir: string;
   /** Factor on every rate limit budget's points (1 in normal use). */
   rateLimitScale: number;
+  /** PDF worker threads when set; otherwise the pool works them out from the cores. */
+  exportThreads: number | undefined;
   /** Null when deposits are off: no secret key or no webhook secret. */
   payments: PaymentSettings | null;
 }
@@ -85,6 +92,7 @@ export function config(): AppConfig {
     mode: parsed.data.KERFLINE_MODE,
     outboxDir: parsed.data.OUTBOX_DIR,
     rateLimitScale: parsed.data.RATE_LIMIT_SCALE,
+    exportThreads: parsed.data.EXPORT_THREADS,
     payments: paymentSettings(parsed.data),
   };
   return cached;

@@ -24,7 +24,11 @@ export const EXPORT_LIMITS = {
 
 /** The worker pool that builds PDFs off the request thread (export-pool.server.ts). */
 export const EXPORT_POOL = {
-  /** Worker threads: one core is left to the web server; at most 4, as each may hold a large PDF. */
+  /**
+   * Worker threads of one process when EXPORT_THREADS is not set: one core is left to the web
+   * server; at most 4, as each may hold a large PDF. Several processes on one machine share its
+   * cores: set EXPORT_THREADS on each (npm run cluster does: cores ÷ processes - 1, at least 1).
+   */
   threads: (cores: number): number => Math.min(4, Math.max(1, cores - 1)),
   /**
    * Jobs waiting for a thread beyond those running; one more is answered 503. Eight of the

@@ -6,7 +6,8 @@
 import { json, problem, type Checked } from '~/lib/http/problem.ts';
 import { PROOF_DECISION_BUDGET } from '~/lib/http/rate-budgets.ts';
 import { consume, type Counter } from '~/lib/http/rate-limit.server.ts';
-import type { DecideResult } from './proofs.server.ts';
+import { failureAnswer, type FailureAnswers } from '~/lib/http/result.ts';
+import type { DecideFailure, DecideResult } from './proofs.server.ts';
 
 /** Room for the longest comment in multi-byte characters, plus the other fields. */
 export const DECISION_BODY_MAX_BYTES = 16 * 1024;
@@ -27,14 +28,12 @@ export async function countDecision(rateKey: string): Promise<Checked<null>> {
 }
 
 /** 200 with the decision; 404 when not available; 409 when already answered or expired. */
+const DECIDE_FAILURES: FailureAnswers<DecideFailure> = {
+  not_found: () => problem(404, PROOF_NOT_AVAILABLE),
+  already_decided: () => problem(409, 'This proof has already been answered; ask the shop for a new one to change your answer'),
+  expired: () => problem(409, 'This proof has expired; ask the shop for a new link'),
+};
+
 export function decisionAnswer(result: DecideResult): Response {
-  if (result.ok) return json({ decision: result.decision });
-  switch (result.reason) {
-    case 'not_found':
-      return problem(404, PROOF_NOT_AVAILABLE);
-    case 'already_decided':
-      return problem(409, 'This proof has already been answered; ask the shop for a new one to change your answer');
-    case 'expired':
-      return problem(409, 'This proof has expired; ask the shop for a new link');
-  }
+  return result.ok ? json({ decision: result.decision }) : failureAnswer(result, DECIDE_FAILURES);
 }

@@ -24,6 +24,7 @@ import { boardRevisions, boards, proofs, shops, users } from '~/lib/db/schema.ts
 import { depositsOfProofs, depositsOn, saveDeposit } from '~/lib/payments/deposits.server.ts';
 import type { DepositSummary } from '~/lib/schemas/deposit.ts';
 import { mailBuilderDecision, mailClientProof } from '~/lib/proofs/proof-mails.server.ts';
+import type { Failure } from '~/lib/http/result.ts';
 
 const DAY_MS = 86_400_000;
 
@@ -58,9 +59,8 @@ export interface ProofPage {
   timeZone: string;
 }
 
-export type DecideResult =
-  | { ok: true; decision: ProofDecision; mailed: boolean }
-  | { ok: false; reason: 'not_found' | 'already_decided' | 'expired' };
+export type DecideFailure = Failure<'not_found' | 'already_decided' | 'expired'>;
+export type DecideResult = { ok: true; decision: ProofDecision; mailed: boolean } | DecideFailure;
 
 type ProofRow = typeof proofs.$inferSelect;
 
@@ -229,7 +229,8 @@ export async function decideProof(locator: ProofLocator, input: DecisionInput, n
 }
 
 /** Revokes a proof of the shop (again is harmless). Null when there is no such proof in the shop. */
-export type RevokeResult = { ok: true; proof: ProofSummary } | { ok: false; reason: 'not_found' | 'answered' };
+export type RevokeFailure = Failure<'not_found' | 'answered'>;
+export type RevokeResult = { ok: true; proof: ProofSummary } | RevokeFailure;
 
 /**
  * Revokes a proof of the shop that the client has not answered yet (an answer is a record of what

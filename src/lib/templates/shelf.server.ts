@@ -4,6 +4,8 @@
  */
 import { and, asc, count, desc, eq, isNull, like, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '~/lib/db/client.server.ts';
+import type { FieldIssue } from '~/lib/http/problem.ts';
+import type { Failure } from '~/lib/http/result.ts';
 import { MM_PER_INCH } from '~/lib/format/units.ts';
 import { boardRevisions, boards, templateChecks, templates } from '~/lib/db/schema.ts';
 import type { CheckResult } from '~/lib/templates/check/compare.ts';
@@ -18,16 +20,10 @@ type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 /** The pool or an open transaction: the functions below run in either. */
 type Conn = Db | Tx;
 
-export type ShelfError =
-  | { kind: 'not_found'; field?: string; message: string }
-  | { kind: 'conflict'; field?: string; message: string }
-  | { kind: 'invalid'; issues: { path: string; message: string }[] };
-export type ShelfResult<T> = { ok: true; value: T } | { ok: false; error: ShelfError };
+export type ShelfFailure = Failure<'not_found', { message: string; field?: string }> | Failure<'invalid', { issues: FieldIssue[] }>;
+export type ShelfResult<T> = { ok: true; value: T } | ShelfFailure;
 
-const notFound = (message: string, field?: string): { ok: false; error: ShelfError } => ({
-  ok: false,
-  error: { kind: 'not_found', message, ...(field ? { field } : {}) },
-});
+const notFound = (message: string, field?: string): ShelfFailure => ({ ok: false, reason: 'not_found', message, ...(field ? { field } : {}) });
 
 const viewColumns = { template: templates, boardName: boards.name };
 
@@ -179,7 +175,7 @@ export async function createTemplate(db: Conn, shopId: number, input: TemplateCr
   let values: typeof templates.$inferInsert;
   if (input.source === 'design') {
     const found = await loadDesignRevision(db, shopId, input.boardId, input.revision);
-    if (!found) return notFound(input.revision ? 'No such design revision in this shop' : 'No such design in this shop', input.revision ? 'revision' : 'boardId');
+    if (!found) return notFound(input.revision ? 'No such board revision in this shop' : 'No such board in this shop', input.revision ? 'revision' : 'boardId');
     const { design } = found;
     values = {
       ...shelf,
@@ -212,7 +208,7 @@ export async function createTemplate(db: Conn, shopId: number, input: TemplateCr
 
 /** Thrown inside the transaction to undo the new template when its check cannot run. */
 class CheckRefused extends Error {
-  constructor(readonly issues: { path: string; message: string }[]) {
+  constructor(readonly issues: FieldIssue[]) {
     super('check refused');
   }
 }
@@ -244,7 +240,7 @@ export async function createTemplateWithCheck(
       return { ok: true as const, value: (await getTemplate(tx, shopId, created.value.id))! };
     });
   } catch (error) {
-    if (error instanceof CheckRefused) return { ok: false, error: { kind: 'invalid', issues: error.issues } };
+    if (error instanceof CheckRefused) return { ok: false, reason: 'invalid', issues: error.issues };
     throw error;
   }
 }

@@ -6,8 +6,10 @@ import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '~/lib/db/client.server.ts';
 import { fretWires } from '~/lib/db/schema.ts';
 import type { FretWire, FretWireInput } from '~/lib/schemas/fret-wire.ts';
+import type { Failure } from '~/lib/http/result.ts';
 
-export type WireResult = { ok: true; wire: FretWire } | { ok: false; reason: 'not_found' | 'duplicate_name' };
+export type WireFailure = Failure<'not_found' | 'duplicate_name'>;
+export type WireResult = { ok: true; wire: FretWire } | WireFailure;
 
 function toWire(row: typeof fretWires.$inferSelect): FretWire {
   const { shopId: _shopId, createdAt: _createdAt, ...wire } = row;

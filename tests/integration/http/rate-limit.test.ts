@@ -78,6 +78,14 @@ describe('shared fixed-window rate limiter (MariaDB store)', () => {
     expect(await countOf(c, 's')).toBe(10);
   });
 
+  it('concurrent requests with a reserve wait for one block instead of each taking one', async () => {
+    const c = { ...counter(100), reserve: 10 };
+    const verdicts = await Promise.all(Array.from({ length: 40 }, () => consume(c, 'herd')));
+    expect(verdicts.filter((v) => v.ok)).toHaveLength(40);
+    // Four blocks of 10 for 40 requests, not one block per request (which would refuse 30 of them).
+    expect(await countOf(c, 'herd')).toBe(40);
+  });
+
   it('never answers a Retry-After below 1 second', async () => {
     vi.useFakeTimers({ toFake: ['Date'], now: 3_000_000_000 });
     const c = counter();

@@ -8,6 +8,7 @@ import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { Piscina } from 'piscina';
+import { config } from '~/lib/config/env.server.ts';
 import type { ExportFile } from '../export-design.server.ts';
 import { EXPORT_POOL } from '../export-limits.ts';
 import type { ExportJob } from './export-job.server.ts';
@@ -62,7 +63,7 @@ export interface ExportPool {
 
 export function defaultPoolSettings(): ExportPoolSettings {
   return {
-    threads: EXPORT_POOL.threads(availableParallelism()),
+    threads: config().exportThreads ?? EXPORT_POOL.threads(availableParallelism()),
     maxQueue: EXPORT_POOL.maxQueue,
     jobTimeoutMs: EXPORT_POOL.jobTimeoutMs,
     workerFile: join(process.cwd(), EXPORT_WORKER_FILE),

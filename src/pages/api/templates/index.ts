@@ -4,11 +4,17 @@ import { db } from '~/lib/db/client.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { invalid, json, problem, zodIssues } from '~/lib/http/problem.ts';
 import { requireRole } from '~/lib/http/require-role.ts';
+import { failureAnswer, type FailureAnswers } from '~/lib/http/result.ts';
 import { templateCreateSchema, templateListQuerySchema } from '~/lib/schemas/template.ts';
 import { TEMPLATE_BODY_MAX_BYTES } from '~/lib/templates/route-context.server.ts';
-import { createTemplate, createTemplateWithCheck, listTemplates } from '~/lib/templates/shelf.server.ts';
+import { createTemplate, createTemplateWithCheck, listTemplates, type ShelfFailure } from '~/lib/templates/shelf.server.ts';
 
 export const prerender = false;
+
+const SHELF_FAILURES: FailureAnswers<ShelfFailure> = {
+  invalid: (failure) => invalid(failure.issues),
+  not_found: (failure) => problem(404, failure.message, { field: failure.field }),
+};
 
 /** GET /api/templates?…: one page of the shop's Template shelf. */
 export const GET: APIRoute = async ({ locals, url }) => {
@@ -32,9 +38,6 @@ export const POST: APIRoute = async ({ locals, request }) => {
   const created = check
     ? await createTemplateWithCheck(db(), allowed.value.shopId, allowed.value.id, template, check)
     : await createTemplate(db(), allowed.value.shopId, template);
-  if (!created.ok) {
-    const { error } = created;
-    return error.kind === 'invalid' ? invalid(error.issues) : problem(404, error.message, { field: error.field });
-  }
+  if (!created.ok) return failureAnswer(created, SHELF_FAILURES);
   return json(created.value, 201, { location: `/api/templates/${created.value.id}` });
 };

@@ -16,7 +16,7 @@ import { PAYMENTS_OFF_MESSAGE } from '~/lib/payments/payment-service.server.ts';
 export const prerender = false;
 
 const BODY_MAX_BYTES = 16 * 1024;
-const NO_DESIGN = 'No such design in your shop';
+const NO_BOARD = 'No such board in your shop';
 
 /** The design's proofs with their state and answers, newest first. */
 export const GET: APIRoute = async ({ params, locals }) => {
@@ -24,7 +24,7 @@ export const GET: APIRoute = async ({ params, locals }) => {
   if (!guard.ok) return guard.response;
   const id = parseRecordId(params.id);
   const list = id !== null ? await listDesignProofs(guard.value.shopId, id, new Date()) : null;
-  if (!list) return problem(404, NO_DESIGN);
+  if (!list) return problem(404, NO_BOARD);
   const deposits: DepositSettings = {
     defaultCurrency: await shopCurrency(db(), guard.value.shopId),
     offMessage: depositsOn() ? null : PAYMENTS_OFF_MESSAGE,
@@ -42,7 +42,7 @@ export const POST: APIRoute = async ({ params, request, locals }) => {
   const guard = requireRole(locals.user, CAN.design);
   if (!guard.ok) return guard.response;
   const id = parseRecordId(params.id);
-  if (id === null) return problem(404, NO_DESIGN);
+  if (id === null) return problem(404, NO_BOARD);
   const parsed = await readValidJson(request, BODY_MAX_BYTES, createProofSchema);
   if (!parsed.ok) return parsed.response;
   if (parsed.value.deposit && !depositsOn()) return problem(503, PAYMENTS_OFF_MESSAGE, { field: 'deposit' });
@@ -52,5 +52,5 @@ export const POST: APIRoute = async ({ params, request, locals }) => {
     return problem(429, `This shop has sent as many proofs as it may for now; try again ${inMinutes(mail.retryAfterSeconds)}`, {}, { 'retry-after': String(mail.retryAfterSeconds) });
   }
   const created = await createProof(guard.value, id, parsed.value, now);
-  return created ? json(created, 201) : problem(404, NO_DESIGN);
+  return created ? json(created, 201) : problem(404, NO_BOARD);
 };
