@@ -4,18 +4,20 @@
  * already paid, 503 deposits off, 502 the payment service refused or could not be reached.
  */
 import { json, problem } from '~/lib/http/problem.ts';
+import { failureAnswer, type FailureAnswers } from '~/lib/http/result.ts';
 import type { CheckoutResult } from './deposits.server.ts';
 
-const STATUS: Record<Exclude<CheckoutResult, { ok: true }>['reason'], number> = {
-  not_found: 404,
-  not_approved: 409,
-  no_deposit: 409,
-  already_paid: 409,
-  off: 503,
-  service: 502,
+type CheckoutFailure = Exclude<CheckoutResult, { ok: true }>;
+
+const ANSWERS: FailureAnswers<CheckoutFailure> = {
+  not_found: (f) => problem(404, f.message),
+  not_approved: (f) => problem(409, f.message),
+  no_deposit: (f) => problem(409, f.message),
+  already_paid: (f) => problem(409, f.message),
+  off: (f) => problem(503, f.message),
+  service: (f) => problem(502, f.message),
 };
 
 export function checkoutAnswer(result: CheckoutResult): Response {
-  if (result.ok) return json({ url: result.url });
-  return problem(STATUS[result.reason], result.message);
+  return result.ok ? json({ url: result.url }) : failureAnswer(result, ANSWERS);
 }

@@ -12,6 +12,7 @@ import type { DepositInput, DepositSummary, RefundInput } from '~/lib/schemas/de
 import { depositSummary } from './deposit-state.ts';
 import { createCheckoutSession, requestRefund, PAYMENTS_OFF_MESSAGE } from './payment-service.server.ts';
 import { formatMoney } from './money.ts';
+import type { Failure } from '~/lib/http/result.ts';
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 type DepositRow = typeof deposits.$inferSelect;
@@ -68,7 +69,7 @@ function summaryOf(
   });
 }
 
-export type SetDepositResult = { ok: true; deposit: DepositSummary } | { ok: false; reason: 'not_found' | 'closed' };
+export type SetDepositResult = { ok: true; deposit: DepositSummary } | Failure<'not_found' | 'closed'>;
 
 /** Attaches (or replaces) the deposit of an open proof of the shop: not answered, not revoked. */
 export async function setProofDeposit(shopId: number, proofId: number, userId: string, input: DepositInput): Promise<SetDepositResult> {
@@ -84,7 +85,7 @@ export async function setProofDeposit(shopId: number, proofId: number, userId: s
 
 export type CheckoutResult =
   | { ok: true; url: string }
-  | { ok: false; reason: 'not_found' | 'not_approved' | 'no_deposit' | 'already_paid' | 'off' | 'service'; message: string };
+  | Failure<'not_found' | 'not_approved' | 'no_deposit' | 'already_paid' | 'off' | 'service', { message: string }>;
 
 /** Where the client comes back to from the pay page: the proof page they left. */
 export interface ReturnPaths {
@@ -129,7 +130,7 @@ export async function startDepositCheckout(where: SQL | undefined, paths: Return
 
 export type RefundResult =
   | { ok: true; deposit: DepositSummary }
-  | { ok: false; reason: 'not_found' | 'no_deposit' | 'not_paid' | 'too_much' | 'off' | 'service'; message: string };
+  | Failure<'not_found' | 'no_deposit' | 'not_paid' | 'too_much' | 'off' | 'service', { message: string }>;
 
 /**
  * Asks the service to refund part or all of a paid deposit of the shop. The refund counts as

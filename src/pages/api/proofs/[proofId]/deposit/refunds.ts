@@ -3,6 +3,7 @@ import { CAN } from '~/lib/auth/index.server.ts';
 import { readValidJson } from '~/lib/http/body.server.ts';
 import { json, problem } from '~/lib/http/problem.ts';
 import { parseRecordId } from '~/lib/http/record-id.ts';
+import { failureAnswer, type FailureAnswers } from '~/lib/http/result.ts';
 import { requireRole } from '~/lib/http/require-role.ts';
 import { refundDeposit, type RefundResult } from '~/lib/payments/deposits.server.ts';
 import { refundInputSchema } from '~/lib/schemas/deposit.ts';
@@ -11,13 +12,13 @@ export const prerender = false;
 
 const BODY_MAX_BYTES = 1024;
 
-const STATUS: Record<Exclude<RefundResult, { ok: true }>['reason'], number> = {
-  not_found: 404,
-  no_deposit: 409,
-  not_paid: 409,
-  too_much: 400,
-  off: 503,
-  service: 502,
+const ANSWERS: FailureAnswers<Exclude<RefundResult, { ok: true }>> = {
+  not_found: (f) => problem(404, f.message),
+  no_deposit: (f) => problem(409, f.message),
+  not_paid: (f) => problem(409, f.message),
+  too_much: (f) => problem(400, f.message, { field: 'amountMinor' }),
+  off: (f) => problem(503, f.message),
+  service: (f) => problem(502, f.message),
 };
 
 /**
@@ -33,6 +34,5 @@ export const POST: APIRoute = async ({ params, request, locals }) => {
   const input = await readValidJson(request, BODY_MAX_BYTES, refundInputSchema);
   if (!input.ok) return input.response;
   const result = await refundDeposit(guard.value.shopId, id, guard.value.id, input.value, new Date());
-  if (result.ok) return json({ deposit: result.deposit }, 202);
-  return problem(STATUS[result.reason], result.message, result.reason === 'too_much' ? { field: 'amountMinor' } : {});
+  return result.ok ? json({ deposit: result.deposit }, 202) : failureAnswer(result, ANSWERS);
 };
