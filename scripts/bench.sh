@@ -18,6 +18,7 @@
 # Other stdout lines are ignored; stderr is shown only when the script fails. A script fails
 # when it exits non-zero, runs out of time or prints no figure; then `npm run bench` exits 1.
 # Unmet goals are shown in the table (and the JSON) but do not change the exit status.
+# `npm run bench -- WORDS` runs only the scripts whose file names contain one of the words.
 set -uo pipefail
 cd "$(dirname "$0")/.."
 source scripts/lib/common.sh
@@ -52,6 +53,15 @@ start_throwaway_server || fail "the built server did not answer on $APP_ORIGIN"
 shopt -s nullglob
 scripts=(bench/*.ts bench/*.mjs)
 [ ${#scripts[@]} -gt 0 ] || fail "no bench scripts found under bench/"
+if [ $# -gt 0 ]; then
+  chosen=()
+  for script in "${scripts[@]}"; do
+    for word in "$@"; do [[ "$(basename "$script")" == *"$word"* ]] && { chosen+=("$script"); break; }; done
+  done
+  [ ${#chosen[@]} -gt 0 ] || fail "no bench script name contains any of: $*"
+  scripts=("${chosen[@]}")
+  say "only bench scripts matching: $*"
+fi
 for script in "${scripts[@]}"; do
   name=$(basename "$script")
   left=$((TOTAL_BUDGET_S - (SECONDS - started)))
