@@ -31,8 +31,8 @@ beforeAll(async () => {
 
 afterAll(() => new Promise<void>((resolve) => server.close(() => resolve())));
 
-async function send(body: Uint8Array, contentType = 'application/json'): Promise<{ readInFront: boolean; hex: string; bodyKind: string }> {
-  const response = await fetch(`${origin}/api/layout`, { method: 'POST', headers: { 'content-type': contentType }, body });
+async function send(body: Buffer, contentType = 'application/json'): Promise<{ readInFront: boolean; hex: string; bodyKind: string }> {
+  const response = await fetch(`${origin}/api/layout`, { method: 'POST', headers: { 'content-type': contentType }, body: new Uint8Array(body) });
   return (await response.json()) as { readInFront: boolean; hex: string; bodyKind: string };
 }
 
