@@ -57,9 +57,11 @@ if [ $# -gt 0 ]; then
   for script in "${scripts[@]}"; do
     for word in "$@"; do [[ "$(basename "$script")" == *"$word"* ]] && { chosen+=("$script"); break; }; done
   done
+  [ ${#chosen[@]} -gt 0 ] || fail "no bench script name contains any of: $*"
   scripts=("${chosen[@]}")
+  say "only bench scripts matching: $*"
 fi
-[ ${#scripts[@]} -gt 0 ] || fail "no bench scripts found under bench/${1:+ whose names contain: $*}"
+[ ${#scripts[@]} -gt 0 ] || fail "no bench scripts found under bench/"
 for script in "${scripts[@]}"; do
   name=$(basename "$script")
   left=$((TOTAL_BUDGET_S - (SECONDS - started)))

@@ -252,11 +252,24 @@ function defaultOf(row: FieldRow, units: LengthUnit): unknown {
   return undefined;
 }
 
+/** Each row with its path split once (every design validated reads every row). */
+const KEYED_ROWS = (DESIGN_FIELDS as readonly FieldRow[]).map((row) => ({ row, keys: split(row.path) }));
+
+function valueAt(source: unknown, [head, member]: [string] | [string, string]): unknown {
+  if (typeof source !== 'object' || source === null) return undefined;
+  const value = (source as Record<string, unknown>)[head];
+  if (member === undefined) return value;
+  return typeof value === 'object' && value !== null ? (value as Record<string, unknown>)[member] : undefined;
+}
+
 /** Every table field of parsed input, with the defaults (converted into `units`) filled in. */
 export function fieldValues(input: unknown, units: LengthUnit): FieldValues {
   const values: Record<string, unknown> = {};
-  for (const row of DESIGN_FIELDS as readonly FieldRow[]) {
-    setFieldValue(values, row.path, fieldValue(input, row.path) ?? defaultOf(row, units));
+  for (const { row, keys } of KEYED_ROWS) {
+    const value = valueAt(input, keys) ?? defaultOf(row, units);
+    const [head, member] = keys;
+    if (member === undefined) values[head] = value;
+    else ((values[head] ??= {}) as Record<string, unknown>)[member] = value;
   }
   // Built row by row from input the schema accepted (required fields present, numbers and flags).
   return values as FieldValues;
@@ -267,6 +280,8 @@ export const LENGTH_ROWS = DESIGN_FIELDS.filter((row): row is Extract<Row, { kin
 export const COUNT_ROWS = DESIGN_FIELDS.filter((row): row is Extract<Row, { kind: 'whole' | 'real' }> => row.kind === 'whole' || row.kind === 'real');
 export const FLAG_ROWS = DESIGN_FIELDS.filter((row): row is Extract<Row, { kind: 'flag' }> => row.kind === 'flag');
 export const CHOICE_ROWS = DESIGN_FIELDS.filter((row): row is Extract<Row, { kind: 'choice' }> => row.kind === 'choice');
+
+const KEYED_LENGTH_ROWS = LENGTH_ROWS.map((row) => ({ row, keys: split(row.path) }));
 
 /** The largest accepted value of a length field, in millimetres. */
 export function maxLengthMm(path: LengthPath): number {
@@ -281,10 +296,10 @@ export interface FieldProblem {
 /** Lengths larger than their row allows (the sign was checked by the schema). */
 export function magnitudeProblems(values: FieldValues, units: LengthUnit): FieldProblem[] {
   const problems: FieldProblem[] = [];
-  for (const row of LENGTH_ROWS) {
-    const value = fieldValue(values, row.path);
+  for (const { row, keys } of KEYED_LENGTH_ROWS) {
+    const value = valueAt(values, keys);
     if (typeof value === 'number' && Math.abs(value) > fromMm(row.maxMm, units)) {
-      problems.push({ path: row.path.split('.'), message: `must be at most ${describeLimit(row.maxMm, units)}` });
+      problems.push({ path: [...keys], message: `must be at most ${describeLimit(row.maxMm, units)}` });
     }
   }
   return problems;

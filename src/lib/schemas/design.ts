@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { formatLength } from '~/lib/format/units.ts';
 import { boardSurface, radiusTooSmall } from '~/lib/geometry/board-radius.ts';
-import { computeLayout } from '~/lib/geometry/layout.ts';
+import { computeLayout, type Layout } from '~/lib/geometry/layout.ts';
 import { parseScl } from '~/lib/geometry/scala.ts';
 import { COUNT_ROWS, fieldShape, fieldValues, magnitudeProblems, maxLengthMm } from './design-fields.ts';
 
@@ -114,7 +114,7 @@ export type Design = ReturnType<typeof normaliseDesign>;
 export const designSchema = designObjectSchema
   .transform(normaliseDesign)
   .superRefine((design, ctx) => {
-    for (const problem of geometryProblems(design)) {
+    for (const problem of geometryCheck(design).problems) {
       ctx.addIssue({ code: z.ZodIssueCode.custom, path: problem.path, message: problem.message });
     }
   });
@@ -129,9 +129,34 @@ export type DesignValidation = { ok: true; design: Design } | { ok: false; issue
 
 /** Validates unknown input (parsed JSON) as a design; never throws. */
 export function validateDesign(input: unknown): DesignValidation {
-  const result = designSchema.safeParse(input);
-  if (result.success) return { ok: true, design: result.data };
-  return { ok: false, issues: result.error.issues.map(toDesignIssue) };
+  const checked = checkDesign(input);
+  return checked.ok ? { ok: true, design: checked.design } : checked;
+}
+
+export type DesignLayoutValidation = { ok: true; design: Design; layout: Layout } | { ok: false; issues: DesignIssue[] };
+
+/**
+ * validateDesign, plus the design's layout: the radius check of a radiused design computes it
+ * already, so a caller that needs it (POST /api/layout) does not compute it a second time.
+ */
+export function validateDesignWithLayout(input: unknown): DesignLayoutValidation {
+  const checked = checkDesign(input);
+  if (!checked.ok) return checked;
+  return { ok: true, design: checked.design, layout: checked.layout ?? computeLayout(checked.design) };
+}
+
+/**
+ * What designSchema.safeParse does (the same issues in the same order), without the layout the
+ * radius check computed being thrown away: the object's checks, then the defaults, then the checks
+ * that need several fields at once.
+ */
+function checkDesign(input: unknown): { ok: true; design: Design; layout: Layout | null } | { ok: false; issues: DesignIssue[] } {
+  const parsed = designObjectSchema.safeParse(input);
+  if (!parsed.success) return { ok: false, issues: parsed.error.issues.map(toDesignIssue) };
+  const design = normaliseDesign(parsed.data);
+  const { problems, layout } = geometryCheck(design);
+  if (problems.length > 0) return { ok: false, issues: problems.map(({ path, message }) => ({ path: path.length === 0 ? 'design' : path.join('.'), message })) };
+  return { ok: true, design, layout };
 }
 
 function toDesignIssue(issue: z.ZodIssue): DesignIssue {
@@ -148,8 +173,8 @@ interface Problem {
   message: string;
 }
 
-/** Checks that need several fields at once, or the design's units. */
-function geometryProblems(design: Design): Problem[] {
+/** Checks that need several fields at once, or the design's units; the layout when the radius check computed it. */
+function geometryCheck(design: Design): { problems: Problem[]; layout: Layout | null } {
   const problems: Problem[] = [
     ...magnitudeProblems(design, design.units),
     ...spreadProblems(design),
@@ -162,14 +187,13 @@ function geometryProblems(design: Design): Problem[] {
     });
   }
   problems.push(...temperamentProblems(design));
-  if (problems.length === 0) problems.push(...radiusProblems(design));
-  return problems;
+  if (problems.length > 0 || design.radius.nut === 0) return { problems, layout: null };
+  const layout = computeLayout(design);
+  return { problems: radiusProblems(design, layout), layout };
 }
 
 /** A radiused top must span the board: R(x) at least half the board's width at every corner. */
-function radiusProblems(design: Design): Problem[] {
-  if (design.radius.nut === 0) return [];
-  const layout = computeLayout(design);
+function radiusProblems(design: Design, layout: Layout): Problem[] {
   const surface = boardSurface(design.radius, layout.frets[layout.frets.length - 1]!.line);
   const tight = radiusTooSmall(surface, layout.outline);
   if (!tight) return [];

@@ -1,10 +1,10 @@
 import type { APIRoute } from 'astro';
 import { compactLayoutJson } from '~/lib/export/layout-json.server.ts';
 import { LAYOUT_FORMATS, isLayoutFormatName, type LayoutFormatName } from '~/lib/export/layout-formats.ts';
-import { computeLayout, fretFractions } from '~/lib/geometry/layout.ts';
+import { fretFractions } from '~/lib/geometry/layout.ts';
 import { readJson } from '~/lib/http/body.server.ts';
 import { invalid, problem } from '~/lib/http/problem.ts';
-import { DESIGN_JSON_MAX_BYTES, validateDesign } from '~/lib/schemas/design.ts';
+import { DESIGN_JSON_MAX_BYTES, validateDesignWithLayout } from '~/lib/schemas/design.ts';
 
 export const prerender = false;
 
@@ -20,10 +20,9 @@ export const POST: APIRoute = async ({ request, url }) => {
   }
   const body = await readJson(request, DESIGN_JSON_MAX_BYTES);
   if (!body.ok) return body.response;
-  const validation = validateDesign(body.value);
+  const validation = validateDesignWithLayout(body.value);
   if (!validation.ok) return invalid(validation.issues);
-  const { design } = validation;
-  const layout = computeLayout(design);
+  const { design, layout } = validation;
   const output = LAYOUT_FORMATS[format];
   const text = format === 'json' && url.searchParams.get('full') !== '1' ? compactLayoutJson(layout, fretFractions(design.temperament, design.frets)) : output.render(layout);
   return new Response(text, { status: 200, headers: { 'content-type': output.contentType, 'cache-control': 'no-store' } });
