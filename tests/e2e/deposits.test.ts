@@ -3,29 +3,21 @@
  * on loopback: approve, the fake's pay page, back to the proof page; "deposit paid" only once the
  * fake's signed webhook reached the app.
  */
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '~/lib/auth/index.server.ts';
 import { createProof } from '~/lib/proofs/proofs.server.ts';
-import { BASE_URL, launchBrowser, saveScreenshot } from '../support/browser.ts';
+import { BASE_URL, saveScreenshot } from '../support/browser.ts';
+import { browserSuite } from '../support/browser-suite.ts';
 import { startBuiltServer } from '../support/built-server.ts';
 import { ensureDesign } from '../support/designs.ts';
 import { fakeOrigin, fakeSessions, holdWebhooks, releaseWebhooks, TEST_CARDS } from '../support/fake-payments.ts';
-import { signInAs, type TestUser } from '../support/sessions.ts';
-import { closeDb } from '../support/test-db.ts';
 
-let browser: Browser;
-let builder: TestUser;
+const suite = browserSuite();
 let boardId: number;
 
 beforeAll(async () => {
-  browser = await launchBrowser();
-  builder = await signInAs('builder@wrenfield.example');
-  boardId = await ensureDesign(builder.shopId, builder.id, 'Seven-string', 'seven-string-fan');
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeDb();
+  boardId = await ensureDesign(suite.builder.shopId, suite.builder.id, 'Seven-string', 'seven-string-fan');
 });
 
 let counter = 0;
@@ -33,7 +25,7 @@ let counter = 0;
 /** A proof of the seven-string with a €500.00 deposit; the path of its link on the test server. */
 async function proofPath(): Promise<{ path: string; proofId: number }> {
   const email = `deposit-e2e-${Date.now()}-${++counter}@wrenfield.example`;
-  const sent = await createProof(builder, boardId, {
+  const sent = await createProof(suite.builder, boardId, {
     clientName: 'Ines Calloway',
     clientEmail: email,
     message: '',
@@ -73,7 +65,7 @@ async function paidBox(page: Page): Promise<string> {
 describe('deposit on approval, in Chromium', () => {
   it('approve, pay on the fake\'s page, back to the proof page: paid (the webhook came before the browser)', async () => {
     const { path } = await proofPath();
-    const page = await browser.newPage();
+    const page = await suite.browser.newPage();
     await page.goto(`${BASE_URL}${path}`);
     await page.getByRole('heading', { name: 'Deposit: €500.00' }).waitFor();
     await approveOn(page);
@@ -86,8 +78,8 @@ describe('deposit on approval, in Chromium', () => {
     await saveScreenshot(page, 'deposit-paid');
 
     // The builder sees it on the board's proofs.
-    const context = await browser.newContext();
-    await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: BASE_URL }]);
+    const context = await suite.browser.newContext();
+    await context.addCookies([{ name: SESSION_COOKIE, value: suite.builder.token, url: BASE_URL }]);
     const panel = await context.newPage();
     await panel.goto(`${BASE_URL}/boards/${boardId}/proofs`);
     expect(await paidBox(panel)).toContain('deposit paid: €500.00');
@@ -97,7 +89,7 @@ describe('deposit on approval, in Chromium', () => {
 
   it('back before the webhook: not paid yet, then paid once the webhook arrives', async () => {
     const { path } = await proofPath();
-    const page = await browser.newPage();
+    const page = await suite.browser.newPage();
     await holdWebhooks();
     try {
       await page.goto(`${BASE_URL}${path}`);
@@ -118,7 +110,7 @@ describe('deposit on approval, in Chromium', () => {
 
   it('decline, go back, and pay later from the proof page; the approval stands meanwhile', async () => {
     const { path } = await proofPath();
-    const page = await browser.newPage();
+    const page = await suite.browser.newPage();
     await page.goto(`${BASE_URL}${path}`);
     await approveOn(page);
     await onPayPage(page);
@@ -143,7 +135,7 @@ describe('deposit on approval, in Chromium', () => {
 
   it('an amount changed in the browser is ignored: the pay page asks for the deposit', async () => {
     const { path } = await proofPath();
-    const page = await browser.newPage();
+    const page = await suite.browser.newPage();
     await page.route('**/deposit-checkout', (route) => route.continue({ postData: JSON.stringify({ amountMinor: 1, currency: 'JPY' }) }));
     await page.goto(`${BASE_URL}${path}`);
     await approveOn(page);
@@ -160,7 +152,7 @@ describe('production mode without payment settings', () => {
       env: { KERFLINE_MODE: 'production', PAYMENTS_SECRET_KEY: undefined, PAYMENTS_WEBHOOK_SECRET: undefined, PAYMENTS_API_URL: undefined },
     });
     try {
-      const headers = { cookie: builder.cookie, origin: server.url, 'content-type': 'application/json' };
+      const headers = { cookie: suite.builder.cookie, origin: server.url, 'content-type': 'application/json' };
       const list = await fetch(`${server.url}/api/boards/${boardId}/proofs`, { headers });
       const settings = ((await list.json()) as { deposits: { offMessage: string | null } }).deposits;
       expect(settings.offMessage).toMatch(/^Deposits are off on this server: it has no payment settings/);
@@ -173,8 +165,8 @@ describe('production mode without payment settings', () => {
       const webhook = await fetch(`${server.url}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': 't=1,v1=00' }, body: '{}' });
       expect(webhook.status).toBe(503);
 
-      const context = await browser.newContext();
-      await context.addCookies([{ name: SESSION_COOKIE, value: builder.token, url: server.url }]);
+      const context = await suite.browser.newContext();
+      await context.addCookies([{ name: SESSION_COOKIE, value: suite.builder.token, url: server.url }]);
       const panel = await context.newPage();
       await panel.goto(`${server.url}/boards/${boardId}/proofs`);
       await panel.getByText(/Deposits are off on this server/).waitFor();
