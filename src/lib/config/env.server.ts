@@ -24,6 +24,13 @@ const envSchema = z.object({
    * Several processes on one machine share its cores (docs/operations.md, "Heavy work spreads").
    */
   EXPORT_THREADS: z.coerce.number().int().min(1).max(16).optional(),
+  /**
+   * The cores this process is sized for when several share a machine (npm run cluster sets it:
+   * cores ÷ processes); unset: the whole machine. The PDF worker threads follow it unless
+   * EXPORT_THREADS is set, and the launchers give node the flags for it
+   * (scripts/lib/process-cores.mjs; docs/operations.md, "Heavy work spreads").
+   */
+  APP_PROCESS_CORES: z.coerce.number().int().min(1).max(256).optional(),
 });
 
 export interface AppConfig {
@@ -37,6 +44,8 @@ export interface AppConfig {
   rateLimitScale: number;
   /** PDF worker threads when set; otherwise the pool works them out from the cores. */
   exportThreads: number | undefined;
+  /** The cores this process is sized for when set (APP_PROCESS_CORES); otherwise the machine's. */
+  processCores: number | undefined;
 }
 
 let cached: AppConfig | undefined;
@@ -60,6 +69,7 @@ export function config(): AppConfig {
     outboxDir: parsed.data.OUTBOX_DIR,
     rateLimitScale: parsed.data.RATE_LIMIT_SCALE,
     exportThreads: parsed.data.EXPORT_THREADS,
+    processCores: parsed.data.APP_PROCESS_CORES,
   };
   return cached;
 }
