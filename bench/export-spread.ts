@@ -1,10 +1,12 @@
 /**
  * Heavy work spreads over app processes: 40 concurrent paper-template PDF exports of the largest
- * board the caps allow on Letter (about 0.45 s of one core each here; the same board on 200 pages,
+ * board the caps allow on Letter (about 0.6 s of CPU each here; the same board on 200 pages,
  * about 2.1 s each, would need some 130 s for both runs on a 2-core machine, past the bench's
- * per-script limit), first against the bench's one server, then through HAProxy over that server
- * and a second process of the built app on the same database. A request refused because the
- * export queue is full (503) is sent again after RETRY_MS, as HAProxy's clients would; each run
+ * per-script limit), first against one process of the built app, then through HAProxy over that
+ * process and a second one on the same database. Both are started here with the same settings,
+ * sized as `npm run cluster` sizes two processes on this machine: APP_PROCESS_CORES = cores ÷ 2
+ * unless set (1 on 2 cores: one export thread and V8's garbage collector on that thread), so the
+ * two runs differ only in the count of processes. A request refused because the export queue is full (503) is sent again after RETRY_MS, as HAProxy's clients would; each run
  * lasts until all 40 are done or WINDOW_S is up (then the rest are cancelled by hanging up).
  * Figures: exports finished per minute in each run, their ratio as "time for the 40 with two
  * processes ÷ with one" (goal about half), GET /api/health p95 during each run (goal for the
@@ -17,7 +19,8 @@ import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { closeDb } from '~/lib/db/client.server.ts';
-import { startBuiltServer } from '../tests/support/built-server.ts';
+import { nodeFlagsForCores } from '../scripts/lib/process-cores.mjs';
+import { startBuiltServer, type BuiltServer } from '../tests/support/built-server.ts';
 import { startBalancer, type Balancer } from '../tests/support/cluster.ts';
 import { baseUrl, reportFigure } from './lib/figure.ts';
 import { LARGEST_BOARD } from './lib/largest-board.ts';
@@ -110,24 +113,30 @@ const perMinute = (run: Run) => (run.finished / run.seconds) * 60;
 const round = (value: number) => Math.round(value * 100) / 100;
 
 process.env.CLUSTER_DIR = mkdtempSync(join(tmpdir(), 'kerfline-spread-'));
-// The same settings as the bench's server, its scaled rate limits included (one shared count).
-const second = await startBuiltServer({ env: { APP_ORIGIN: BASE_URL, RATE_LIMIT_SCALE: process.env.RATE_LIMIT_SCALE } });
+const PROCESS_CORES = process.env.APP_PROCESS_CORES ?? String(Math.max(1, Math.floor(availableParallelism() / 2)));
+// Two processes alike: the bench server's origin (the requests' Origin header) and scaled rate
+// limits (one shared count), and the cores each is sized for.
+const settings = { APP_ORIGIN: BASE_URL, RATE_LIMIT_SCALE: process.env.RATE_LIMIT_SCALE, APP_PROCESS_CORES: PROCESS_CORES };
+const first = await startBuiltServer({ env: settings });
+let second: BuiltServer | undefined;
 let balancer: Balancer | undefined;
 try {
-  balancer = await startBalancer([Number(new URL(BASE_URL).port), second.port]);
-  const first = pidOn(Number(new URL(BASE_URL).port));
-  const one = await exportsThrough(BASE_URL, [first]);
-  const two = await exportsThrough(balancer.url, [first, pidOn(second.port)]);
+  second = await startBuiltServer({ env: settings });
+  balancer = await startBalancer([first.port, second.port]);
+  const firstPid = pidOn(first.port);
+  const one = await exportsThrough(first.url, [firstPid]);
+  const two = await exportsThrough(balancer.url, [firstPid, pidOn(second.port)]);
   const ratio = perMinute(one) / perMinute(two);
   const others = (run: Run) => Object.entries(run.other).map(([status, n]) => `${n}× ${status}`).join(', ') || 'none';
   console.error(`export-spread: answered otherwise: one process ${others(one)}; two processes ${others(two)}`);
+  console.error(`export-spread: each process APP_PROCESS_CORES=${PROCESS_CORES}, node flags: ${nodeFlagsForCores(PROCESS_CORES).join(' ') || 'none'}`);
   reportFigure({ figure: `template PDF exports finished per minute, one process (${one.finished} of ${CONCURRENT_EXPORTS} in ${round(one.seconds)} s; otherwise: ${others(one)})`, value: round(perMinute(one)), unit: '/min', goal: 'context' });
   reportFigure({ figure: `template PDF exports finished per minute, two processes behind HAProxy (${two.finished} of ${CONCURRENT_EXPORTS} in ${round(two.seconds)} s; otherwise: ${others(two)})`, value: round(perMinute(two)), unit: '/min', goal: 'context' });
   reportFigure({ figure: `time for ${CONCURRENT_EXPORTS} concurrent template PDF exports, two processes ÷ one (from the rates)`, value: round(ratio), unit: 'ratio', goal: '<= 0.6 (about half)', met: ratio <= 0.6 });
   reportFigure({ figure: `GET /api/health p95 during the one-process exports (${one.healthMs.length} requests)`, value: round(percentile(one.healthMs, 95)), unit: 'ms', goal: 'context' });
-  // One process's exports already keep more than one core busy (its worker thread plus V8's
-  // garbage-collector helper threads and the request thread): a second process on the same
-  // machine can only add the cores left, so the best ratio here is one's cores ÷ what two can get.
+  // One process's exports may keep more than its share busy (the request thread beside the
+  // worker thread, V8's background threads): a second process on the same machine can only add
+  // the cores left, so the best ratio here is one's cores ÷ what two can get.
   const cores = availableParallelism();
   reportFigure({ figure: `cores kept busy by one process during its exports (CPU s ÷ wall s, all threads; ${cores} on this machine)`, value: round(one.cores), unit: 'cores', goal: 'context' });
   reportFigure({ figure: 'cores kept busy by the two processes together during theirs', value: round(two.cores), unit: 'cores', goal: 'context' });
@@ -137,7 +146,8 @@ try {
   reportFigure({ figure: `GET /api/health p95 through HAProxy during the two-process exports (${two.healthMs.length} requests)`, value: round(p95), unit: 'ms', goal: `< ${HEALTH_GOAL_MS}`, met: p95 < HEALTH_GOAL_MS });
 } finally {
   await balancer?.stop();
-  await second.stop();
+  await second?.stop();
+  await first.stop();
   await closeDb();
   rmSync(process.env.CLUSTER_DIR, { recursive: true, force: true });
 }

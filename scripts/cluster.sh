@@ -25,10 +25,12 @@ export KERFLINE_MODE=${KERFLINE_MODE:-demo}
 export TRUSTED_PROXIES=${TRUSTED_PROXIES:-loopback}
 export HOST=127.0.0.1
 apps=${CLUSTER_APPS:-2}
-# The processes share this machine's cores: each gets PDF worker threads for its share, one core
-# of the share left to its request thread, at least 1 and at most 4 (docs/operations.md).
-share=$(($(nproc) / apps - 1))
-export EXPORT_THREADS=${EXPORT_THREADS:-$((share < 1 ? 1 : share > 4 ? 4 : share))}
+# The processes share this machine's cores: each is sized for its share, cores ÷ processes, at
+# least 1 (APP_PROCESS_CORES): PDF worker threads for it (one core of the share left to the
+# request thread, at least 1, at most 4; EXPORT_THREADS overrides) and, for one core, V8's garbage
+# collector kept on each thread's own core (scripts/lib/process-cores.mjs; docs/operations.md).
+share=$(($(nproc) / apps))
+export APP_PROCESS_CORES=${APP_PROCESS_CORES:-$((share < 1 ? 1 : share))}
 
 # Stops the processes named by pid files in run/ (HAProxy, apps, fake SMTP), then the nodes.
 stop_cluster() {

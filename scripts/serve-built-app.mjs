@@ -7,16 +7,23 @@
  * X-Forwarded-For counts only when a proxy listed in TRUSTED_PROXIES sent it. Small JSON bodies are
  * read here and handed to the adapter whole (scripts/lib/small-json-body.mjs), which is cheaper
  * than the adapter's stream for a body of a few KiB.
- * Environment: HOST (default 127.0.0.1) and PORT (default 4321), as for the adapter; TRUSTED_PROXIES.
+ * Environment: HOST (default 127.0.0.1) and PORT (default 4321), as for the adapter; TRUSTED_PROXIES;
+ * APP_PROCESS_CORES, whose node flags the launcher passes (scripts/lib/process-cores.mjs).
  */
 import http from 'node:http';
 import securityHeaders from '../src/lib/http/security-headers.json' with { type: 'json' };
 import { compileTrustedProxies, makeForwardingHonest } from './lib/client-address.mjs';
 import { isSmallJsonBody, readSmallJsonBody } from './lib/small-json-body.mjs';
+import { missingNodeFlags } from './lib/process-cores.mjs';
 
 let trust;
 try {
   trust = compileTrustedProxies(process.env.TRUSTED_PROXIES);
+  // Node's flags cannot be set from inside: a launcher that left them out is said, not hidden.
+  const missing = missingNodeFlags(process.env.APP_PROCESS_CORES);
+  if (missing.length > 0) {
+    console.error(`kerfline: APP_PROCESS_CORES=${process.env.APP_PROCESS_CORES} wants node started with ${missing.join(' ')} (scripts/lib/process-cores.mjs); without, its background threads may use more than that share`);
+  }
 } catch (error) {
   console.error(`kerfline: ${error.message}`);
   process.exit(1);

@@ -4,16 +4,27 @@
  * after a short back-off: 1 s, doubling on each quick failure up to 30 s, back to 1 s once a
  * server has stayed up for a minute. Every exit and restart is logged on stderr. SIGTERM or SIGINT
  * stop the server, then this process. MariaDB is not this script's business: it keeps running
- * while the server comes back. Environment: as for serve-built-app.mjs (HOST, PORT, ...).
+ * while the server comes back. Environment: as for serve-built-app.mjs (HOST, PORT, ...); APP_PROCESS_CORES also
+ * chooses the server's node flags.
  */
 import { spawn } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
+import { nodeFlagsForCores } from './lib/process-cores.mjs';
 
 const SERVER = fileURLToPath(new URL('./serve-built-app.mjs', import.meta.url));
 const FIRST_DELAY_MS = 1_000;
 const MAX_DELAY_MS = 30_000;
 /** A server that ran this long was healthy: the next failure starts the back-off afresh. */
 const HEALTHY_AFTER_MS = 60_000;
+
+/** The node flags for APP_PROCESS_CORES (scripts/lib/process-cores.mjs), checked before the first start. */
+let nodeFlags;
+try {
+  nodeFlags = nodeFlagsForCores(process.env.APP_PROCESS_CORES);
+} catch (error) {
+  console.error(`kerfline: ${error.message}`);
+  process.exit(1);
+}
 
 let child;
 let stopping = false;
@@ -26,7 +37,7 @@ const log = (line) => console.error(`kerfline: ${line}`);
 function start() {
   pendingStart = undefined;
   const startedAt = Date.now();
-  child = spawn(process.execPath, [SERVER], { stdio: 'inherit', env: process.env });
+  child = spawn(process.execPath, [...nodeFlags, SERVER], { stdio: 'inherit', env: process.env });
   log(`web server started (pid ${child.pid})`);
   child.on('exit', (code, signal) => {
     child = undefined;

@@ -18,6 +18,10 @@ build_if_changed() {
 
 # Runs the built server on HOST:PORT (security headers on static files too). Call it in the
 # background (`start_app_server & pid=$!`): exec makes $! the server itself, so TERM reaches it.
+# APP_PROCESS_CORES, when set, adds its node flags (scripts/lib/process-cores.mjs).
 start_app_server() {
-  exec node scripts/serve-built-app.mjs
+  local flags
+  flags=$(node scripts/lib/process-cores.mjs) || exit 1
+  # shellcheck disable=SC2086 # one flag a word, none with spaces
+  exec node $flags scripts/serve-built-app.mjs
 }

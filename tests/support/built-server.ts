@@ -4,6 +4,7 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { once } from 'node:events';
+import { nodeFlagsForCores } from '../../scripts/lib/process-cores.mjs';
 import { freePort } from './free-port.ts';
 
 export interface BuiltServer {
@@ -36,7 +37,9 @@ export async function startBuiltServer(options: BuiltServerOptions = {}): Promis
     if (value === undefined) delete env[name];
     else env[name] = value;
   }
-  const child: ChildProcess = spawn(process.execPath, ['scripts/serve-built-app.mjs'], { env, stdio: 'ignore' });
+  // Started as the launchers start it: node's flags for APP_PROCESS_CORES, when set.
+  const flags = nodeFlagsForCores(env.APP_PROCESS_CORES);
+  const child: ChildProcess = spawn(process.execPath, [...flags, 'scripts/serve-built-app.mjs'], { env, stdio: 'ignore' });
   const exited = once(child, 'exit');
   const end = async (signal: NodeJS.Signals) => {
     if (child.exitCode === null && child.signalCode === null) {

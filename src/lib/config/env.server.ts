@@ -30,6 +30,13 @@ const envSchema = z.object({
   PAYMENTS_WEBHOOK_SECRET: z.string().trim().default(''),
   /** Where the payment SDK sends its calls; `npm start` and the tests point it at the local fake. */
   PAYMENTS_API_URL: z.string().url().default('https://api.stripe.com'),
+  /**
+   * The cores this process is sized for when several share a machine (npm run cluster sets it:
+   * cores ÷ processes); unset: the whole machine. The PDF worker threads follow it unless
+   * EXPORT_THREADS is set, and the launchers give node the flags for it
+   * (scripts/lib/process-cores.mjs; docs/operations.md, "Heavy work spreads").
+   */
+  APP_PROCESS_CORES: z.coerce.number().int().min(1).max(256).optional(),
 });
 
 export interface AppConfig {
@@ -43,6 +50,8 @@ export interface AppConfig {
   rateLimitScale: number;
   /** PDF worker threads when set; otherwise the pool works them out from the cores. */
   exportThreads: number | undefined;
+  /** The cores this process is sized for when set (APP_PROCESS_CORES); otherwise the machine's. */
+  processCores: number | undefined;
   /** Null when deposits are off: no secret key or no webhook secret. */
   payments: PaymentSettings | null;
 }
@@ -94,6 +103,7 @@ export function config(): AppConfig {
     rateLimitScale: parsed.data.RATE_LIMIT_SCALE,
     exportThreads: parsed.data.EXPORT_THREADS,
     payments: paymentSettings(parsed.data),
+    processCores: parsed.data.APP_PROCESS_CORES,
   };
   return cached;
 }

@@ -27,7 +27,8 @@ export const EXPORT_POOL = {
   /**
    * Worker threads of one process when EXPORT_THREADS is not set: one core is left to the web
    * server; at most 4, as each may hold a large PDF. Several processes on one machine share its
-   * cores: set EXPORT_THREADS on each (npm run cluster does: cores ÷ processes - 1, at least 1).
+   * cores: APP_PROCESS_CORES gives each its share (npm run cluster does: cores ÷ processes), and
+   * the threads are worked out from that share; EXPORT_THREADS sets them outright.
    */
   threads: (cores: number): number => Math.min(4, Math.max(1, cores - 1)),
   /**

@@ -63,7 +63,7 @@ export interface ExportPool {
 
 export function defaultPoolSettings(): ExportPoolSettings {
   return {
-    threads: config().exportThreads ?? EXPORT_POOL.threads(availableParallelism()),
+    threads: config().exportThreads ?? EXPORT_POOL.threads(config().processCores ?? availableParallelism()),
     maxQueue: EXPORT_POOL.maxQueue,
     jobTimeoutMs: EXPORT_POOL.jobTimeoutMs,
     workerFile: join(process.cwd(), EXPORT_WORKER_FILE),
