@@ -7,13 +7,16 @@
 import Stripe from 'stripe';
 import { config } from '~/lib/config/env.server.ts';
 import { REFUND_STATUSES } from '~/lib/schemas/deposit.ts';
+import type { Failure } from '~/lib/http/result.ts';
 
 /** The SDK's webhook helpers need no API key; this instance only verifies. */
 const verifier = new Stripe('sk_verify_only');
 
 export type VerifiedEvent =
   | { ok: true; event: Stripe.Event }
-  | { ok: false; reason: 'off' | 'no_signature' | 'bad_signature' | 'stale' };
+  | WebhookRefusal;
+
+export type WebhookRefusal = Failure<'off' | 'no_signature' | 'bad_signature' | 'stale'>;
 
 /** Checks the signature and age of a webhook; `payload` must be the raw body as received. */
 export function verifyWebhook(payload: string | Uint8Array, signature: string | null, nowSeconds?: number): VerifiedEvent {

@@ -2,7 +2,8 @@ import type { APIRoute } from 'astro';
 import { readBytes } from '~/lib/http/body.server.ts';
 import { json, problem } from '~/lib/http/problem.ts';
 import { PAYMENTS_OFF_MESSAGE } from '~/lib/payments/payment-service.server.ts';
-import { eventFact, verifyWebhook } from '~/lib/payments/webhook-events.server.ts';
+import { failureAnswer, type FailureAnswers } from '~/lib/http/result.ts';
+import { eventFact, verifyWebhook, type WebhookRefusal } from '~/lib/payments/webhook-events.server.ts';
 import { recordEvent } from '~/lib/payments/webhook-records.server.ts';
 
 export const prerender = false;
@@ -10,11 +11,12 @@ export const prerender = false;
 /** Events are small; the service's largest objects stay well under this. */
 const BODY_MAX_BYTES = 256 * 1024;
 
-const REFUSALS = {
-  no_signature: 'Missing Stripe-Signature header',
-  bad_signature: 'The webhook signature does not match this endpoint\'s secret',
-  stale: 'The webhook timestamp is too old (more than 300 s)',
-} as const;
+const REFUSALS: FailureAnswers<WebhookRefusal> = {
+  off: () => problem(503, PAYMENTS_OFF_MESSAGE),
+  no_signature: () => problem(400, 'Missing Stripe-Signature header', { field: 'stripe-signature' }),
+  bad_signature: () => problem(400, 'The webhook signature does not match this endpoint\'s secret', { field: 'stripe-signature' }),
+  stale: () => problem(400, 'The webhook timestamp is too old (more than 300 s)', { field: 'stripe-signature' }),
+};
 
 /**
  * POST /api/payments/webhook: the payment service's signed events (docs/payments.md). Public: the
@@ -26,10 +28,7 @@ export const POST: APIRoute = async ({ request }) => {
   const body = await readBytes(request, { maxBytes: BODY_MAX_BYTES, types: ['application/json'] });
   if (!body.ok) return body.response;
   const verified = verifyWebhook(Buffer.from(body.value), request.headers.get('stripe-signature'));
-  if (!verified.ok) {
-    if (verified.reason === 'off') return problem(503, PAYMENTS_OFF_MESSAGE);
-    return problem(400, REFUSALS[verified.reason], { field: 'stripe-signature' });
-  }
+  if (!verified.ok) return failureAnswer(verified, REFUSALS);
   const outcome = await recordEvent(eventFact(verified.event));
   return json({ received: true, outcome });
 };
