@@ -131,12 +131,50 @@ export function isReadyAnswer(rows: unknown): boolean {
 }
 
 /**
+ * 1047 (the node left the primary component) and 1053 (the server is shutting down): every later
+ * query on a connection to that node fails the same way, so such a connection must not go back
+ * to the pool.
+ */
+const NODE_LEAVING_CODES = new Set(['ER_UNKNOWN_COM_ERROR', 'ER_SERVER_SHUTDOWN']);
+
+type Command = { onResult?: (error: unknown, ...rest: unknown[]) => unknown };
+
+/**
+ * Once a query on `connection` is refused because its node is leaving, the node is marked down
+ * (new connections go to the next host) and the connection is closed when released instead of
+ * pooled, so a retry gets a fresh connection rather than the next one to the same node.
+ */
+export function retireWhenNodeLeaves(connection: CallbackConnection, list: HostList): void {
+  const internals = connection as unknown as { addCommand(cmd: Command): unknown; stream?: unknown };
+  let leaving = false;
+  const addCommand = internals.addCommand.bind(connection);
+  internals.addCommand = (cmd: Command) => {
+    const onResult = cmd.onResult;
+    if (typeof onResult === 'function') {
+      cmd.onResult = (error: unknown, ...rest: unknown[]) => {
+        const code = (error as { code?: unknown } | null)?.code;
+        if (typeof code === 'string' && NODE_LEAVING_CODES.has(code)) {
+          leaving = true;
+          if (internals.stream instanceof FailoverSocket && internals.stream.connectedTo) list.markDown(internals.stream.connectedTo);
+        }
+        return onResult.call(cmd, error, ...rest);
+      };
+    }
+    return addCommand(cmd);
+  };
+  const release = connection.release.bind(connection);
+  connection.release = () => (leaving ? connection.destroy() : release());
+}
+
+/**
  * Before a new connection's first query, asks the node whether it takes queries
  * (NODE_READY_SQL). A node that is not ready is marked down and the connection closed, so the
  * request fails over to 503 or its retry, and the next connection goes to another node.
+ * A connection whose node leaves later is retired (retireWhenNodeLeaves).
  */
 export function watchReadiness(pool: CallbackPool, list: HostList): void {
   pool.on('connection', (connection: CallbackConnection) => {
+    retireWhenNodeLeaves(connection, list);
     connection.query(NODE_READY_SQL, (error, rows) => {
       if (!error && isReadyAnswer(rows)) return;
       const host = (connection as unknown as { stream?: unknown }).stream;
