@@ -14,17 +14,13 @@ import { toMm } from '~/lib/format/units.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { INSTRUMENT_TYPES } from '~/lib/schemas/board.ts';
 import { baseUrl, reportFigure } from './lib/figure.ts';
+import { percentile } from './lib/samples.ts';
 
 const BASE_URL = baseUrl();
 const BOARDS = 1000;
 const WARM_UP = 20;
 const SAMPLES = 200;
 const INSERT_BATCH = 200;
-
-function percentile(values: number[], p: number): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]!;
-}
 
 /** A figure rounded to 0.01; `under` is the goal's limit, left out for context figures. */
 function report(figure: string, value: number, unit: string, under?: number): void {

@@ -7,12 +7,13 @@
  * answered (200, 503 queue full, ...). Exports still unfinished after EXPORT_WINDOW_S are
  * cancelled by hanging up, as a client would. Prints one JSON line per figure (bench/README.md).
  */
-import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { closeDb } from '~/lib/db/client.server.ts';
 import { newShopUser } from '../tests/support/sessions.ts';
 import { baseUrl, reportFigure } from './lib/figure.ts';
 import { LARGEST_BOARD } from './lib/largest-board.ts';
+import { pidOn } from './lib/process-cpu.ts';
+import { percentile } from './lib/samples.ts';
 
 const BASE_URL = baseUrl();
 const CONCURRENT_EXPORTS = 20;
@@ -24,20 +25,6 @@ const HEAVIEST = {
   path: '/api/export?format=pdf&paper=letter&overlap=99.9',
   design: LARGEST_BOARD,
 };
-
-function percentile(values: number[], p: number): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)] ?? NaN;
-}
-
-/** The pid listening on the server's port (ss from iproute2). */
-function serverPid(): number {
-  const port = new URL(BASE_URL).port;
-  const out = execFileSync('ss', ['-Hltnp', `sport = :${port}`], { encoding: 'utf8' });
-  const pid = /pid=(\d+)/.exec(out)?.[1];
-  if (!pid) throw new Error(`no process found listening on port ${port}`);
-  return Number(pid);
-}
 
 /** A line of /proc/<pid>/status in KiB, e.g. VmRSS or VmHWM. */
 function statusKiB(pid: number, field: 'VmRSS' | 'VmHWM'): number {
@@ -55,7 +42,7 @@ async function timedGet(path: string, cookie?: string): Promise<number> {
 
 const builder = await newShopUser('builder', 'Bench export load shop');
 const LIST_PATH = '/api/boards?sort=scale&dir=desc';
-const pid = serverPid();
+const pid = pidOn(new URL(BASE_URL).port);
 
 const baseline: number[] = [];
 for (let i = 0; i < BASELINE_SAMPLES; i++) baseline.push(await timedGet('/api/health'));

@@ -14,8 +14,7 @@
  * /proc), which bound the ratio one machine can give. Both runs in one bench run, so the ratio
  * compares like with like.
  */
-import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { closeDb } from '~/lib/db/client.server.ts';
@@ -24,6 +23,8 @@ import { startBuiltServer, type BuiltServer } from '../tests/support/built-serve
 import { startBalancer, type Balancer } from '../tests/support/cluster.ts';
 import { baseUrl, reportFigure } from './lib/figure.ts';
 import { LARGEST_BOARD } from './lib/largest-board.ts';
+import { cpuSeconds, pidOn } from './lib/process-cpu.ts';
+import { percentile } from './lib/samples.ts';
 
 const BASE_URL = baseUrl();
 const CONCURRENT_EXPORTS = 40;
@@ -37,29 +38,6 @@ const EXPORT = {
 };
 
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
-
-/** The pid listening on `port` (ss from iproute2). */
-function pidOn(port: number): number {
-  const pid = /pid=(\d+)/.exec(execFileSync('ss', ['-Hltnp', `sport = :${port}`], { encoding: 'utf8' }))?.[1];
-  if (!pid) throw new Error(`no process found listening on port ${port}`);
-  return Number(pid);
-}
-
-const TICKS_PER_SECOND = Number(execFileSync('getconf', ['CLK_TCK'], { encoding: 'utf8' }).trim());
-
-/** CPU seconds the processes have used, all their threads: utime + stime of /proc/<pid>/stat (proc(5)). */
-function cpuSeconds(pids: readonly number[]): number {
-  return pids.reduce((sum, pid) => {
-    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
-    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
-    return sum + (Number(fields[11]) + Number(fields[12])) / TICKS_PER_SECOND;
-  }, 0);
-}
-
-function percentile(values: number[], p: number): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)] ?? NaN;
-}
 
 interface Run {
   finished: number;

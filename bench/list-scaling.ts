@@ -14,6 +14,7 @@ import { boards, sessions, shops, users } from '~/lib/db/schema.ts';
 import { DEMO_DESIGNS } from '~/lib/boards/demo/demo-designs.ts';
 import { INSTRUMENT_TYPES } from '~/lib/schemas/board.ts';
 import { baseUrl, reportFigure } from './lib/figure.ts';
+import { percentile } from './lib/samples.ts';
 
 const SIZES = [100, 1000, 10_000];
 const INSERT_BATCH = 1000;
@@ -26,11 +27,6 @@ const QUERIES = {
   'first page, newest first': '/api/boards',
   'search + filter + sort by scale, page 2': '/api/boards?q=board&instrument=guitar&status=active&sort=scale&dir=desc&page=2&pageSize=25',
 } as const;
-
-function percentile(values: number[], p: number): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]!;
-}
 
 async function throwawayShop(): Promise<{ shopId: number; userId: string; cookie: string }> {
   const [shop] = await db().insert(shops).values({ name: `Bench list shop ${newToken().slice(0, 12)}` }).$returningId();
